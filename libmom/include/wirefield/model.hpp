@@ -1,0 +1,131 @@
+// wirefield public API, part 1: the parsed model and the errors every stage reports.
+// A Model is what the model language says, resolved to SI numbers (metres, hertz, ohm,
+// henry, farad, volt, S/m), with the source location of each statement kept for diagnostics.
+// Standard types only; see docs/model-language.md for the language itself.
+#pragma once
+
+#include <array>
+#include <optional>
+#include <stdexcept>
+#include <string>
+#include <vector>
+
+namespace wirefield {
+
+// Where a piece of input came from. file is the model path as given (or "<command line>").
+struct SourceLocation {
+  std::string file;
+  int line = 0;    // 1-based; 0 when unknown
+  int column = 0;  // 1-based; 0 when unknown
+};
+
+// Formats a location as "FILE:LINE:COLUMN" (or just FILE when line is 0).
+std::string ToString(const SourceLocation& location);
+
+// The user's input is wrong (exit code 2). what() is "FILE:LINE:COLUMN: error: MESSAGE".
+class InputError : public std::runtime_error {
+ public:
+  InputError(SourceLocation location, const std::string& message);
+  const SourceLocation& location() const { return location_; }
+  const std::string& message() const { return message_; }
+
+ private:
+  SourceLocation location_;
+  std::string message_;
+};
+
+// The computation failed although the input was well formed (exit code 1):
+// a singular matrix, a non-finite result, a broken internal invariant.
+class ComputationError : public std::runtime_error {
+ public:
+  using std::runtime_error::runtime_error;
+};
+
+// A numerically dubious but runnable model. Printed to stderr as
+// "FILE:LINE:COLUMN: warning: MESSAGE"; the run goes on.
+struct Warning {
+  SourceLocation location;
+  std::string message;
+};
+std::string ToString(const Warning& warning);
+
+using Point = std::array<double, 3>;  // Cartesian, metres, z up
+
+enum class PointKind { kStart, kEnd, kDistance, kPercent };
+
+// WIRE@POS: a point on a wire. value is metres from the start (kDistance) or percent
+// of the length (kPercent); unused for kStart and kEnd.
+struct WirePointSpec {
+  std::string wire;
+  PointKind kind = PointKind::kStart;
+  double value = 0.0;
+  SourceLocation location;  // of the WIRE@POS text
+};
+
+struct WireSpec {
+  std::string name;
+  Point from_m{};
+  Point to_m{};
+  double radius_m = 0.0;
+  int segments = 0;  // 0: the mesher chooses
+  SourceLocation location;
+};
+
+struct FeedSpec {
+  std::string name;
+  WirePointSpec at;
+  double voltage_v = 1.0;  // peak amplitude of the delta-gap source, phase 0
+  SourceLocation location;
+};
+
+enum class LoadTopology { kSeries, kParallel };
+
+// A lumped load: the present elements of R, L, C in series or in parallel.
+struct LoadSpec {
+  std::string name;
+  WirePointSpec at;
+  LoadTopology topology = LoadTopology::kSeries;
+  std::optional<double> resistance_ohm;
+  std::optional<double> inductance_h;
+  std::optional<double> capacitance_f;
+  SourceLocation location;
+};
+
+enum class GroundKind { kFree, kPerfect, kReal };
+
+struct GroundSpec {
+  GroundKind kind = GroundKind::kFree;
+  double permittivity = 1.0;          // relative, real ground only
+  double conductivity_s_per_m = 0.0;  // real ground only
+  SourceLocation location;
+};
+
+struct Model {
+  std::string file;  // as given by the caller
+  std::vector<WireSpec> wires;
+  std::vector<FeedSpec> feeds;
+  std::vector<LoadSpec> loads;
+  GroundSpec ground;
+  std::optional<double> frequency_hz;
+  SourceLocation frequency_location;
+  std::optional<double> z0_ohm;  // reference impedance for SWR; 50 ohm when absent
+  std::vector<Warning> warnings;  // raised while parsing
+};
+
+// A --set NAME=VALUE override: VALUE is an expression of the model language.
+struct Override {
+  std::string name;
+  std::string expression;
+};
+
+// Reads and parses a model file. Throws InputError for any defect of the input.
+Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides = {});
+
+// Parses model text; file_name is used in diagnostics only.
+Model ParseModelText(const std::string& text, const std::string& file_name,
+                     const std::vector<Override>& overrides = {});
+
+// Splits "NAME=VALUE" into an Override; throws InputError (file "--set") when malformed.
+Override ParseOverride(const std::string& text);
+
+}  // namespace wirefield

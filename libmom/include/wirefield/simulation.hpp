@@ -1,0 +1,109 @@
+// wirefield public API, part 2: meshing and solving a model.
+// A Simulation meshes a Model once (for the highest frequency it will be asked about) and then
+// solves it at any frequency: fill the moment-method matrix, solve, report feeds and loads.
+// Standard types only; the numerics are described in docs/numerics.md.
+#pragma once
+
+#include <complex>
+#include <memory>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "wirefield/model.hpp"
+
+namespace wirefield {
+
+using Complex = std::complex<double>;
+
+struct SimulationOptions {
+  // Highest frequency the mesh must serve, Hz. Default: the model's frequency. The mesher
+  // picks segment counts for this frequency; higher means more unknowns (slower, finer).
+  std::optional<double> max_frequency_hz;
+  // Target segments per wavelength at max_frequency_hz when a wire gives no `segments`.
+  // Default 40: the feed resistance of a thin dipole then changes by well under 1% when the
+  // count doubles. Raising it costs time as the cube of the unknown count.
+  double segments_per_wavelength = 40.0;
+  // Minimum segments on a wire that gives no `segments`. Default 3.
+  int min_segments_per_wire = 3;
+  // Largest matrix (bytes) the solver may allocate before refusing the model. Default: half of
+  // the memory the system reports available (or 4 GiB when unknown).
+  std::optional<double> max_matrix_bytes;
+};
+
+struct FeedResult {
+  std::string name;
+  Complex impedance_ohm;  // at the feed's terminals
+  Complex current_a;      // peak phasor, into the antenna
+  Complex voltage_v;      // the source voltage
+  double swr = 0.0;       // against z0_ohm
+  double z0_ohm = 50.0;
+  double power_w = 0.0;   // 0.5 Re(V I*): power delivered to the antenna terminals
+};
+
+struct LoadResult {
+  std::string name;
+  Complex impedance_ohm;  // of the lumped element at this frequency
+  Complex current_a;      // peak phasor through the load
+  Complex voltage_v;      // peak phasor across the load, I * Z
+  double power_w = 0.0;   // 0.5 |I|^2 Re(Z)
+  bool open = false;      // true when the element is an ideal open circuit at this frequency
+};
+
+// Current on one segment's centre (peak phasor, along the segment from its start to its end).
+struct SegmentCurrent {
+  int wire = 0;  // index into Model::wires
+  Point start_m{};
+  Point end_m{};
+  Complex current_a;
+};
+
+struct SolveResult {
+  double frequency_hz = 0.0;
+  int unknowns = 0;
+  int segments = 0;
+  std::vector<FeedResult> feeds;
+  std::vector<LoadResult> loads;
+  std::vector<SegmentCurrent> currents;
+  double fill_time_s = 0.0;
+  double solve_time_s = 0.0;
+};
+
+// Segment counts per wire: what the model gave (0 = none) and what the mesher used.
+struct WireMeshInfo {
+  std::string name;
+  int segments_given = 0;
+  int segments_used = 0;
+};
+
+class Simulation {
+ public:
+  // Meshes the model and checks it. Throws InputError when the geometry is inconsistent
+  // (a feed at a free wire end, a model too large to fit in memory, ...).
+  explicit Simulation(Model model, SimulationOptions options = {});
+  ~Simulation();
+  Simulation(Simulation&&) noexcept;
+  Simulation& operator=(Simulation&&) noexcept;
+
+  // Solves at frequency_hz (> 0). Throws ComputationError when the solve fails.
+  SolveResult Solve(double frequency_hz) const;
+
+  // The model's frequency, or InputError naming the file when it has none.
+  double DefaultFrequency() const;
+
+  const Model& model() const;
+  int unknowns() const;
+  int segments() const;
+  const std::vector<WireMeshInfo>& wire_mesh() const;
+  // Warnings of the parser and the mesher together (segment length, crossings, ground).
+  const std::vector<Warning>& warnings() const;
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
+};
+
+// The version string, e.g. "0.1.0".
+std::string Version();
+
+}  // namespace wirefield

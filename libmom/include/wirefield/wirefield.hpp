@@ -1,0 +1,5 @@
+// wirefield public API: include this one header.
+#pragma once
+
+#include "wirefield/model.hpp"
+#include "wirefield/simulation.hpp"
