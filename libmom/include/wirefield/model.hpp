@@ -128,4 +128,12 @@ Model ParseModelText(const std::string& text, const std::string& file_name,
 // Splits "NAME=VALUE" into an Override; throws InputError (file "--set") when malformed.
 Override ParseOverride(const std::string& text);
 
+// Parses a command-line frequency such as "14.2MHz", "14.2 MHz" or "14200000" (bare = Hz),
+// an expression of the model language. Throws InputError naming option_name (e.g. "--freq")
+// when it is malformed, not a frequency, or not positive.
+double ParseFrequencyArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line resistance such as "50", "50ohm" or "1.2kohm" (bare = ohm); must be > 0.
+double ParseResistanceArgument(const std::string& text, const std::string& option_name);
+
 }  // namespace wirefield
