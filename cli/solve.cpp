@@ -1,0 +1,47 @@
+// Command-line program: `wirefield solve MODEL`: solve one model at one frequency and print
+// its feeds and loads (text table or, with --json, the contract's JSON). Flags -> Model and
+// SimulationOptions -> Simulation::Solve -> FormatSolveText / FormatSolveJson -> stdout.
+#include <memory>
+
+#include "command.hpp"
+#include "wirefield/report.hpp"
+
+namespace wirefield::cli {
+
+namespace {
+
+int RunSolve(const ModelFlags& flags) {
+  // Check the flags before the (possibly long) file read and mesh.
+  FrequencyFlag(flags);
+  Model model = LoadModel(flags);
+  const double frequency_hz = ChosenFrequency(flags, model);
+  SimulationOptions options;
+  options.max_frequency_hz = frequency_hz;
+  Simulation simulation(std::move(model), options);
+  PrintWarnings(simulation.warnings());
+  const SolveResult result = simulation.Solve(frequency_hz);
+  // Format in full before writing, so a failure never leaves half a document on stdout.
+  const std::string output =
+      flags.json ? FormatSolveJson(simulation, result) : FormatSolveText(simulation, result);
+  WriteStdout(output);
+  return 0;
+}
+
+}  // namespace
+
+Command AddSolveCommand(CLI::App& program) {
+  auto flags = std::make_shared<ModelFlags>();
+  CLI::App* app = program.add_subcommand(
+      "solve",
+      "Solve a model at one frequency: feedpoint impedance, SWR, currents and power at each "
+      "feed, current, voltage and power at each load.");
+  AddModelFlags(*app, *flags, /*with_frequency=*/true);
+  app->footer(
+      "Examples:\n"
+      "  wirefield solve models/hiking_club_dipole.wire\n"
+      "  wirefield solve models/hiking_club_dipole.wire --freq 14.05MHz --z0 75 --json\n"
+      "  wirefield solve models/inverted_v_trail.wire --set apex_height=9m");
+  return Command{app, [flags] { return RunSolve(*flags); }};
+}
+
+}  // namespace wirefield::cli

@@ -1,0 +1,287 @@
+// Report stage: one solve's results (SolveResult plus the Simulation's model and mesh) as a
+// readable text report and as the JSON document of the `solve` command (docs/commands.md).
+// Input: the simulation and its result; output: text. Every number printed is checked to be
+// finite first: a non-finite value throws ComputationError instead of reaching the user.
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <complex>
+#include <nlohmann/json.hpp>
+#include <string>
+#include <vector>
+
+#include "report/text_table.hpp"
+#include "wirefield/report.hpp"
+
+namespace wirefield {
+namespace report {
+namespace {
+
+// Power the "at 100 W" lines scale the 1 V (or model-given) excitation to. 100 W is a common
+// transmitter output on HF (common practice); the lines only scale the linear solution.
+constexpr double kScaledPower_w = 100.0;
+
+void CheckFinite(double value, const std::string& what) {
+  if (!std::isfinite(value)) {
+    throw ComputationError(fmt::format(
+        "the solve produced a non-finite {} ({}); the model may be degenerate (a wire far "
+        "shorter than its radius, a load that shorts the feed, or a frequency far from the "
+        "mesh's)",
+        what, value));
+  }
+}
+
+void CheckFinite(Complex value, const std::string& what) {
+  CheckFinite(value.real(), what + " (real part)");
+  CheckFinite(value.imag(), what + " (imaginary part)");
+}
+
+// Checks every number either report prints, so both refuse the same results.
+void CheckResult(const SolveResult& result) {
+  CheckFinite(result.frequency_hz, "frequency");
+  for (const FeedResult& feed : result.feeds) {
+    const std::string who = fmt::format("value at feed '{}'", feed.name);
+    CheckFinite(feed.impedance_ohm, "impedance " + who);
+    CheckFinite(feed.current_a, "current " + who);
+    CheckFinite(feed.voltage_v, "voltage " + who);
+    CheckFinite(feed.swr, "SWR " + who);
+    CheckFinite(feed.z0_ohm, "z0 " + who);
+    CheckFinite(feed.power_w, "power " + who);
+  }
+  for (const LoadResult& load : result.loads) {
+    const std::string who = fmt::format("value at load '{}'", load.name);
+    if (!load.open) CheckFinite(load.impedance_ohm, "impedance " + who);
+    CheckFinite(load.current_a, "current " + who);
+    CheckFinite(load.voltage_v, "voltage " + who);
+    CheckFinite(load.power_w, "power " + who);
+  }
+}
+
+double TotalFeedPower(const SolveResult& result) {
+  double total_w = 0.0;
+  for (const FeedResult& feed : result.feeds) total_w += feed.power_w;
+  return total_w;
+}
+
+// A value with about five significant digits, without exponent for everyday magnitudes.
+std::string Number(double value) {
+  const double magnitude = std::abs(value);
+  if (magnitude == 0.0) return "0";
+  if (magnitude >= 1e-3 && magnitude < 1e7) {
+    const int digits_before = static_cast<int>(std::floor(std::log10(magnitude))) + 1;
+    const int decimals = std::max(0, 5 - digits_before);
+    return fmt::format("{:.{}f}", value, decimals);
+  }
+  return fmt::format("{:.4e}", value);
+}
+
+std::string Signed(double value) {
+  const std::string text = Number(value);
+  return value >= 0.0 ? "+" + text : text;
+}
+
+std::string Degrees(Complex value) {
+  if (value == Complex(0.0, 0.0)) return "0.00";
+  return fmt::format("{:.2f}", std::arg(value) * 180.0 / std::acos(-1.0));
+}
+
+std::string Swr(double swr) {
+  if (swr < 100.0) return fmt::format("{:.2f}", swr);
+  return fmt::format("{:.0f}", swr);
+}
+
+std::string PointText(const WirePointSpec& at) {
+  switch (at.kind) {
+    case PointKind::kStart:
+      return at.wire + "@start";
+    case PointKind::kEnd:
+      return at.wire + "@end";
+    case PointKind::kDistance:
+      return fmt::format("{}@{}m", at.wire, Number(at.value));
+    case PointKind::kPercent:
+      return fmt::format("{}@{}%", at.wire, Number(at.value));
+  }
+  return at.wire;
+}
+
+std::string FeedPlace(const Model& model, const std::string& name) {
+  for (const FeedSpec& feed : model.feeds) {
+    if (feed.name == name) return PointText(feed.at);
+  }
+  return "?";
+}
+
+const LoadSpec* FindLoad(const Model& model, const std::string& name) {
+  for (const LoadSpec& load : model.loads) {
+    if (load.name == name) return &load;
+  }
+  return nullptr;
+}
+
+std::string LoadElements(const LoadSpec* load) {
+  if (load == nullptr) return "?";
+  std::vector<std::string> parts;
+  if (load->resistance_ohm) parts.push_back(fmt::format("R={}ohm", Number(*load->resistance_ohm)));
+  if (load->inductance_h) parts.push_back(fmt::format("L={}uH", Number(*load->inductance_h * 1e6)));
+  if (load->capacitance_f) {
+    parts.push_back(fmt::format("C={}pF", Number(*load->capacitance_f * 1e12)));
+  }
+  const char* joint = load->topology == LoadTopology::kSeries ? " + " : " || ";
+  std::string text = load->topology == LoadTopology::kSeries ? "series " : "parallel ";
+  for (std::size_t i = 0; i < parts.size(); ++i) text += (i ? joint : "") + parts[i];
+  return text;
+}
+
+std::string GroundText(const GroundSpec& ground) {
+  switch (ground.kind) {
+    case GroundKind::kFree:
+      return "none (free space)";
+    case GroundKind::kPerfect:
+      return "perfectly conducting plane z = 0";
+    case GroundKind::kReal:
+      return fmt::format("real, plane z = 0: relative permittivity {}, conductivity {} S/m",
+                         Number(ground.permittivity), Number(ground.conductivity_s_per_m));
+  }
+  return "?";
+}
+
+nlohmann::json ComplexJson(Complex value) {
+  return nlohmann::json::array({value.real(), value.imag()});
+}
+
+}  // namespace
+}  // namespace report
+
+std::string FormatSolveText(const Simulation& simulation, const SolveResult& result) {
+  using report::Align;
+  using report::Number;
+  using report::TextTable;
+  report::CheckResult(result);
+  const Model& model = simulation.model();
+  std::string out;
+  out += fmt::format("wirefield solve: {}\n", model.file);
+  out += fmt::format("  frequency       {:.6f} MHz\n", result.frequency_hz / 1e6);
+  out += fmt::format("  mesh            {} wire{}, {} segments, {} unknowns\n",
+                     simulation.wire_mesh().size(), simulation.wire_mesh().size() == 1 ? "" : "s",
+                     result.segments, result.unknowns);
+  out += fmt::format("  ground          {}\n", report::GroundText(model.ground));
+
+  out += "\nFeeds\n";
+  TextTable feeds;
+  const double z0_ohm = result.feeds.empty() ? model.z0_ohm.value_or(50.0) : result.feeds[0].z0_ohm;
+  feeds.AddColumn("feed", Align::kLeft);
+  feeds.AddColumn("at", Align::kLeft);
+  feeds.AddColumn("R (ohm)", Align::kRight);
+  feeds.AddColumn("X (ohm)", Align::kRight);
+  feeds.AddColumn("|Z| (ohm)", Align::kRight);
+  feeds.AddColumn(fmt::format("SWR (z0 {} ohm)", Number(z0_ohm)), Align::kRight);
+  feeds.AddColumn("|I| (A)", Align::kRight);
+  feeds.AddColumn("I phase (deg)", Align::kRight);
+  feeds.AddColumn("P (W)", Align::kRight);
+  for (const FeedResult& feed : result.feeds) {
+    std::string swr = report::Swr(feed.swr);
+    if (feed.z0_ohm != z0_ohm) swr += fmt::format(" (z0 {} ohm)", Number(feed.z0_ohm));
+    feeds.AddRow({feed.name, report::FeedPlace(model, feed.name), Number(feed.impedance_ohm.real()),
+                  report::Signed(feed.impedance_ohm.imag()), Number(std::abs(feed.impedance_ohm)),
+                  swr, Number(std::abs(feed.current_a)), report::Degrees(feed.current_a),
+                  Number(feed.power_w)});
+  }
+  out += feeds.Render(2);
+
+  if (!result.loads.empty()) {
+    out += "\nLoads\n";
+    TextTable loads;
+    loads.AddColumn("load", Align::kLeft);
+    loads.AddColumn("elements", Align::kLeft);
+    loads.AddColumn("R (ohm)", Align::kRight);
+    loads.AddColumn("X (ohm)", Align::kRight);
+    loads.AddColumn("|I| (A)", Align::kRight);
+    loads.AddColumn("|V| (V)", Align::kRight);
+    loads.AddColumn("P (W)", Align::kRight);
+    for (const LoadResult& load : result.loads) {
+      const LoadSpec* spec = report::FindLoad(model, load.name);
+      loads.AddRow({load.name, report::LoadElements(spec),
+                    load.open ? "open" : Number(load.impedance_ohm.real()),
+                    load.open ? "open" : report::Signed(load.impedance_ohm.imag()),
+                    Number(std::abs(load.current_a)), Number(std::abs(load.voltage_v)),
+                    Number(load.power_w)});
+    }
+    out += loads.Render(2);
+  }
+
+  out += "\nWires\n";
+  TextTable wires;
+  wires.AddColumn("wire", Align::kLeft);
+  wires.AddColumn("segments given", Align::kRight);
+  wires.AddColumn("segments used", Align::kRight);
+  for (const WireMeshInfo& wire : simulation.wire_mesh()) {
+    wires.AddRow({wire.name,
+                  wire.segments_given > 0 ? fmt::format("{}", wire.segments_given) : "auto",
+                  fmt::format("{}", wire.segments_used)});
+  }
+  out += wires.Render(2);
+
+  out +=
+      "\nEach feed is a delta-gap source of peak voltage V (1 V unless its `voltage` says "
+      "otherwise),\nphase 0. Currents and voltages above are peak phasors and scale with V; "
+      "powers scale with V^2.\n";
+
+  const double total_w = report::TotalFeedPower(result);
+  if (total_w > 0.0) {
+    const double scale = std::sqrt(report::kScaledPower_w / total_w);
+    out +=
+        fmt::format("At {:.0f} W into the feeds (V x {}):", report::kScaledPower_w, Number(scale));
+    for (const FeedResult& feed : result.feeds) {
+      out += fmt::format(" feed {} {} A, {} V peak;", feed.name,
+                         Number(std::abs(feed.current_a) * scale),
+                         Number(std::abs(feed.voltage_v) * scale));
+    }
+    for (const LoadResult& load : result.loads) {
+      out +=
+          fmt::format(" load {} {} V peak;", load.name, Number(std::abs(load.voltage_v) * scale));
+    }
+    out.back() = '.';
+    out += "\n";
+  }
+  out +=
+      "Caution: at transmitting power the open ends of wires and the capacitors and coils of "
+      "loads\ncarry high RF voltage, and the field near the antenna can exceed exposure limits. "
+      "Keep people\nclear, keep masts and wires well away from power lines, and follow local "
+      "rules and licensed practice.\n";
+  return out;
+}
+
+std::string FormatSolveJson(const Simulation& simulation, const SolveResult& result) {
+  report::CheckResult(result);
+  nlohmann::json doc;
+  doc["model"] = simulation.model().file;
+  doc["frequency_hz"] = result.frequency_hz;
+  doc["unknowns"] = result.unknowns;
+  doc["segments"] = result.segments;
+  doc["feeds"] = nlohmann::json::array();
+  for (const FeedResult& feed : result.feeds) {
+    doc["feeds"].push_back({{"name", feed.name},
+                            {"z_ohm", report::ComplexJson(feed.impedance_ohm)},
+                            {"current_a", report::ComplexJson(feed.current_a)},
+                            {"voltage_v", report::ComplexJson(feed.voltage_v)},
+                            {"swr", feed.swr},
+                            {"z0_ohm", feed.z0_ohm},
+                            {"power_w", feed.power_w}});
+  }
+  doc["loads"] = nlohmann::json::array();
+  for (const LoadResult& load : result.loads) {
+    doc["loads"].push_back(
+        {{"name", load.name},
+         {"z_ohm", load.open ? nlohmann::json(nullptr) : report::ComplexJson(load.impedance_ohm)},
+         {"open", load.open},
+         {"current_a", report::ComplexJson(load.current_a)},
+         {"voltage_v", report::ComplexJson(load.voltage_v)},
+         {"power_w", load.power_w}});
+  }
+  doc["warnings"] = nlohmann::json::array();
+  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  return doc.dump(2) + "\n";
+}
+
+}  // namespace wirefield
