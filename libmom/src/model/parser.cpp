@@ -1,0 +1,770 @@
+// Model stage: the statement parser. Turns model text (or a file) into a wirefield::Model in
+// SI units, applying --set overrides to `let` statements and checking every value where it
+// is used. Inputs: text, file name, overrides; output: Model with warnings, or an InputError
+// at FILE:LINE:COLUMN. Also parses command-line quantities (--freq, --z0) as expressions.
+#include <fmt/format.h>
+
+#include <cerrno>
+#include <cmath>
+#include <cstdio>
+#include <cstring>
+#include <map>
+#include <memory>
+#include <string_view>
+
+#include "model/expression.hpp"
+#include "model/lexer.hpp"
+#include "model/units.hpp"
+#include "wirefield/model.hpp"
+
+namespace wirefield {
+namespace model {
+namespace {
+
+// Largest model file read. Real models are a few kB; this only keeps a stray multi-gigabyte
+// file from exhausting memory before its first line is even checked.
+constexpr size_t kMaxFileBytes = size_t{64} << 20;
+// Most segments one wire may ask for: 16 * N^2 bytes of complex matrix is then 149 GiB.
+constexpr double kMaxSegmentsPerWire = 100000.0;
+// Bytes per matrix entry (a complex double), for the memory estimate in messages.
+constexpr double kBytesPerMatrixEntry = 16.0;
+// A position within this fraction of the wire length from an end is that end. Far below any
+// segment length (the mesher never makes segments shorter than ~1e-4 of a wire) and well
+// above the rounding of a length computed as sqrt(dx^2 + dy^2 + dz^2) (a few 1e-16).
+constexpr double kEndSnapFraction = 1e-12;
+
+const std::vector<std::string>& Keywords() {
+  static const std::vector<std::string> kKeywords = {"units", "let",    "wire",      "feed",
+                                                     "load",  "ground", "frequency", "z0"};
+  return kKeywords;
+}
+
+struct OverrideEntry {
+  std::string expression;
+  bool used = false;
+};
+
+class Parser {
+ public:
+  Parser(std::string file, const std::vector<Override>& overrides) : file_(std::move(file)) {
+    for (const Override& o : overrides) {
+      const SourceLocation where{"--set " + o.name, 0, 0};
+      if (!IsName(o.name)) {
+        throw InputError(where, fmt::format("'{}' is not a variable name", Shorten(o.name)));
+      }
+      if (overrides_.count(o.name) != 0) {
+        throw InputError(where, "this variable is set twice on the command line; set it once");
+      }
+      overrides_[o.name] = OverrideEntry{o.expression, false};
+    }
+  }
+
+  Model Parse(std::string_view text) {
+    model_.file = file_;
+    if (text.size() >= 3 && text.substr(0, 3) == "\xEF\xBB\xBF") text.remove_prefix(3);  // BOM
+    const std::vector<std::string_view> lines = SplitLines(text);
+    for (size_t i = 0; i < lines.size(); ++i) {
+      source_ = LineSource{file_, static_cast<int>(i) + 1, 0};
+      tokens_ = LexLine(lines[i], source_);
+      pos_ = 0;
+      if (Peek().kind != TokenKind::kEnd) Statement();
+    }
+    for (const auto& [name, entry] : overrides_) {
+      if (entry.used) continue;
+      std::string list;
+      for (const std::string& n : scope_.Names()) list += (list.empty() ? "" : ", ") + n;
+      throw InputError(
+          SourceLocation{"--set " + name, 0, 0},
+          list.empty()
+              ? fmt::format("the model has no variable '{}' (it defines no variables)", name)
+              : fmt::format("the model has no variable '{}' (its variables: {})", name, list));
+    }
+    if (model_.feeds.empty()) {
+      throw InputError(SourceLocation{file_, static_cast<int>(lines.size()) + 1, 1},
+                       "the model has no feed; add 'feed NAME at WIRE@POS'");
+    }
+    for (const Scope::Variable& v : scope_.variables()) {
+      if (!v.used) {
+        model_.warnings.push_back(
+            Warning{v.location, fmt::format("variable '{}' is never used", v.name)});
+      }
+    }
+    return std::move(model_);
+  }
+
+ private:
+  // ---- token access -------------------------------------------------------------------
+  const Token& Peek() const { return tokens_[std::min(pos_, tokens_.size() - 1)]; }
+  const Token& Next() {
+    const Token& t = Peek();
+    if (pos_ + 1 < tokens_.size()) ++pos_;
+    return t;
+  }
+  bool IsPunct(std::string_view p) const {
+    return Peek().kind == TokenKind::kPunct && Peek().text == p;
+  }
+  bool IsWord(std::string_view w) const {
+    return Peek().kind == TokenKind::kName && Peek().text == w;
+  }
+  SourceLocation Loc(const Token& t) const { return At(source_, t.column); }
+  InputError Error(const Token& t, const std::string& message) const {
+    return InputError(Loc(t), message);
+  }
+  // "CONTEXT: missing WHAT" at the end of the line, else "CONTEXT: expected WHAT; got 'x'".
+  InputError Expected(const std::string& context, const std::string& what) const {
+    const Token& t = Peek();
+    if (t.kind == TokenKind::kEnd) return Error(t, fmt::format("{}: missing {}", context, what));
+    return Error(t, fmt::format("{}: expected {}; got {}", context, what, Quote(t)));
+  }
+  void ExpectPunct(std::string_view p, const std::string& context, const std::string& what) {
+    if (!IsPunct(p)) throw Expected(context, what);
+    Next();
+  }
+  void ExpectEnd(const std::string& statement) const {
+    const Token& t = Peek();
+    if (t.kind != TokenKind::kEnd) {
+      throw Error(t, fmt::format("unexpected {} at the end of the {} statement; remove it or "
+                                 "start a new line",
+                                 Quote(t), statement));
+    }
+  }
+  std::string Line(const SourceLocation& l) const { return fmt::format("line {}", l.line); }
+
+  // ---- values at their use sites ------------------------------------------------------
+  struct Measured {
+    Value value;
+    Token start;  // first token of the expression, for messages about its value
+  };
+  Measured Expression() {
+    Token start = Peek();
+    Value v = EvaluateExpression(tokens_, &pos_, scope_, source_);
+    return Measured{v, std::move(start)};
+  }
+  // A value of the given quantity in SI; a plain number is taken in bare_unit_factor.
+  double As(const Measured& m, const Quantity& q, double bare_unit_factor,
+            const std::string& what) const {
+    if (m.value.dimension.IsNone()) return m.value.si * bare_unit_factor;
+    if (m.value.dimension == q.dimension) return m.value.si;
+    throw Error(m.start, fmt::format("{} needs {} ({}); got {}", what, q.noun, q.unit_list,
+                                     Describe(m.value.dimension)));
+  }
+  double Plain(const Measured& m, const std::string& what, const std::string& meaning) const {
+    if (m.value.dimension.IsNone()) return m.value.si;
+    throw Error(m.start, fmt::format("{} needs a plain number ({}); got {}", what, meaning,
+                                     Describe(m.value.dimension)));
+  }
+
+  // ---- names --------------------------------------------------------------------------
+  std::string Name(const std::string& statement, const std::string& what) {
+    const Token& t = Peek();
+    if (t.kind != TokenKind::kName) throw Expected(statement, what);
+    Next();
+    return t.text;
+  }
+  void CheckNew(const std::map<std::string, SourceLocation>& defined, const std::string& kind,
+                const std::string& name, const Token& at) const {
+    const auto it = defined.find(name);
+    if (it != defined.end()) {
+      throw Error(at, fmt::format("{} '{}' is already defined at {}; give each {} its own name",
+                                  kind, name, Line(it->second), kind));
+    }
+  }
+
+  // ---- statements ---------------------------------------------------------------------
+  void Statement() {
+    const Token& keyword = Peek();
+    if (keyword.kind != TokenKind::kName) {
+      throw Error(keyword, fmt::format("expected a statement ({}) at the start of the line; "
+                                       "got {}",
+                                       "units, let, wire, feed, load, ground, frequency, z0",
+                                       Quote(keyword)));
+    }
+    Next();
+    const std::string& k = keyword.text;
+    if (k == "units") return Units();
+    if (k == "let") return Let();
+    if (k == "wire") return Wire(keyword);
+    if (k == "feed") return Feed(keyword);
+    if (k == "load") return Load(keyword);
+    if (k == "ground") return Ground(keyword);
+    if (k == "frequency") return Frequency(keyword);
+    if (k == "z0") return Z0(keyword);
+    std::string hint = DidYouMean(k, Keywords());
+    if (hint.empty()) hint = "; statements are units, let, wire, feed, load, ground, frequency, z0";
+    throw Error(keyword, fmt::format("unknown statement '{}'{}", Shorten(k), hint));
+  }
+
+  void Units() {
+    const Token& t = Peek();
+    if (t.kind != TokenKind::kName)
+      throw Expected("units", "the length unit (m, cm, mm, ft or in)");
+    if (!IsLengthUnitName(t.text)) {
+      if (FindUnit(t.text) != nullptr) {
+        throw Error(t, fmt::format("units sets the length unit of bare numbers; '{}' is not a "
+                                   "length unit: use m, cm, mm, ft or in",
+                                   t.text));
+      }
+      throw Error(
+          t, fmt::format("unknown length unit '{}'{}; use m, cm, mm, ft or in", Shorten(t.text),
+                         DidYouMean(t.text, {"m", "cm", "mm", "ft", "in"})));
+    }
+    Next();
+    length_factor_ = FindUnit(t.text)->factor;
+    ExpectEnd("units");
+  }
+
+  void Let() {
+    const Token& name_token = Peek();
+    const std::string name = Name("let", "a variable name (let NAME = EXPR)");
+    std::string reason;
+    if (IsReservedName(name, &reason)) {
+      throw Error(name_token, fmt::format("let: {}; choose another name", reason));
+    }
+    if (Scope::Variable* existing = scope_.Find(name)) {
+      throw Error(name_token, fmt::format("variable '{}' is already defined at {}; give each "
+                                          "variable its own name",
+                                          name, Line(existing->location)));
+    }
+    const std::string context = fmt::format("let '{}'", name);
+    ExpectPunct("=", context, "'= EXPR'");
+    Value value;
+    const auto over = overrides_.find(name);
+    if (over != overrides_.end()) {
+      over->second.used = true;
+      const LineSource set_source{"--set " + name, 1, 0};
+      const std::vector<Token> set_tokens = LexLine(over->second.expression, set_source);
+      size_t set_pos = 0;
+      if (set_tokens[0].kind == TokenKind::kEnd) {
+        throw InputError(At(set_source, 1), "the value is empty; write --set NAME=VALUE");
+      }
+      value = EvaluateExpression(set_tokens, &set_pos, scope_, set_source);
+      if (set_tokens[set_pos].kind != TokenKind::kEnd) {
+        throw InputError(At(set_source, set_tokens[set_pos].column),
+                         fmt::format("unexpected {} after the value", Quote(set_tokens[set_pos])));
+      }
+      // The model's own expression is replaced, not evaluated; skip to the end of the line.
+      pos_ = tokens_.size() - 1;
+    } else {
+      value = Expression().value;
+      ExpectEnd("let");
+    }
+    if (FindUnit(name) != nullptr) {
+      model_.warnings.push_back(Warning{
+          Loc(name_token),
+          fmt::format("variable '{}' has the name of a unit; after a number '{}' still means "
+                      "the unit (2 {} is not 2*{})",
+                      name, name, name, name)});
+    }
+    scope_.Define(Scope::Variable{name, value, Loc(name_token), false});
+  }
+
+  Point ParsePoint(const std::string& context, const std::string& which) {
+    ExpectPunct("(", context, fmt::format("'(' to open the {} point (X, Y, Z)", which));
+    Point p{};
+    static constexpr const char* kAxis[] = {"X", "Y", "Z"};
+    for (size_t i = 0; i < 3; ++i) {
+      const Measured m = Expression();
+      p[i] = As(m, LengthQuantity(), length_factor_,
+                fmt::format("{}: the {} coordinate", context, kAxis[i]));
+      if (i < 2) {
+        if (IsPunct(")")) {
+          throw Error(Peek(), fmt::format("{}: the {} point needs 3 coordinates (X, Y, Z); got {}",
+                                          context, which, i + 1));
+        }
+        ExpectPunct(",", context, "',' between coordinates");
+      }
+    }
+    if (IsPunct(",")) {
+      throw Error(Peek(), fmt::format("{}: the {} point has more than 3 coordinates; write "
+                                      "(X, Y, Z)",
+                                      context, which));
+    }
+    ExpectPunct(")", context, fmt::format("')' to close the {} point", which));
+    return p;
+  }
+
+  void Wire(const Token& keyword) {
+    const Token& name_token = Peek();
+    WireSpec wire;
+    wire.location = Loc(keyword);
+    wire.name = Name("wire", "a wire name (wire NAME from (X, Y, Z) to (X, Y, Z) radius R)");
+    CheckNew(wire_lines_, "wire", wire.name, name_token);
+    const std::string context = fmt::format("wire '{}'", wire.name);
+    if (!IsWord("from")) throw Expected(context, "'from (X, Y, Z)'");
+    Next();
+    wire.from_m = ParsePoint(context, "from");
+    if (!IsWord("to")) throw Expected(context, "'to (X, Y, Z)'");
+    Next();
+    wire.to_m = ParsePoint(context, "to");
+    const double length_m = std::hypot(wire.to_m[0] - wire.from_m[0], wire.to_m[1] - wire.from_m[1],
+                                       wire.to_m[2] - wire.from_m[2]);
+    if (length_m == 0.0) {
+      throw Error(name_token,
+                  fmt::format("wire '{}' has zero length: both ends are at ({}, {}, {}) m; "
+                              "move one end",
+                              wire.name, FormatNumber(wire.from_m[0]), FormatNumber(wire.from_m[1]),
+                              FormatNumber(wire.from_m[2])));
+    }
+    if (!std::isfinite(length_m)) {
+      throw Error(name_token, fmt::format("{}: the length is not a finite number", context));
+    }
+    std::optional<double> radius_m;
+    bool have_segments = false;
+    while (Peek().kind != TokenKind::kEnd) {
+      const Token& clause = Peek();
+      if (IsWord("radius")) {
+        if (radius_m) throw Error(clause, fmt::format("{}: radius is given twice", context));
+        Next();
+        const Measured m = Expression();
+        const double r = As(m, LengthQuantity(), length_factor_, context + ": radius");
+        if (r <= 0.0) {
+          throw Error(m.start, fmt::format("{}: the radius must be positive; got {} m", context,
+                                           FormatNumber(r)));
+        }
+        if (r >= length_m / 4.0) {
+          throw Error(m.start,
+                      fmt::format("{}: the radius {} m is not small against the wire length {} m; "
+                                  "the thin-wire model needs the radius well below the length "
+                                  "(under a quarter of it, best under a hundredth)",
+                                  context, FormatNumber(r), FormatNumber(length_m)));
+        }
+        radius_m = r;
+      } else if (IsWord("segments")) {
+        if (have_segments) throw Error(clause, fmt::format("{}: segments is given twice", context));
+        Next();
+        const Measured m = Expression();
+        const double n = Plain(m, context + ": segments", "a count of segments");
+        if (n <= 0.0 || n != std::floor(n)) {
+          throw Error(m.start, fmt::format("{}: segments must be a positive whole number; got {}",
+                                           context, FormatNumber(n)));
+        }
+        if (n > kMaxSegmentsPerWire) {
+          const double gib = kBytesPerMatrixEntry * n * n / double(1ull << 30);
+          throw Error(m.start,
+                      fmt::format("segments {} on wire '{}' would need {:.0f} GiB for the matrix "
+                                  "(16 bytes per entry, N^2 entries); use at most {}, or leave "
+                                  "segments out and let the mesher choose",
+                                  FormatNumber(n), wire.name, gib, kMaxSegmentsPerWire));
+        }
+        wire.segments = static_cast<int>(n);
+        have_segments = true;
+      } else {
+        throw Error(clause,
+                    fmt::format("{}: unexpected {}; after the points come 'radius R' and an "
+                                "optional 'segments N'",
+                                context, Quote(clause)));
+      }
+    }
+    if (!radius_m) throw Expected(context, "'radius R'");
+    wire.radius_m = *radius_m;
+    wire_lines_[wire.name] = wire.location;
+    wire_index_[wire.name] = model_.wires.size();
+    model_.wires.push_back(std::move(wire));
+  }
+
+  WirePointSpec WirePoint(const std::string& context) {
+    const Token& wire_token = Peek();
+    if (wire_token.kind != TokenKind::kName) {
+      throw Expected(context, "a point on a wire (WIRE@POS: dip@50%, dip@start, dip@2.5m)");
+    }
+    Next();
+    const auto it = wire_index_.find(wire_token.text);
+    if (it == wire_index_.end()) {
+      std::vector<std::string> names;
+      for (const WireSpec& w : model_.wires) names.push_back(w.name);
+      std::string hint = DidYouMean(wire_token.text, names);
+      throw Error(wire_token,
+                  fmt::format("{}: unknown wire '{}'{}{}", context, Shorten(wire_token.text), hint,
+                              names.empty() ? "; no wire is defined above this line"
+                                            : "; a wire must be defined on an earlier line"));
+    }
+    const WireSpec& wire = model_.wires[it->second];
+    WirePointSpec spec;
+    spec.wire = wire.name;
+    spec.location = Loc(wire_token);
+    if (!IsPunct("@")) throw Expected(context, "'@' and a position after the wire name (dip@50%)");
+    Next();
+    if (IsWord("start") || IsWord("end")) {
+      spec.kind = Next().text == "start" ? PointKind::kStart : PointKind::kEnd;
+      return spec;
+    }
+    const double length_m = std::hypot(wire.to_m[0] - wire.from_m[0], wire.to_m[1] - wire.from_m[1],
+                                       wire.to_m[2] - wire.from_m[2]);
+    const Measured m = Expression();
+    if (IsPunct("%")) {
+      Next();
+      const double percent = Plain(m, context + ": a percent position", "percent of the length");
+      if (percent < 0.0 || percent > 100.0) {
+        throw Error(m.start, fmt::format("{}: position {}% is outside 0% to 100% of wire '{}'",
+                                         context, FormatNumber(percent), wire.name));
+      }
+      if (percent == 0.0) {
+        spec.kind = PointKind::kStart;
+      } else if (percent == 100.0) {
+        spec.kind = PointKind::kEnd;
+      } else {
+        spec.kind = PointKind::kPercent;
+        spec.value = percent;
+      }
+      return spec;
+    }
+    const double d = As(m, LengthQuantity(), length_factor_, context + ": the position");
+    const double snap_m = kEndSnapFraction * length_m;
+    if (d < -snap_m) {
+      throw Error(m.start,
+                  fmt::format("{}: position {} m is before the start of wire '{}'; "
+                              "positions run from 0 to its length {} m",
+                              context, FormatNumber(d), wire.name, FormatNumber(length_m)));
+    }
+    if (d > length_m + snap_m) {
+      throw Error(m.start, fmt::format("{}: position {} m is beyond the end of wire '{}' (its "
+                                       "length is {} m); use a position from 0 to {} m, or a "
+                                       "percent",
+                                       context, FormatNumber(d), wire.name, FormatNumber(length_m),
+                                       FormatNumber(length_m)));
+    }
+    if (d <= snap_m) {
+      spec.kind = PointKind::kStart;
+    } else if (d >= length_m - snap_m) {
+      spec.kind = PointKind::kEnd;
+    } else {
+      spec.kind = PointKind::kDistance;
+      spec.value = d;
+    }
+    return spec;
+  }
+
+  void Feed(const Token& keyword) {
+    const Token& name_token = Peek();
+    FeedSpec feed;
+    feed.location = Loc(keyword);
+    feed.name = Name("feed", "a feed name (feed NAME at WIRE@POS)");
+    CheckNew(feed_lines_, "feed", feed.name, name_token);
+    const std::string context = fmt::format("feed '{}'", feed.name);
+    if (!IsWord("at")) throw Expected(context, "'at WIRE@POS'");
+    Next();
+    feed.at = WirePoint(context);
+    if (IsWord("voltage")) {
+      Next();
+      const Measured m = Expression();
+      feed.voltage_v = As(m, VoltageQuantity(), 1.0, context + ": voltage");
+      if (feed.voltage_v == 0.0) {
+        throw Error(m.start, fmt::format("{}: the voltage must not be zero (a feed of 0 V drives "
+                                         "nothing); leave it out for 1 V",
+                                         context));
+      }
+    }
+    if (Peek().kind != TokenKind::kEnd) {
+      throw Error(Peek(), fmt::format("{}: unexpected {}; after the point comes only an optional "
+                                      "'voltage V'",
+                                      context, Quote(Peek())));
+    }
+    feed_lines_[feed.name] = feed.location;
+    model_.feeds.push_back(std::move(feed));
+  }
+
+  void Load(const Token& keyword) {
+    const Token& name_token = Peek();
+    LoadSpec load;
+    load.location = Loc(keyword);
+    load.name = Name("load", "a load name (load NAME at WIRE@POS series|parallel R=.. L=.. C=..)");
+    CheckNew(load_lines_, "load", load.name, name_token);
+    const std::string context = fmt::format("load '{}'", load.name);
+    if (!IsWord("at")) throw Expected(context, "'at WIRE@POS'");
+    Next();
+    load.at = WirePoint(context);
+    if (IsWord("series")) {
+      load.topology = LoadTopology::kSeries;
+    } else if (IsWord("parallel")) {
+      load.topology = LoadTopology::kParallel;
+    } else {
+      throw Expected(context, "'series' or 'parallel'");
+    }
+    Next();
+    while (Peek().kind != TokenKind::kEnd) {
+      const Token& element = Peek();
+      if (element.kind != TokenKind::kName ||
+          (element.text != "R" && element.text != "L" && element.text != "C")) {
+        throw Error(element, fmt::format("{}: unknown element {}; use R=, L= or C=", context,
+                                         Quote(element)));
+      }
+      Next();
+      ExpectPunct("=", context, fmt::format("'=' after {}", element.text));
+      const Measured m = Expression();
+      const std::string what = fmt::format("{}: {}", context, element.text);
+      auto twice = [&] {
+        return Error(element, fmt::format("{}: {} is given twice", context, element.text));
+      };
+      if (element.text == "R") {
+        if (load.resistance_ohm) throw twice();
+        const double r = As(m, ResistanceQuantity(), 1.0, what);
+        if (r < 0.0) {
+          throw Error(m.start, fmt::format("{}: R must not be negative; got {} ohm", context,
+                                           FormatNumber(r)));
+        }
+        load.resistance_ohm = r;
+      } else if (element.text == "L") {
+        if (load.inductance_h) throw twice();
+        const double l = As(m, InductanceQuantity(), 1.0, what);
+        if (l < 0.0) {
+          throw Error(m.start, fmt::format("{}: L must not be negative; got {} H", context,
+                                           FormatNumber(l)));
+        }
+        load.inductance_h = l;
+      } else {
+        if (load.capacitance_f) throw twice();
+        const double c = As(m, CapacitanceQuantity(), 1.0, what);
+        if (c <= 0.0) {
+          throw Error(m.start, fmt::format("{}: C must be positive; got {} F (leave C out for no "
+                                           "capacitor)",
+                                           context, FormatNumber(c)));
+        }
+        load.capacitance_f = c;
+      }
+    }
+    if (!load.resistance_ohm && !load.inductance_h && !load.capacitance_f) {
+      throw Error(Peek(), fmt::format("{} has none of R, L, C; give at least one (R=50, "
+                                      "L=10uH, C=100pF)",
+                                      context));
+    }
+    LoadWarnings(load);
+    load_lines_[load.name] = load.location;
+    model_.loads.push_back(std::move(load));
+  }
+
+  void LoadWarnings(const LoadSpec& load) {
+    const bool zero_r = load.resistance_ohm && *load.resistance_ohm == 0.0;
+    const bool zero_l = load.inductance_h && *load.inductance_h == 0.0;
+    if (load.topology == LoadTopology::kParallel && (zero_r || zero_l)) {
+      model_.warnings.push_back(Warning{
+          load.location, fmt::format("load '{}': a parallel {}=0 is a short circuit; the other "
+                                     "elements have no effect",
+                                     load.name, zero_r ? "R" : "L")});
+    }
+    if (load.topology == LoadTopology::kSeries && !load.capacitance_f &&
+        (!load.resistance_ohm || zero_r) && (!load.inductance_h || zero_l)) {
+      model_.warnings.push_back(
+          Warning{load.location, fmt::format("load '{}' is a short circuit (0 ohm in series); it "
+                                             "has no effect",
+                                             load.name)});
+    }
+  }
+
+  void Ground(const Token& keyword) {
+    if (ground_line_) {
+      throw Error(keyword,
+                  fmt::format("ground is already given at {}; give it once", Line(*ground_line_)));
+    }
+    const Token& kind = Peek();
+    if (kind.kind != TokenKind::kName) throw Expected("ground", "the kind (free, perfect or real)");
+    GroundSpec ground;
+    ground.location = Loc(keyword);
+    if (kind.text == "free") {
+      ground.kind = GroundKind::kFree;
+    } else if (kind.text == "perfect") {
+      ground.kind = GroundKind::kPerfect;
+    } else if (kind.text == "real") {
+      ground.kind = GroundKind::kReal;
+    } else {
+      throw Error(kind, fmt::format("ground: unknown kind '{}'{}; use free, perfect or real",
+                                    Shorten(kind.text),
+                                    DidYouMean(kind.text, {"free", "perfect", "real"})));
+    }
+    Next();
+    if (ground.kind == GroundKind::kReal) {
+      std::optional<double> permittivity, conductivity;
+      while (Peek().kind != TokenKind::kEnd) {
+        const Token& setting = Peek();
+        const bool is_eps = IsWord("permittivity");
+        if (!is_eps && !IsWord("conductivity")) {
+          throw Error(setting,
+                      fmt::format("ground real: unknown setting {}{}; use permittivity= and "
+                                  "conductivity=",
+                                  Quote(setting),
+                                  setting.kind == TokenKind::kName
+                                      ? DidYouMean(setting.text, {"permittivity", "conductivity"})
+                                      : ""));
+        }
+        Next();
+        ExpectPunct("=", "ground real", fmt::format("'=' after {}", setting.text));
+        const Measured m = Expression();
+        if (is_eps) {
+          if (permittivity) throw Error(setting, "ground real: permittivity is given twice");
+          const double eps =
+              Plain(m, "ground real: permittivity", "relative to vacuum; 13 for average ground");
+          if (eps < 1.0) {
+            throw Error(m.start, fmt::format("ground real: permittivity must be at least 1 "
+                                             "(relative to vacuum); got {}",
+                                             FormatNumber(eps)));
+          }
+          permittivity = eps;
+        } else {
+          if (conductivity) throw Error(setting, "ground real: conductivity is given twice");
+          const double sigma = Plain(m, "ground real: conductivity", "in S/m");
+          if (sigma < 0.0) {
+            throw Error(m.start, fmt::format("ground real: conductivity must not be negative; "
+                                             "got {} S/m",
+                                             FormatNumber(sigma)));
+          }
+          conductivity = sigma;
+        }
+      }
+      if (!permittivity) throw Expected("ground real", "'permittivity=EPS_R'");
+      if (!conductivity) throw Expected("ground real", "'conductivity=SIGMA' (S/m)");
+      ground.permittivity = *permittivity;
+      ground.conductivity_s_per_m = *conductivity;
+      if (*permittivity == 1.0 && *conductivity == 0.0) {
+        model_.warnings.push_back(Warning{ground.location,
+                                          "ground real with permittivity 1 and conductivity 0 "
+                                          "is empty space below z = 0; did you mean "
+                                          "'ground free'?"});
+      }
+    } else {
+      ExpectEnd("ground " + kind.text);
+    }
+    ground_line_ = ground.location;
+    model_.ground = ground;
+  }
+
+  void Frequency(const Token& keyword) {
+    if (frequency_line_) {
+      throw Error(keyword, fmt::format("frequency is already given at {}; give it once (the "
+                                       "command line may override it)",
+                                       Line(*frequency_line_)));
+    }
+    const Measured m = Expression();
+    const double f = As(m, FrequencyQuantity(), 1.0, "frequency");
+    if (f <= 0.0) {
+      throw Error(m.start, fmt::format("frequency must be positive; got {} Hz", FormatNumber(f)));
+    }
+    ExpectEnd("frequency");
+    frequency_line_ = Loc(keyword);
+    model_.frequency_hz = f;
+    model_.frequency_location = Loc(keyword);
+  }
+
+  void Z0(const Token& keyword) {
+    if (z0_line_) {
+      throw Error(keyword, fmt::format("z0 is already given at {}; give it once", Line(*z0_line_)));
+    }
+    const Measured m = Expression();
+    const double z0 = As(m, ResistanceQuantity(), 1.0, "z0");
+    if (z0 <= 0.0) {
+      throw Error(m.start, fmt::format("z0 must be positive; got {} ohm", FormatNumber(z0)));
+    }
+    ExpectEnd("z0");
+    z0_line_ = Loc(keyword);
+    model_.z0_ohm = z0;
+  }
+
+  std::string file_;
+  Model model_;
+  Scope scope_;
+  std::map<std::string, OverrideEntry> overrides_;
+  std::map<std::string, SourceLocation> wire_lines_, feed_lines_, load_lines_;
+  std::map<std::string, size_t> wire_index_;
+  std::optional<SourceLocation> ground_line_, frequency_line_, z0_line_;
+  double length_factor_ = 1.0;  // metres per bare length number (the `units` statement)
+  LineSource source_;
+  std::vector<Token> tokens_;
+  size_t pos_ = 0;
+};
+
+// A command-line quantity: one expression of the quantity q (bare numbers in its SI unit).
+double ParseArgument(const std::string& text, const std::string& option_name, const Quantity& q,
+                     const std::string& example) {
+  const LineSource source{option_name, 1, 0};
+  const std::vector<Token> tokens = LexLine(text, source);
+  if (tokens[0].kind == TokenKind::kEnd) {
+    throw InputError(SourceLocation{option_name, 0, 0},
+                     fmt::format("{} needs a value such as {}", option_name, example));
+  }
+  Scope no_variables;
+  size_t pos = 0;
+  const Token start = tokens[0];
+  const Value v = EvaluateExpression(tokens, &pos, no_variables, source);
+  if (tokens[pos].kind != TokenKind::kEnd) {
+    throw InputError(At(source, tokens[pos].column),
+                     fmt::format("unexpected {} after the value", Quote(tokens[pos])));
+  }
+  double si = v.si;
+  if (!v.dimension.IsNone() && v.dimension != q.dimension) {
+    throw InputError(At(source, start.column),
+                     fmt::format("{} needs {} ({}); got {}", option_name, q.noun, q.unit_list,
+                                 Describe(v.dimension)));
+  }
+  if (si <= 0.0) {
+    throw InputError(
+        At(source, start.column),
+        fmt::format("{} must be positive; got {} {}", option_name, FormatNumber(si), q.si_unit));
+  }
+  return si;
+}
+
+}  // namespace
+}  // namespace model
+
+Model ParseModelText(const std::string& text, const std::string& file_name,
+                     const std::vector<Override>& overrides) {
+  model::Parser parser(file_name, overrides);
+  return parser.Parse(text);
+}
+
+Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides) {
+  const SourceLocation where{path, 0, 0};
+  errno = 0;
+  std::unique_ptr<std::FILE, int (*)(std::FILE*)> file(std::fopen(path.c_str(), "rb"),
+                                                       &std::fclose);
+  if (!file) {
+    throw InputError(where, fmt::format("cannot read the model file: {}", std::strerror(errno)));
+  }
+  std::string text;
+  char buffer[1 << 16];
+  while (true) {
+    errno = 0;
+    const size_t n = std::fread(buffer, 1, sizeof buffer, file.get());
+    text.append(buffer, n);
+    if (text.size() > model::kMaxFileBytes) {
+      throw InputError(where, fmt::format("the file is larger than {} MiB; a model file is a "
+                                          "few kB of text. Is this the right file?",
+                                          model::kMaxFileBytes >> 20));
+    }
+    if (n < sizeof buffer) {
+      if (std::ferror(file.get())) {
+        throw InputError(where, fmt::format("cannot read the model file: {}",
+                                            std::strerror(errno != 0 ? errno : EIO)));
+      }
+      break;
+    }
+  }
+  return ParseModelText(text, path, overrides);
+}
+
+Override ParseOverride(const std::string& text) {
+  const SourceLocation where{"--set", 0, 0};
+  const size_t eq = text.find('=');
+  if (eq == std::string::npos) {
+    throw InputError(where, fmt::format("expected NAME=VALUE (such as --set height=10m); got "
+                                        "'{}'",
+                                        model::Shorten(text)));
+  }
+  std::string name = text.substr(0, eq);
+  while (!name.empty() && (name.back() == ' ' || name.back() == '\t')) name.pop_back();
+  while (!name.empty() && (name.front() == ' ' || name.front() == '\t')) name.erase(0, 1);
+  if (!model::IsName(name)) {
+    throw InputError(where, fmt::format("'{}' is not a variable name (letters, digits and _, not "
+                                        "starting with a digit); write --set NAME=VALUE",
+                                        model::Shorten(name)));
+  }
+  return Override{name, text.substr(eq + 1)};
+}
+
+double ParseFrequencyArgument(const std::string& text, const std::string& option_name) {
+  return model::ParseArgument(text, option_name, model::FrequencyQuantity(), "14.2MHz");
+}
+
+double ParseResistanceArgument(const std::string& text, const std::string& option_name) {
+  return model::ParseArgument(text, option_name, model::ResistanceQuantity(), "50 or 50ohm");
+}
+
+}  // namespace wirefield
