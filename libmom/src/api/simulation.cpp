@@ -1,0 +1,168 @@
+// API: the Simulation class, the one place that sees every stage. Model -> geometry::Mesh
+// (once) -> per frequency: fill::Assemble -> solve::SolveDense -> feed, load and segment
+// results.
+#include "wirefield/simulation.hpp"
+
+#include <fmt/format.h>
+
+#include <chrono>
+#include <cmath>
+#include <fstream>
+#include <sstream>
+
+#include "core/constants.hpp"
+#include "fill/assemble.hpp"
+#include "geometry/mesh.hpp"
+#include "post/network.hpp"
+#include "solve/dense.hpp"
+
+namespace wirefield {
+namespace {
+
+constexpr double kDefaultZ0Ohm = 50.0;
+
+// Half the memory the system reports available, or 4 GiB when it does not say.
+double DefaultMatrixBudgetBytes() {
+  std::ifstream meminfo("/proc/meminfo");
+  std::string key;
+  double kib = 0.0;
+  std::string unit;
+  while (meminfo >> key >> kib >> unit) {
+    if (key == "MemAvailable:") return 0.5 * kib * 1024.0;
+  }
+  return 4.0 * 1024.0 * 1024.0 * 1024.0;
+}
+
+double Seconds(std::chrono::steady_clock::time_point since) {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - since).count();
+}
+
+Complex PortCurrent(const geometry::Port& port, const Eigen::VectorXcd& currents) {
+  Complex i = 0.0;
+  for (const auto& [b, sign] : port.bases) i += sign * currents(b);
+  return i;
+}
+
+}  // namespace
+
+struct Simulation::Impl {
+  Model model;
+  SimulationOptions options;
+  geometry::Mesh mesh;
+  std::vector<Warning> warnings;
+};
+
+Simulation::Simulation(Model model, SimulationOptions options) : impl_(std::make_unique<Impl>()) {
+  impl_->model = std::move(model);
+  impl_->options = options;
+  const Model& m = impl_->model;
+  geometry::MeshOptions mo;
+  if (options.max_frequency_hz) {
+    mo.max_frequency_hz = *options.max_frequency_hz;
+  } else {
+    mo.max_frequency_hz = DefaultFrequency();
+  }
+  if (!(mo.max_frequency_hz > 0.0) || !std::isfinite(mo.max_frequency_hz)) {
+    throw InputError({m.file, 0, 0}, "the frequency must be a positive number of hertz");
+  }
+  if (!(options.segments_per_wavelength > 0.0) || options.min_segments_per_wire < 1) {
+    throw InputError({"options", 0, 0},
+                     "segments_per_wavelength must be positive and min_segments_per_wire >= 1");
+  }
+  mo.segments_per_wavelength = options.segments_per_wavelength;
+  mo.min_segments_per_wire = options.min_segments_per_wire;
+  mo.max_matrix_bytes =
+      options.max_matrix_bytes ? *options.max_matrix_bytes : DefaultMatrixBudgetBytes();
+  impl_->mesh = geometry::BuildMesh(m, mo);
+  impl_->warnings = m.warnings;
+  impl_->warnings.insert(impl_->warnings.end(), impl_->mesh.warnings.begin(),
+                         impl_->mesh.warnings.end());
+}
+
+Simulation::~Simulation() = default;
+Simulation::Simulation(Simulation&&) noexcept = default;
+Simulation& Simulation::operator=(Simulation&&) noexcept = default;
+
+double Simulation::DefaultFrequency() const {
+  const Model& m = impl_->model;
+  if (!m.frequency_hz) {
+    throw InputError({m.file, 0, 0},
+                     "the model gives no frequency: add a line such as 'frequency 14.2MHz' or "
+                     "pass --freq");
+  }
+  return *m.frequency_hz;
+}
+
+SolveResult Simulation::Solve(double frequency_hz) const {
+  const Model& model = impl_->model;
+  const geometry::Mesh& mesh = impl_->mesh;
+  if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz)) {
+    throw InputError({model.file, 0, 0},
+                     fmt::format("the frequency must be positive, not {} Hz", frequency_hz));
+  }
+  SolveResult r;
+  r.frequency_hz = frequency_hz;
+  r.unknowns = static_cast<int>(mesh.bases.size());
+  r.segments = static_cast<int>(mesh.segments.size());
+
+  auto t0 = std::chrono::steady_clock::now();
+  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz);
+  fill::AddLoads(mesh, model, frequency_hz, &z);
+  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
+  r.fill_time_s = Seconds(t0);
+  t0 = std::chrono::steady_clock::now();
+  const solve::DenseSolution sol = solve::SolveDense(z, v);
+  r.solve_time_s = Seconds(t0);
+
+  const double z0 = model.z0_ohm.value_or(kDefaultZ0Ohm);
+  for (size_t f = 0; f < model.feeds.size(); ++f) {
+    FeedResult fr;
+    fr.name = model.feeds[f].name;
+    fr.voltage_v = model.feeds[f].voltage_v;
+    fr.current_a = PortCurrent(mesh.feed_ports[f], sol.currents);
+    if (std::abs(fr.current_a) == 0.0) {
+      throw ComputationError(fmt::format("feed '{}' carries no current", fr.name));
+    }
+    fr.impedance_ohm = fr.voltage_v / fr.current_a;
+    fr.z0_ohm = z0;
+    fr.swr = post::Swr(fr.impedance_ohm, z0);
+    fr.power_w = 0.5 * std::real(fr.voltage_v * std::conj(fr.current_a));
+    r.feeds.push_back(fr);
+  }
+  for (size_t l = 0; l < model.loads.size(); ++l) {
+    LoadResult lr;
+    lr.name = model.loads[l].name;
+    lr.impedance_ohm = fill::LoadImpedance(model.loads[l], frequency_hz, &lr.open);
+    lr.current_a = PortCurrent(mesh.load_ports[l], sol.currents);
+    lr.voltage_v = lr.current_a * lr.impedance_ohm;
+    lr.power_w = 0.5 * std::norm(lr.current_a) * std::real(lr.impedance_ohm);
+    r.loads.push_back(lr);
+  }
+  // Segment-centre currents: each piece contributes alpha + beta / 2 times its basis current.
+  std::vector<Complex> centre(mesh.segments.size(), 0.0);
+  for (size_t b = 0; b < mesh.bases.size(); ++b) {
+    const geometry::Basis& basis = mesh.bases[b];
+    for (int p = 0; p < basis.piece_count; ++p) {
+      const geometry::Piece& piece = basis.pieces[p];
+      centre[piece.segment] += (piece.alpha() + 0.5 * piece.beta()) * sol.currents(b);
+    }
+  }
+  for (size_t s = 0; s < mesh.segments.size(); ++s) {
+    const geometry::Segment& seg = mesh.segments[s];
+    r.currents.push_back({seg.wire,
+                          {seg.start.x(), seg.start.y(), seg.start.z()},
+                          {seg.end.x(), seg.end.y(), seg.end.z()},
+                          centre[s]});
+  }
+  return r;
+}
+
+const Model& Simulation::model() const { return impl_->model; }
+int Simulation::unknowns() const { return static_cast<int>(impl_->mesh.bases.size()); }
+int Simulation::segments() const { return static_cast<int>(impl_->mesh.segments.size()); }
+const std::vector<WireMeshInfo>& Simulation::wire_mesh() const { return impl_->mesh.wires; }
+const std::vector<Warning>& Simulation::warnings() const { return impl_->warnings; }
+
+std::string Version() { return WIREFIELD_VERSION; }
+
+}  // namespace wirefield

@@ -1,0 +1,146 @@
+// Fill stage: assembly of the Galerkin matrix from segment-pair kernel moments.
+// Z_mn = j omega mu/(4 pi) int int f_m . f_n G + 1/(j omega eps 4 pi) int int (div f_m)(div f_n) G
+// with triangle bases f (docs/numerics.md). Each segment pair's moments are computed once and
+// scattered to the bases whose pieces lie on the two segments; Z is symmetric, so only pairs
+// i <= j are integrated.
+#include "fill/assemble.hpp"
+
+#include <cmath>
+
+#include "core/constants.hpp"
+#include "fill/kernel.hpp"
+
+namespace wirefield::fill {
+namespace {
+
+struct PieceRef {
+  int basis;
+  double alpha, beta;
+};
+
+// Below this admittance relative to its largest branch, a parallel load counts as open.
+constexpr double kOpenRelativeAdmittance = 1e-12;
+constexpr double kOpenStandInOhm = 1e12;
+
+}  // namespace
+
+Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
+  const double w = 2.0 * core::kPi * frequency_hz;
+  *open = false;
+  if (load.topology == LoadTopology::kSeries) {
+    Complex z = 0.0;
+    if (load.resistance_ohm) z += *load.resistance_ohm;
+    if (load.inductance_h) z += Complex(0.0, w * *load.inductance_h);
+    if (load.capacitance_f) z += Complex(0.0, -1.0 / (w * *load.capacitance_f));
+    return z;
+  }
+  // Parallel: an element of zero impedance shorts the load.
+  if ((load.resistance_ohm && *load.resistance_ohm == 0.0) ||
+      (load.inductance_h && *load.inductance_h == 0.0)) {
+    return 0.0;
+  }
+  Complex y = 0.0;
+  double scale = 0.0;
+  if (load.resistance_ohm) {
+    y += 1.0 / *load.resistance_ohm;
+    scale = std::max(scale, 1.0 / *load.resistance_ohm);
+  }
+  if (load.inductance_h) {
+    y += Complex(0.0, -1.0 / (w * *load.inductance_h));
+    scale = std::max(scale, 1.0 / (w * *load.inductance_h));
+  }
+  if (load.capacitance_f) {
+    y += Complex(0.0, w * *load.capacitance_f);
+    scale = std::max(scale, w * *load.capacitance_f);
+  }
+  if (std::abs(y) <= kOpenRelativeAdmittance * scale) {
+    *open = true;
+    return kOpenStandInOhm;
+  }
+  return 1.0 / y;
+}
+
+Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz) {
+  const int n = static_cast<int>(mesh.bases.size());
+  const int ns = static_cast<int>(mesh.segments.size());
+  const double omega = 2.0 * core::kPi * frequency_hz;
+  const double k = omega / core::kSpeedOfLight_m_per_s;
+  const Complex c_vector(0.0, omega * core::kMu0_h_per_m / (4.0 * core::kPi));
+  const Complex c_scalar(0.0, -1.0 / (4.0 * core::kPi * omega * core::kEps0_f_per_m));
+
+  std::vector<std::vector<PieceRef>> on_segment(ns);
+  for (int b = 0; b < n; ++b) {
+    const geometry::Basis& basis = mesh.bases[b];
+    for (int p = 0; p < basis.piece_count; ++p) {
+      const geometry::Piece& piece = basis.pieces[p];
+      on_segment[piece.segment].push_back({b, piece.alpha(), piece.beta()});
+    }
+  }
+  std::vector<geometry::Vec3> unit(ns);
+  std::vector<double> length(ns);
+  for (int s = 0; s < ns; ++s) {
+    length[s] = mesh.segments[s].length_m();
+    unit[s] = (mesh.segments[s].end - mesh.segments[s].start) / length[s];
+  }
+  const geometry::Vec3 mirror(1.0, 1.0, -1.0);
+
+  Eigen::MatrixXcd z = Eigen::MatrixXcd::Zero(n, n);
+  // Scatters the moments of (observation i, source j) into Z; `sign` -1 for an image source.
+  auto scatter = [&](int i, int j, const PairMoments& m, double cos_ij, double sign) {
+    const Complex a_part = sign * c_vector * (length[i] * length[j] * cos_ij);
+    const Complex s_part = sign * c_scalar;
+    for (const PieceRef& pm : on_segment[i]) {
+      for (const PieceRef& pn : on_segment[j]) {
+        const Complex vec = pm.alpha * pn.alpha * m.m00 + pm.alpha * pn.beta * m.m01 +
+                            pm.beta * pn.alpha * m.m10 + pm.beta * pn.beta * m.m11;
+        z(pm.basis, pn.basis) += a_part * vec + s_part * (pm.beta * pn.beta) * m.m00;
+      }
+    }
+  };
+  auto transpose = [](const PairMoments& m) { return PairMoments{m.m00, m.m01, m.m10, m.m11}; };
+
+  for (int i = 0; i < ns; ++i) {
+    if (on_segment[i].empty()) continue;
+    const geometry::Segment& si = mesh.segments[i];
+    for (int j = i; j < ns; ++j) {
+      if (on_segment[j].empty()) continue;
+      const geometry::Segment& sj = mesh.segments[j];
+      const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
+      const double cos_ij = unit[i].dot(unit[j]);
+      const PairMoments m = SegmentPairMoments(si.start, si.end, sj.start, sj.end, radius2, k);
+      scatter(i, j, m, cos_ij, 1.0);
+      if (j != i) scatter(j, i, transpose(m), cos_ij, 1.0);
+      if (mesh.ground_images) {
+        const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
+        const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
+        const double cos_img = unit[i].dot(unit[j].cwiseProduct(mirror));
+        const PairMoments mi = SegmentPairMoments(si.start, si.end, img0, img1, radius2, k);
+        scatter(i, j, mi, cos_img, -1.0);
+        if (j != i) scatter(j, i, transpose(mi), cos_img, -1.0);
+      }
+    }
+  }
+  return z;
+}
+
+void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+              Eigen::MatrixXcd* z) {
+  for (size_t l = 0; l < model.loads.size(); ++l) {
+    bool open = false;
+    const Complex zl = LoadImpedance(model.loads[l], frequency_hz, &open);
+    const geometry::Port& port = mesh.load_ports[l];
+    for (const auto& [bm, sm] : port.bases) {
+      for (const auto& [bn, sn] : port.bases) (*z)(bm, bn) += sm * sn * zl;
+    }
+  }
+}
+
+Eigen::VectorXcd AssembleExcitation(const geometry::Mesh& mesh, const Model& model) {
+  Eigen::VectorXcd v = Eigen::VectorXcd::Zero(static_cast<Eigen::Index>(mesh.bases.size()));
+  for (size_t f = 0; f < model.feeds.size(); ++f) {
+    for (const auto& [b, sign] : mesh.feed_ports[f].bases) v(b) += sign * model.feeds[f].voltage_v;
+  }
+  return v;
+}
+
+}  // namespace wirefield::fill

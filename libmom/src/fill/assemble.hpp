@@ -1,0 +1,32 @@
+// Fill stage: Mesh -> the Galerkin impedance matrix Z and the excitation vector V of the
+// mixed-potential electric-field integral equation, Z I = V, for one frequency. Lumped loads
+// are added at their ports; a perfect ground adds the image of every source segment.
+#pragma once
+
+#include <Eigen/Dense>
+#include <complex>
+#include <vector>
+
+#include "geometry/mesh.hpp"
+#include "wirefield/model.hpp"
+
+namespace wirefield::fill {
+
+using Complex = std::complex<double>;
+
+// Impedance of a lumped load at a frequency. *open is set when the element is an ideal open
+// circuit there (parallel L and C at exact resonance, nothing else in parallel); the returned
+// impedance is then a finite stand-in of 1e12 ohm.
+Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open);
+
+// The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric.
+Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz);
+
+// Adds the loads of `model` to Z at their ports.
+void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+              Eigen::MatrixXcd* z);
+
+// The delta-gap excitation of every feed.
+Eigen::VectorXcd AssembleExcitation(const geometry::Mesh& mesh, const Model& model);
+
+}  // namespace wirefield::fill

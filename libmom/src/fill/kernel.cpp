@@ -1,0 +1,197 @@
+// Fill stage: segment-pair integrals of the reduced thin-wire kernel (see kernel.hpp).
+// Far pairs: Gauss-Legendre product rules. Near pairs: for each outer point the static part
+// 1/R is integrated over the source segment in closed form, the smooth rest (exp(-jkR)-1)/R by
+// Gauss-Legendre; the outer rule is graded toward segment ends that touch the source segment,
+// where the closed-form inner integral varies on the scale of the radius.
+#include "fill/kernel.hpp"
+
+#include <algorithm>
+#include <array>
+#include <boost/math/quadrature/gauss.hpp>
+#include <cmath>
+#include <vector>
+
+#include "geometry/mesh.hpp"
+
+namespace wirefield::fill {
+namespace {
+
+// Gauss-Legendre nodes and weights mapped to [0, 1].
+template <int N>
+struct UnitRule {
+  std::array<double, N> x{}, w{};
+  UnitRule() {
+    using G = boost::math::quadrature::gauss<double, N>;
+    const auto& abs = G::abscissa();
+    const auto& wts = G::weights();
+    // Boost stores the non-negative half of the symmetric rule.
+    int k = 0;
+    const int half = static_cast<int>(abs.size());
+    for (int i = half - 1; i >= 0; --i) {
+      if (abs[i] == 0.0) continue;
+      x[k] = 0.5 * (1.0 - abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+    for (int i = 0; i < half; ++i) {
+      x[k] = 0.5 * (1.0 + abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+  }
+};
+
+template <int N>
+const UnitRule<N>& Rule() {
+  static const UnitRule<N> rule;
+  return rule;
+}
+
+// A pair is near when the segments come closer than this many times the longer one.
+constexpr double kNearFactor = 1.0;
+// Far pairs closer than this many times the longer segment get the finer far rule.
+constexpr double kMidFactor = 4.0;
+
+template <int N>
+PairMoments ProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Vec3& db,
+                        double radius2, double k) {
+  const auto& r = Rule<N>();
+  PairMoments m;
+  for (int i = 0; i < N; ++i) {
+    const Vec3 p = a0 + da * r.x[i];
+    Complex s0 = 0.0, s1 = 0.0;
+    for (int j = 0; j < N; ++j) {
+      const double R = std::sqrt((p - b0 - db * r.x[j]).squaredNorm() + radius2);
+      const Complex g = std::polar(r.w[j] / R, -k * R);
+      s0 += g;
+      s1 += g * r.x[j];
+    }
+    m.m00 += r.w[i] * s0;
+    m.m10 += r.w[i] * r.x[i] * s0;
+    m.m01 += r.w[i] * s1;
+    m.m11 += r.w[i] * r.x[i] * s1;
+  }
+  return m;
+}
+
+// Inner integral over the source segment for one observation point: static part closed form.
+struct Inner {
+  Complex i0, i1;  // int G dt', int t' G dt'
+};
+
+Inner InnerNear(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, double radius2,
+                double k) {
+  const Vec3 r = p - b0;
+  const double z0 = r.dot(ub);
+  const double d2 = std::max(r.squaredNorm() - z0 * z0, 0.0) + radius2;
+  const double d = std::sqrt(d2);
+  // int_0^lb ds / sqrt((s - z0)^2 + d^2) and int_0^lb s ds / sqrt(...)
+  const double s0 = std::asinh((lb - z0) / d) + std::asinh(z0 / d);
+  const double rl = std::sqrt((lb - z0) * (lb - z0) + d2);
+  const double r0 = std::sqrt(z0 * z0 + d2);
+  const double s1 = rl - r0 + z0 * s0;
+  Inner in{Complex(s0 / lb, 0.0), Complex(s1 / (lb * lb), 0.0)};
+  // Smooth remainder (exp(-jkR) - 1) / R, bounded by k.
+  const auto& g = Rule<8>();
+  for (int j = 0; j < 8; ++j) {
+    const double s = g.x[j] * lb;
+    const double R = std::sqrt((s - z0) * (s - z0) + d2);
+    const double kr = k * R;
+    // (exp(-j kR) - 1) / R without cancellation for small kR.
+    const Complex f = kr < 1e-3 ? Complex(-0.5 * k * kr, -k * (1.0 - kr * kr / 6.0))
+                                : (std::polar(1.0, -kr) - 1.0) / R;
+    in.i0 += g.w[j] * f;
+    in.i1 += g.w[j] * g.x[j] * f;
+  }
+  return in;
+}
+
+// Breakpoints of the outer rule on [0, 1], graded geometrically toward touching ends.
+std::vector<double> OuterBreaks(bool grade_start, bool grade_end, double scale) {
+  std::vector<double> mids;
+  if (scale < 0.05) {
+    for (double x = scale; x < 0.5; x *= 4.0) mids.push_back(x);
+  }
+  std::vector<double> breaks{0.0};
+  if (grade_start) breaks.insert(breaks.end(), mids.begin(), mids.end());
+  breaks.push_back(0.5);
+  if (grade_end) {
+    for (auto it = mids.rbegin(); it != mids.rend(); ++it) breaks.push_back(1.0 - *it);
+  }
+  breaks.push_back(1.0);
+  return breaks;
+}
+
+PairMoments NearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1, double radius2,
+                     double k) {
+  const Vec3 da = a1 - a0, db = b1 - b0;
+  const double la = da.norm(), lb = db.norm();
+  const Vec3 ub = db / lb;
+  const double radius = std::sqrt(radius2);
+  auto touches = [&](const Vec3& p) {
+    return geometry::SegmentDistance(p, p, b0, b1, nullptr) < 2.0 * radius;
+  };
+  const std::vector<double> breaks = OuterBreaks(touches(a0), touches(a1), radius / la);
+  const auto& g = Rule<8>();
+  PairMoments m;
+  for (size_t iv = 0; iv + 1 < breaks.size(); ++iv) {
+    const double lo = breaks[iv], width = breaks[iv + 1] - breaks[iv];
+    for (int i = 0; i < 8; ++i) {
+      const double t = lo + width * g.x[i];
+      const double w = width * g.w[i];
+      const Inner in = InnerNear(a0 + da * t, b0, ub, lb, radius2, k);
+      m.m00 += w * in.i0;
+      m.m10 += w * t * in.i0;
+      m.m01 += w * in.i1;
+      m.m11 += w * t * in.i1;
+    }
+  }
+  return m;
+}
+
+}  // namespace
+
+PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                               double radius2_m2, double wavenumber_per_m) {
+  const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
+  const double gap = geometry::SegmentDistance(a0, a1, b0, b1, nullptr);
+  if (gap < kNearFactor * longest) {
+    return NearPair(a0, a1, b0, b1, radius2_m2, wavenumber_per_m);
+  }
+  if (gap < kMidFactor * longest) {
+    return ProductRule<6>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+  }
+  return ProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+}
+
+PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Vec3& b0,
+                                        const Vec3& b1, double radius2_m2, double wavenumber_per_m,
+                                        int subdivisions) {
+  // Composite 20-point Gauss-Legendre on `subdivisions` equal parts of each segment.
+  const auto& g = Rule<20>();
+  const Vec3 da = a1 - a0, db = b1 - b0;
+  PairMoments m;
+  const double h = 1.0 / subdivisions;
+  for (int ia = 0; ia < subdivisions; ++ia) {
+    for (int i = 0; i < 20; ++i) {
+      const double t = (ia + g.x[i]) * h;
+      const Vec3 p = a0 + da * t;
+      Complex s0 = 0.0, s1 = 0.0;
+      for (int ib = 0; ib < subdivisions; ++ib) {
+        for (int j = 0; j < 20; ++j) {
+          const double tp = (ib + g.x[j]) * h;
+          const double R = std::sqrt((p - b0 - db * tp).squaredNorm() + radius2_m2);
+          const Complex gv = std::polar(g.w[j] * h / R, -wavenumber_per_m * R);
+          s0 += gv;
+          s1 += gv * tp;
+        }
+      }
+      const double w = g.w[i] * h;
+      m.m00 += w * s0;
+      m.m10 += w * t * s0;
+      m.m01 += w * s1;
+      m.m11 += w * t * s1;
+    }
+  }
+  return m;
+}
+
+}  // namespace wirefield::fill

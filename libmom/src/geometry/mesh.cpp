@@ -1,0 +1,431 @@
+// Geometry stage: the mesher. Model -> Mesh (segments, triangle bases, feed and load ports),
+// plus the geometry diagnostics: errors for feeds or loads at free ends and for models too
+// large for memory, warnings for short or long segments, crossings and ground clearance.
+#include "geometry/mesh.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <numeric>
+
+#include "core/constants.hpp"
+
+namespace wirefield::geometry {
+namespace {
+
+// Segments shorter than this many radii make the reduced thin-wire kernel inaccurate
+// (common practice: the thin-wire approximation wants segment length >> radius).
+constexpr double kMinSegmentRadii = 4.0;
+// Segments longer than this fraction of a wavelength under-resolve the current
+// (common practice: 0.1 wavelength is the usual upper bound for piecewise-linear bases).
+constexpr double kMaxSegmentWavelengths = 0.1;
+// Mesh nodes closer than this fraction of the shortest wire coincide.
+constexpr double kJoinRelativeTolerance = 1e-6;
+// Hard cap on unknowns whatever the memory: a dense LU of this size already takes hours.
+constexpr long long kMaxUnknowns = 40000;
+
+Vec3 ToVec(const Point& p) { return Vec3(p[0], p[1], p[2]); }
+
+double GiB(double bytes) { return bytes / (1024.0 * 1024.0 * 1024.0); }
+
+const char* EndName(bool at_end) { return at_end ? "end" : "start"; }
+
+// A wire end, for joint clustering.
+struct EndRef {
+  int wire = 0;
+  bool at_end = false;
+};
+
+struct WireLayout {
+  Vec3 from, to;
+  double length_m = 0.0;
+  std::vector<double> nodes_m;  // node distances from the start, first 0, last length
+  int first_segment = 0;
+};
+
+// Positions along a wire where a feed or load asks for a node.
+double PositionOnWire(const WirePointSpec& at, double length_m) {
+  switch (at.kind) {
+    case PointKind::kStart:
+      return 0.0;
+    case PointKind::kEnd:
+      return length_m;
+    case PointKind::kDistance:
+      return at.value;
+    case PointKind::kPercent:
+      return at.value / 100.0 * length_m;
+  }
+  return 0.0;
+}
+
+int FindWire(const Model& model, const std::string& name, const SourceLocation& where) {
+  for (size_t i = 0; i < model.wires.size(); ++i) {
+    if (model.wires[i].name == name) return static_cast<int>(i);
+  }
+  throw InputError(where, fmt::format("unknown wire '{}'", name));
+}
+
+// Splits [0, length] at the required interior positions into `count` segments, giving each
+// interval a share proportional to its length (at least one segment each).
+std::vector<double> PlaceNodes(double length_m, std::vector<double> required_m, int count,
+                               double merge_tol_m) {
+  std::sort(required_m.begin(), required_m.end());
+  std::vector<double> breaks{0.0};
+  for (double r : required_m) {
+    if (r > merge_tol_m && r < length_m - merge_tol_m && r - breaks.back() > merge_tol_m) {
+      breaks.push_back(r);
+    }
+  }
+  breaks.push_back(length_m);
+  const int intervals = static_cast<int>(breaks.size()) - 1;
+  count = std::max(count, intervals);
+  // Largest-remainder apportionment of `count` segments over the intervals.
+  std::vector<int> share(intervals, 1);
+  int left = count - intervals;
+  std::vector<double> want(intervals);
+  for (int i = 0; i < intervals; ++i) {
+    want[i] = (breaks[i + 1] - breaks[i]) / length_m * count - 1.0;
+  }
+  while (left > 0) {
+    int best = 0;
+    for (int i = 1; i < intervals; ++i) {
+      if (want[i] - share[i] > want[best] - share[best]) best = i;
+    }
+    ++share[best];
+    --left;
+  }
+  std::vector<double> nodes{0.0};
+  for (int i = 0; i < intervals; ++i) {
+    for (int k = 1; k <= share[i]; ++k) {
+      nodes.push_back(breaks[i] + (breaks[i + 1] - breaks[i]) * k / share[i]);
+    }
+  }
+  nodes.back() = length_m;
+  return nodes;
+}
+
+}  // namespace
+
+double MatrixBytes(long long unknowns) {
+  return 16.0 * static_cast<double>(unknowns) * static_cast<double>(unknowns);
+}
+
+double SegmentDistance(const Vec3& p0, const Vec3& p1, const Vec3& q0, const Vec3& q1,
+                       Vec3* closest_midpoint) {
+  // Closest points of two segments (clamped line-line solution).
+  const Vec3 d1 = p1 - p0, d2 = q1 - q0, r = p0 - q0;
+  const double a = d1.squaredNorm(), e = d2.squaredNorm(), f = d2.dot(r);
+  double s = 0.0, t = 0.0;
+  const double c = d1.dot(r), b = d1.dot(d2);
+  const double denom = a * e - b * b;
+  s = denom > 1e-300 ? std::clamp((b * f - c * e) / denom, 0.0, 1.0) : 0.0;
+  t = (b * s + f) / e;
+  if (t < 0.0) {
+    t = 0.0;
+    s = std::clamp(-c / a, 0.0, 1.0);
+  } else if (t > 1.0) {
+    t = 1.0;
+    s = std::clamp((b - c) / a, 0.0, 1.0);
+  }
+  const Vec3 cp = p0 + d1 * s, cq = q0 + d2 * t;
+  if (closest_midpoint) *closest_midpoint = 0.5 * (cp + cq);
+  return (cp - cq).norm();
+}
+
+Mesh BuildMesh(const Model& model, const MeshOptions& options) {
+  Mesh mesh;
+  const SourceLocation file_location{model.file, 0, 0};
+  if (model.wires.empty())
+    throw InputError(file_location,
+                     "the model has no wire; add 'wire NAME from (X, Y, Z) to (X, Y, Z) radius R'");
+  if (model.feeds.empty())
+    throw InputError(file_location, "the model has no feed; add 'feed NAME at WIRE@POS'");
+  if (model.ground.kind == GroundKind::kReal) {
+    throw InputError(model.ground.location,
+                     "this version's solver handles 'ground free' and 'ground perfect' only; "
+                     "real ground is not available yet: use 'ground perfect' for a first estimate");
+  }
+  const bool has_ground = model.ground.kind != GroundKind::kFree;
+  mesh.ground_images = model.ground.kind == GroundKind::kPerfect;
+  const double wavelength_m = core::kSpeedOfLight_m_per_s / options.max_frequency_hz;
+
+  const int wire_count = static_cast<int>(model.wires.size());
+  std::vector<WireLayout> layout(wire_count);
+  double shortest_m = INFINITY;
+  for (int w = 0; w < wire_count; ++w) {
+    layout[w].from = ToVec(model.wires[w].from_m);
+    layout[w].to = ToVec(model.wires[w].to_m);
+    layout[w].length_m = (layout[w].to - layout[w].from).norm();
+    if (!(layout[w].length_m > 0.0)) {
+      throw InputError(model.wires[w].location,
+                       fmt::format("wire '{}' has zero length; give it different end points",
+                                   model.wires[w].name));
+    }
+    shortest_m = std::min(shortest_m, layout[w].length_m);
+  }
+  const double join_tol_m = kJoinRelativeTolerance * shortest_m;
+
+  // Positions that need a node: feeds and loads.
+  std::vector<std::vector<double>> required(wire_count);
+  auto require = [&](const WirePointSpec& at) {
+    const int w = FindWire(model, at.wire, at.location);
+    required[w].push_back(PositionOnWire(at, layout[w].length_m));
+  };
+  for (const auto& f : model.feeds) require(f.at);
+  for (const auto& l : model.loads) require(l.at);
+
+  // Segment counts: given, or enough for the highest frequency. Check the size before any
+  // large allocation happens.
+  long long total_segments = 0;
+  std::vector<int> counts(wire_count);
+  for (int w = 0; w < wire_count; ++w) {
+    const WireSpec& spec = model.wires[w];
+    long long n = spec.segments;
+    if (n <= 0) {
+      const double wanted =
+          std::ceil(layout[w].length_m / wavelength_m * options.segments_per_wavelength);
+      double chosen = std::max<double>(options.min_segments_per_wire, std::min(wanted, 1e12));
+      // Keep automatic segments at least kMinSegmentRadii radii long where possible.
+      const double radii_cap = std::floor(layout[w].length_m / (kMinSegmentRadii * spec.radius_m));
+      if (radii_cap >= 1.0 && chosen > radii_cap) chosen = radii_cap;
+      n = static_cast<long long>(chosen);
+    }
+    if (n > kMaxUnknowns) {
+      throw InputError(spec.location,
+                       fmt::format("wire '{}' would need {} segments; the matrix would take "
+                                   "{:.1f} GiB: give fewer segments or a lower frequency "
+                                   "(at most {} unknowns)",
+                                   spec.name, n, GiB(MatrixBytes(n)), kMaxUnknowns));
+    }
+    counts[w] = static_cast<int>(n);
+    total_segments += n;
+  }
+  if (total_segments > kMaxUnknowns || MatrixBytes(total_segments) > options.max_matrix_bytes) {
+    throw InputError(
+        file_location,
+        fmt::format("the model needs about {} unknowns; the matrix would take "
+                    "{:.2f} GiB, more than the {:.2f} GiB this run may use: give "
+                    "fewer segments or solve at a lower frequency",
+                    total_segments, GiB(MatrixBytes(total_segments)),
+                    GiB(std::min(options.max_matrix_bytes, MatrixBytes(kMaxUnknowns)))));
+  }
+
+  // Nodes and segments.
+  for (int w = 0; w < wire_count; ++w) {
+    const WireSpec& spec = model.wires[w];
+    layout[w].nodes_m = PlaceNodes(layout[w].length_m, required[w], counts[w], join_tol_m);
+    layout[w].first_segment = static_cast<int>(mesh.segments.size());
+    const Vec3 dir = (layout[w].to - layout[w].from) / layout[w].length_m;
+    for (size_t k = 0; k + 1 < layout[w].nodes_m.size(); ++k) {
+      Segment s;
+      s.start = layout[w].from + dir * layout[w].nodes_m[k];
+      s.end = layout[w].from + dir * layout[w].nodes_m[k + 1];
+      if (k + 2 == layout[w].nodes_m.size()) s.end = layout[w].to;
+      s.radius_m = spec.radius_m;
+      s.wire = w;
+      mesh.segments.push_back(s);
+    }
+    const int used = static_cast<int>(layout[w].nodes_m.size()) - 1;
+    mesh.wires.push_back({spec.name, spec.segments, used});
+  }
+  auto segment_at = [&](int w, bool at_end) {
+    return at_end ? layout[w].first_segment + static_cast<int>(layout[w].nodes_m.size()) - 2
+                  : layout[w].first_segment;
+  };
+
+  // Interior nodes: one triangle basis each, current along the wire.
+  for (int w = 0; w < wire_count; ++w) {
+    const int n = static_cast<int>(layout[w].nodes_m.size()) - 1;
+    for (int k = 1; k < n; ++k) {
+      Basis b;
+      b.pieces[0] = {layout[w].first_segment + k - 1, true, +1.0};
+      b.pieces[1] = {layout[w].first_segment + k, false, -1.0};
+      b.piece_count = 2;
+      mesh.bases.push_back(b);
+    }
+  }
+
+  // Joints: cluster wire ends; each cluster of m ends gets m - 1 bases through its first end.
+  std::vector<std::vector<EndRef>> joints;
+  std::vector<int> end_joint(2 * wire_count, -1);  // index 2w + at_end -> joint
+  for (int w = 0; w < wire_count; ++w) {
+    for (int e = 0; e < 2; ++e) {
+      const Vec3 p = e ? layout[w].to : layout[w].from;
+      int found = -1;
+      for (size_t j = 0; j < joints.size() && found < 0; ++j) {
+        const EndRef& r = joints[j].front();
+        const Vec3 q = r.at_end ? layout[r.wire].to : layout[r.wire].from;
+        if ((p - q).norm() <= join_tol_m) found = static_cast<int>(j);
+      }
+      if (found < 0) {
+        found = static_cast<int>(joints.size());
+        joints.push_back({});
+      }
+      joints[found].push_back({w, e == 1});
+      end_joint[2 * w + e] = found;
+    }
+  }
+  std::vector<bool> joint_on_ground(joints.size(), false);
+  for (size_t j = 0; j < joints.size(); ++j) {
+    const EndRef& r = joints[j].front();
+    const Vec3 p = r.at_end ? layout[r.wire].to : layout[r.wire].from;
+    joint_on_ground[j] = has_ground && std::abs(p.z()) <= join_tol_m;
+    const auto& ends = joints[j];
+    auto piece_of = [&](const EndRef& end, double sign) {
+      return Piece{segment_at(end.wire, end.at_end), end.at_end, sign};
+    };
+    if (joint_on_ground[j]) {
+      for (const EndRef& end : ends) {
+        Basis b;
+        b.pieces[0] = piece_of(end, +1.0);
+        b.piece_count = 1;
+        mesh.bases.push_back(b);
+      }
+    } else {
+      for (size_t k = 1; k < ends.size(); ++k) {
+        Basis b;
+        b.pieces[0] = piece_of(ends[0], +1.0);
+        b.pieces[1] = piece_of(ends[k], -1.0);
+        b.piece_count = 2;
+        mesh.bases.push_back(b);
+      }
+    }
+  }
+
+  // Ports: the bases whose pieces touch the gap, signed by their current along the wire.
+  auto make_port = [&](const WirePointSpec& at, const std::string& what, const std::string& name,
+                       const SourceLocation& where) {
+    const int w = FindWire(model, at.wire, at.location);
+    const double pos = PositionOnWire(at, layout[w].length_m);
+    const auto& nodes = layout[w].nodes_m;
+    int k = 0;
+    for (size_t i = 0; i < nodes.size(); ++i) {
+      if (std::abs(nodes[i] - pos) < std::abs(nodes[k] - pos)) k = static_cast<int>(i);
+    }
+    const int n = static_cast<int>(nodes.size()) - 1;
+    if (k == 0 || k == n) {
+      const bool at_end = k == n;
+      const int joint = end_joint[2 * w + (at_end ? 1 : 0)];
+      if (joints[joint].size() < 2 && !joint_on_ground[joint]) {
+        throw InputError(where,
+                         fmt::format("{} '{}' is at the free {} of wire '{}', where nothing is "
+                                     "connected: move it inside the wire (for example {}@50%) or "
+                                     "join another wire{} there",
+                                     what, name, EndName(at_end), model.wires[w].name,
+                                     model.wires[w].name, has_ground ? " or the ground" : ""));
+      }
+    }
+    // The segment beside the gap and the node's side of it.
+    const int seg = layout[w].first_segment + (k == 0 ? 0 : k - 1);
+    const bool node_at_end = k != 0;
+    Port port;
+    port.segment = seg;
+    for (size_t b = 0; b < mesh.bases.size(); ++b) {
+      const Basis& basis = mesh.bases[b];
+      for (int p = 0; p < basis.piece_count; ++p) {
+        const Piece& piece = basis.pieces[p];
+        if (piece.segment == seg && piece.node_at_end == node_at_end) {
+          port.bases.emplace_back(static_cast<int>(b), piece.DirectionAtNode());
+        }
+      }
+    }
+    if (port.bases.empty()) {
+      throw ComputationError(fmt::format("internal: no basis at {} '{}'", what, name));
+    }
+    return port;
+  };
+  for (const auto& f : model.feeds)
+    mesh.feed_ports.push_back(make_port(f.at, "feed", f.name, f.location));
+  for (const auto& l : model.loads)
+    mesh.load_ports.push_back(make_port(l.at, "load", l.name, l.location));
+  for (size_t i = 0; i < mesh.feed_ports.size(); ++i) {
+    for (size_t j = 0; j < i; ++j) {
+      if (mesh.feed_ports[i].segment == mesh.feed_ports[j].segment &&
+          mesh.feed_ports[i].bases == mesh.feed_ports[j].bases) {
+        throw InputError(model.feeds[i].location,
+                         fmt::format("feeds '{}' and '{}' are at the same point; give each "
+                                     "feed its own place",
+                                     model.feeds[j].name, model.feeds[i].name));
+      }
+    }
+  }
+
+  // Warnings: segment length against radius and wavelength.
+  for (int w = 0; w < wire_count; ++w) {
+    const WireSpec& spec = model.wires[w];
+    double shortest_seg = INFINITY, longest_seg = 0.0;
+    for (int s = 0; s < mesh.wires[w].segments_used; ++s) {
+      const double len = mesh.segments[layout[w].first_segment + s].length_m();
+      shortest_seg = std::min(shortest_seg, len);
+      longest_seg = std::max(longest_seg, len);
+    }
+    if (shortest_seg < kMinSegmentRadii * spec.radius_m) {
+      mesh.warnings.push_back(
+          {spec.location,
+           fmt::format("wire '{}': segments as short as {:.3g} m are less than {} radii "
+                       "(radius {:.3g} m): the thin-wire model loses accuracy; use fewer "
+                       "segments or a thinner wire",
+                       spec.name, shortest_seg, kMinSegmentRadii, spec.radius_m)});
+    }
+    if (longest_seg > kMaxSegmentWavelengths * wavelength_m) {
+      mesh.warnings.push_back(
+          {spec.location,
+           fmt::format("wire '{}': segments up to {:.3g} wavelength long at {:.6g} MHz "
+                       "(more than {}): the current is under-resolved; give more segments "
+                       "or leave 'segments' out",
+                       spec.name, longest_seg / wavelength_m, options.max_frequency_hz / 1e6,
+                       kMaxSegmentWavelengths)});
+    }
+  }
+  // Wires that cross or touch without a joint.
+  for (int a = 0; a < wire_count; ++a) {
+    for (int b = a + 1; b < wire_count; ++b) {
+      bool share_joint = false;
+      for (int ea = 0; ea < 2; ++ea) {
+        for (int eb = 0; eb < 2; ++eb) {
+          share_joint |= end_joint[2 * a + ea] == end_joint[2 * b + eb];
+        }
+      }
+      if (share_joint) continue;
+      Vec3 where;
+      const double d =
+          SegmentDistance(layout[a].from, layout[a].to, layout[b].from, layout[b].to, &where);
+      if (d <= model.wires[a].radius_m + model.wires[b].radius_m) {
+        mesh.warnings.push_back(
+            {model.wires[b].location,
+             fmt::format("wires '{}' and '{}' cross or touch near ({:.3g}, {:.3g}, {:.3g}) m "
+                         "without a joint: no current passes between them there; split the "
+                         "wires so that their ends meet, or move them apart",
+                         model.wires[a].name, model.wires[b].name, where.x(), where.y(),
+                         where.z())});
+      }
+    }
+  }
+  // Ground clearance.
+  if (has_ground) {
+    for (int w = 0; w < wire_count; ++w) {
+      const WireSpec& spec = model.wires[w];
+      const double zmin = std::min(layout[w].from.z(), layout[w].to.z());
+      const bool from_on = std::abs(layout[w].from.z()) <= join_tol_m;
+      const bool to_on = std::abs(layout[w].to.z()) <= join_tol_m;
+      if (zmin < -join_tol_m) {
+        mesh.warnings.push_back(
+            {spec.location,
+             fmt::format("wire '{}' goes below the ground (z = {:.3g} m): the ground is the "
+                         "plane z = 0 and the solver assumes wires above it; raise the wire",
+                         spec.name, zmin)});
+      } else if ((from_on && to_on) || (!from_on && !to_on && zmin < spec.radius_m)) {
+        mesh.warnings.push_back(
+            {spec.location,
+             fmt::format("wire '{}' runs closer to the ground than its radius ({:.3g} m): "
+                         "the thin-wire model does not hold there; raise it",
+                         spec.name, spec.radius_m)});
+      }
+    }
+  }
+  return mesh;
+}
+
+}  // namespace wirefield::geometry
