@@ -143,6 +143,13 @@ std::string NonAsciiHint(long cp) {
 }  // namespace
 
 std::vector<Token> LexLine(std::string_view line, const LineSource& source) {
+  const size_t statement_length = std::min(line.find('#'), line.size());
+  if (statement_length > static_cast<size_t>(kMaxStatementCharacters)) {
+    throw InputError(At(source, kMaxStatementCharacters + 1),
+                     fmt::format("the line is longer than {} characters before any comment; "
+                                 "split the statement with let variables",
+                                 kMaxStatementCharacters));
+  }
   std::vector<Token> tokens;
   size_t i = 0;
   bool space = true;
@@ -254,19 +261,22 @@ bool IsName(std::string_view text) {
 
 namespace {
 
+// Edit distance counting an insertion, deletion, substitution or swap of two neighbouring
+// letters as one edit (the optimal-string-alignment form of the Damerau-Levenshtein distance).
 size_t EditDistance(std::string_view a, std::string_view b) {
-  std::vector<size_t> row(b.size() + 1);
-  for (size_t j = 0; j <= b.size(); ++j) row[j] = j;
+  std::vector<std::vector<size_t>> d(a.size() + 1, std::vector<size_t>(b.size() + 1));
+  for (size_t i = 0; i <= a.size(); ++i) d[i][0] = i;
+  for (size_t j = 0; j <= b.size(); ++j) d[0][j] = j;
   for (size_t i = 1; i <= a.size(); ++i) {
-    size_t diagonal = row[0];
-    row[0] = i;
     for (size_t j = 1; j <= b.size(); ++j) {
-      const size_t up = row[j];
-      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (a[i - 1] == b[j - 1] ? 0 : 1)});
-      diagonal = up;
+      const size_t cost = a[i - 1] == b[j - 1] ? 0 : 1;
+      d[i][j] = std::min({d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost});
+      if (i > 1 && j > 1 && a[i - 1] == b[j - 2] && a[i - 2] == b[j - 1]) {
+        d[i][j] = std::min(d[i][j], d[i - 2][j - 2] + 1);
+      }
     }
   }
-  return row[b.size()];
+  return d[a.size()][b.size()];
 }
 
 bool EqualIgnoringCase(std::string_view a, std::string_view b) {

@@ -30,6 +30,10 @@ struct LineSource {
 };
 SourceLocation At(const LineSource& source, int column);
 
+// Longest statement text (before any comment) a line may hold. Real statements are under
+// 200 characters; the cap keeps a binary or generated file from costing gigabytes of tokens.
+inline constexpr int kMaxStatementCharacters = 10000;
+
 // Tokens of one line, always ending with a kEnd token (its column: just past the last
 // character before any comment). Throws InputError for characters the language has no use for.
 std::vector<Token> LexLine(std::string_view line, const LineSource& source);
