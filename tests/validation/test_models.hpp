@@ -1,0 +1,62 @@
+// Validation helpers: small models built in code (no parser involved), so that physics tests
+// exercise the mesher, fill and solve directly. Lengths in metres, frequencies in hertz.
+#pragma once
+
+#include <string>
+
+#include "wirefield/wirefield.hpp"
+
+namespace wirefield::testing {
+
+// Wavelength 1 m: frequencies below are c / 1 m, so lengths read as wavelengths.
+inline constexpr double kUnitWavelengthHz = 299792458.0;
+
+inline WireSpec Wire(const std::string& name, Point from, Point to, double radius_m, int segments) {
+  WireSpec w;
+  w.name = name;
+  w.from_m = from;
+  w.to_m = to;
+  w.radius_m = radius_m;
+  w.segments = segments;
+  return w;
+}
+
+inline FeedSpec Feed(const std::string& name, const std::string& wire, PointKind kind, double value,
+                     double voltage_v = 1.0) {
+  FeedSpec f;
+  f.name = name;
+  f.at = {wire, kind, value, {}};
+  f.voltage_v = voltage_v;
+  return f;
+}
+
+// A centre-fed dipole along z, centred at `centre`, of total length length_m.
+inline Model Dipole(double length_m, double radius_m, int segments,
+                    Point centre = {0.0, 0.0, 0.0}) {
+  Model m;
+  m.file = "dipole";
+  m.wires.push_back(Wire("dipole", {centre[0], centre[1], centre[2] - length_m / 2},
+                         {centre[0], centre[1], centre[2] + length_m / 2}, radius_m, segments));
+  m.feeds.push_back(Feed("gap", "dipole", PointKind::kPercent, 50.0));
+  m.frequency_hz = kUnitWavelengthHz;
+  return m;
+}
+
+// A horizontal centre-fed dipole along x at height height_m.
+inline Model HorizontalDipole(double length_m, double radius_m, int segments, double height_m) {
+  Model m;
+  m.file = "horizontal";
+  m.wires.push_back(Wire("dipole", {-length_m / 2, 0, height_m}, {length_m / 2, 0, height_m},
+                         radius_m, segments));
+  m.feeds.push_back(Feed("gap", "dipole", PointKind::kPercent, 50.0));
+  m.frequency_hz = kUnitWavelengthHz;
+  return m;
+}
+
+inline Complex SolveFeedImpedance(const Model& m, double frequency_hz = kUnitWavelengthHz) {
+  SimulationOptions o;
+  o.max_frequency_hz = frequency_hz;
+  return Simulation(m, o).Solve(frequency_hz).feeds.at(0).impedance_ohm;
+}
+
+}  // namespace wirefield::testing
