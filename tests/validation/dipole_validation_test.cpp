@@ -14,9 +14,7 @@ namespace {
 using testing::Dipole;
 using testing::SolveFeedImpedance;
 
-// Omega = 2 ln(l / a), the thickness parameter of thin-wire theory.
-double Omega(double length, double radius) { return 2.0 * std::log(length / radius); }
-
+// Omega = 2 ln(l / a) below is the thickness parameter of thin-wire theory.
 TEST(HalfWaveDipole, ApproachesInducedEmfImpedanceAsRadiusVanishes) {
   // Induced-EMF (Carter) value 73.08 + j42.52 ohm (REFERENCES.md §1: Carter, Proc. IRE 20(6),
   // 1932; Balanis, Antenna Theory, 3rd ed., eqs. 4-70/4-71, recomputed in reference/).
