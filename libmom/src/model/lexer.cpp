@@ -314,4 +314,10 @@ std::string DidYouMean(std::string_view word, const std::vector<std::string>& ca
   return fmt::format("; did you mean '{}'?", best);
 }
 
+std::string DidYouMeanAside(std::string_view word, const std::vector<std::string>& candidates) {
+  const std::string best = Nearest(word, candidates);
+  if (best.empty() || best == word) return {};
+  return fmt::format(" (did you mean '{}'?)", best);
+}
+
 }  // namespace wirefield::model

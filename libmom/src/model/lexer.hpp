@@ -51,7 +51,9 @@ bool IsName(std::string_view text);
 // The candidate closest to word (same letters ignoring case first, then edit distance of at
 // most a third of its length, at least 1); empty when none is close.
 std::string Nearest(std::string_view word, const std::vector<std::string>& candidates);
-// "; did you mean 'X'?" or "" (for appending to a message).
+// "; did you mean 'X'?" or "" (for appending at the end of a message).
 std::string DidYouMean(std::string_view word, const std::vector<std::string>& candidates);
+// " (did you mean 'X'?)" or "" (for the middle of a message).
+std::string DidYouMeanAside(std::string_view word, const std::vector<std::string>& candidates);
 
 }  // namespace wirefield::model

@@ -206,7 +206,7 @@ class Parser {
       }
       throw Error(
           t, fmt::format("unknown length unit '{}'{}; use m, cm, mm, ft or in", Shorten(t.text),
-                         DidYouMean(t.text, {"m", "cm", "mm", "ft", "in"})));
+                         DidYouMeanAside(t.text, {"m", "cm", "mm", "ft", "in"})));
     }
     Next();
     length_factor_ = FindUnit(t.text)->factor;
@@ -372,7 +372,7 @@ class Parser {
     if (it == wire_index_.end()) {
       std::vector<std::string> names;
       for (const WireSpec& w : model_.wires) names.push_back(w.name);
-      std::string hint = DidYouMean(wire_token.text, names);
+      std::string hint = DidYouMeanAside(wire_token.text, names);
       throw Error(wire_token,
                   fmt::format("{}: unknown wire '{}'{}{}", context, Shorten(wire_token.text), hint,
                               names.empty() ? "; no wire is defined above this line"
@@ -568,7 +568,7 @@ class Parser {
     } else {
       throw Error(kind, fmt::format("ground: unknown kind '{}'{}; use free, perfect or real",
                                     Shorten(kind.text),
-                                    DidYouMean(kind.text, {"free", "perfect", "real"})));
+                                    DidYouMeanAside(kind.text, {"free", "perfect", "real"})));
     }
     Next();
     if (ground.kind == GroundKind::kReal) {
@@ -582,7 +582,7 @@ class Parser {
                                   "conductivity=",
                                   Quote(setting),
                                   setting.kind == TokenKind::kName
-                                      ? DidYouMean(setting.text, {"permittivity", "conductivity"})
+                                      ? DidYouMeanAside(setting.text, {"permittivity", "conductivity"})
                                       : ""));
         }
         Next();

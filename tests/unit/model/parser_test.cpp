@@ -504,8 +504,8 @@ TEST(ParseError, UnknownVariableSuggestsTheNearest) {
 
 TEST(ParseError, UnknownWireSuggestsTheNearest) {
   EXPECT_EQ(ErrorOf(kKit + "feed g at dpi@50%\n"),
-            "kit.wire:3:11: error: feed 'g': unknown wire 'dpi'; did you mean 'dip'?; a wire "
-            "must be defined on an earlier line");
+            "kit.wire:3:11: error: feed 'g': unknown wire 'dpi' (did you mean 'dip'?); a "
+            "wire must be defined on an earlier line");
   EXPECT_EQ(ErrorOf("feed g at dip@50%\n"),
             "kit.wire:1:11: error: feed 'g': unknown wire 'dip'; no wire is defined above this "
             "line");
@@ -608,8 +608,8 @@ TEST(ParseError, UnitsStatementNeedsALengthUnit) {
             "kit.wire:1:7: error: units sets the length unit of bare numbers; 'MHz' is not a "
             "length unit: use m, cm, mm, ft or in");
   EXPECT_EQ(ErrorOf("units fet\n"),
-            "kit.wire:1:7: error: unknown length unit 'fet'; did you mean 'ft'?; use m, cm, mm, "
-            "ft or in");
+            "kit.wire:1:7: error: unknown length unit 'fet' (did you mean 'ft'?); use m, cm, "
+            "mm, ft or in");
 }
 
 TEST(ParseError, UnknownUnitSuggestsTheNearest) {
@@ -711,10 +711,13 @@ TEST(ParseError, RealGroundNeedsBothConstants) {
   EXPECT_EQ(ErrorOf(kKit + "ground real permittivity=13\n"),
             "kit.wire:3:28: error: ground real: missing 'conductivity=SIGMA' (S/m)");
   EXPECT_EQ(ErrorOf(kKit + "ground real permitivity=13\n"),
-            "kit.wire:3:13: error: ground real: unknown setting 'permitivity'; did you mean "
-            "'permittivity'?; use permittivity= and conductivity=");
+            "kit.wire:3:13: error: ground real: unknown setting 'permitivity' (did you mean "
+            "'permittivity'?); use permittivity= and conductivity=");
   EXPECT_EQ(ErrorOf(kKit + "ground wet\n"),
             "kit.wire:3:8: error: ground: unknown kind 'wet'; use free, perfect or real");
+  EXPECT_EQ(ErrorOf(kKit + "ground perfekt\n"),
+            "kit.wire:3:8: error: ground: unknown kind 'perfekt' (did you mean 'perfect'?); use "
+            "free, perfect or real");
 }
 
 TEST(ParseError, SegmentsMustBeAPositiveWholeNumber) {
