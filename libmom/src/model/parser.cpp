@@ -577,13 +577,14 @@ class Parser {
         const Token& setting = Peek();
         const bool is_eps = IsWord("permittivity");
         if (!is_eps && !IsWord("conductivity")) {
-          throw Error(setting,
-                      fmt::format("ground real: unknown setting {}{}; use permittivity= and "
-                                  "conductivity=",
-                                  Quote(setting),
-                                  setting.kind == TokenKind::kName
-                                      ? DidYouMeanAside(setting.text, {"permittivity", "conductivity"})
-                                      : ""));
+          throw Error(
+              setting,
+              fmt::format("ground real: unknown setting {}{}; use permittivity= and "
+                          "conductivity=",
+                          Quote(setting),
+                          setting.kind == TokenKind::kName
+                              ? DidYouMeanAside(setting.text, {"permittivity", "conductivity"})
+                              : ""));
         }
         Next();
         ExpectPunct("=", "ground real", fmt::format("'=' after {}", setting.text));
