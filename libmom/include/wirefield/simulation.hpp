@@ -21,9 +21,10 @@ struct SimulationOptions {
   // picks segment counts for this frequency; higher means more unknowns (slower, finer).
   std::optional<double> max_frequency_hz;
   // Target segments per wavelength at max_frequency_hz when a wire gives no `segments`.
-  // Default 40: the feed resistance of a thin dipole then changes by well under 1% when the
-  // count doubles. Raising it costs time as the cube of the unknown count.
-  double segments_per_wavelength = 40.0;
+  // Default 80: a half-wave dipole gets 40 segments, and its feed impedance is then within
+  // about 1 ohm of the converged value (docs/validation.md). Raising it costs time as the
+  // cube of the unknown count.
+  double segments_per_wavelength = 80.0;
   // Minimum segments on a wire that gives no `segments`. Default 3.
   int min_segments_per_wire = 3;
   // Largest matrix (bytes) the solver may allocate before refusing the model. Default: half of

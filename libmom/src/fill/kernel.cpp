@@ -107,8 +107,11 @@ Inner InnerNear(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, double
 // Breakpoints of the outer rule on [0, 1], graded geometrically toward touching ends.
 std::vector<double> OuterBreaks(bool grade_start, bool grade_end, double scale) {
   std::vector<double> mids;
+  // Grading stops at kFinestBreak of the segment: what lies closer to the end contributes
+  // below 1e-8 of the integral (its integrand is only logarithmically singular).
+  constexpr double kFinestBreak = 1e-8;
   if (scale < 0.05) {
-    for (double x = scale; x < 0.5; x *= 4.0) mids.push_back(x);
+    for (double x = std::max(scale, kFinestBreak); x < 0.5; x *= 4.0) mids.push_back(x);
   }
   std::vector<double> breaks{0.0};
   if (grade_start) breaks.insert(breaks.end(), mids.begin(), mids.end());

@@ -23,6 +23,13 @@ constexpr double kMinSegmentRadii = 4.0;
 constexpr double kMaxSegmentWavelengths = 0.1;
 // Mesh nodes closer than this fraction of the shortest wire coincide.
 constexpr double kJoinRelativeTolerance = 1e-6;
+// Radii below this fraction of the wire length are not physical and would underflow the
+// reduced kernel's radius squared.
+constexpr double kMinRadiusOfLength = 1e-12;
+// Thin-wire limits on k a (wavenumber times radius): the reduced kernel assumes the current
+// uniform around the wire, good for k a << 1 (common practice: k a < 0.1 for accuracy).
+constexpr double kWarnKa = 0.1;
+constexpr double kMaxKa = 0.5;
 // Hard cap on unknowns whatever the memory: a dense LU of this size already takes hours.
 constexpr long long kMaxUnknowns = 40000;
 
@@ -163,6 +170,13 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                        fmt::format("wire '{}' has zero length; give it different end points",
                                    model.wires[w].name));
     }
+    if (!(model.wires[w].radius_m >= kMinRadiusOfLength * layout[w].length_m)) {
+      throw InputError(
+          model.wires[w].location,
+          fmt::format("wire '{}' has a radius of {:.3g} m, below {:g} of its "
+                      "length: no real wire is that thin; give the real radius",
+                      model.wires[w].name, model.wires[w].radius_m, kMinRadiusOfLength));
+    }
     shortest_m = std::min(shortest_m, layout[w].length_m);
   }
   const double join_tol_m = kJoinRelativeTolerance * shortest_m;
@@ -175,6 +189,28 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   };
   for (const auto& f : model.feeds) require(f.at);
   for (const auto& l : model.loads) require(l.at);
+
+  // The thin-wire kernel needs wires thin against the wavelength (k a << 1).
+  for (int w = 0; w < wire_count; ++w) {
+    const WireSpec& spec = model.wires[w];
+    const double ka = 2.0 * core::kPi * spec.radius_m / wavelength_m;
+    if (ka > kMaxKa) {
+      throw InputError(spec.location,
+                       fmt::format("wire '{}': radius {:.3g} m is not small against the "
+                                   "wavelength ({:.3g} m at {:.6g} MHz); the thin-wire model "
+                                   "needs 2 pi radius / wavelength below {}: use a thinner wire "
+                                   "or a lower frequency",
+                                   spec.name, spec.radius_m, wavelength_m,
+                                   options.max_frequency_hz / 1e6, kMaxKa));
+    }
+    if (ka > kWarnKa) {
+      mesh.warnings.push_back(
+          {spec.location,
+           fmt::format("wire '{}': radius {:.3g} m is {:.3g} wavelength; the thin-wire model "
+                       "loses accuracy above 2 pi radius / wavelength = {}",
+                       spec.name, spec.radius_m, spec.radius_m / wavelength_m, kWarnKa)});
+    }
+  }
 
   // Segment counts: given, or enough for the highest frequency. Check the size before any
   // large allocation happens.

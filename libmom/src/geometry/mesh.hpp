@@ -63,7 +63,7 @@ struct Mesh {
 
 struct MeshOptions {
   double max_frequency_hz = 0.0;
-  double segments_per_wavelength = 40.0;
+  double segments_per_wavelength = 80.0;
   int min_segments_per_wire = 3;
   double max_matrix_bytes = 4.0 * 1024 * 1024 * 1024;
 };
