@@ -98,9 +98,9 @@ std::string PointText(const WirePointSpec& at) {
     case PointKind::kEnd:
       return at.wire + "@end";
     case PointKind::kDistance:
-      return fmt::format("{}@{}m", at.wire, Number(at.value));
+      return fmt::format("{}@{:.6g}m", at.wire, at.value);
     case PointKind::kPercent:
-      return fmt::format("{}@{}%", at.wire, Number(at.value));
+      return fmt::format("{}@{:.6g}%", at.wire, at.value);
   }
   return at.wire;
 }
@@ -122,10 +122,10 @@ const LoadSpec* FindLoad(const Model& model, const std::string& name) {
 std::string LoadElements(const LoadSpec* load) {
   if (load == nullptr) return "?";
   std::vector<std::string> parts;
-  if (load->resistance_ohm) parts.push_back(fmt::format("R={}ohm", Number(*load->resistance_ohm)));
-  if (load->inductance_h) parts.push_back(fmt::format("L={}uH", Number(*load->inductance_h * 1e6)));
+  if (load->resistance_ohm) parts.push_back(fmt::format("R={:.6g}ohm", *load->resistance_ohm));
+  if (load->inductance_h) parts.push_back(fmt::format("L={:.6g}uH", *load->inductance_h * 1e6));
   if (load->capacitance_f) {
-    parts.push_back(fmt::format("C={}pF", Number(*load->capacitance_f * 1e12)));
+    parts.push_back(fmt::format("C={:.6g}pF", *load->capacitance_f * 1e12));
   }
   const char* joint = load->topology == LoadTopology::kSeries ? " + " : " || ";
   std::string text = load->topology == LoadTopology::kSeries ? "series " : "parallel ";
@@ -175,13 +175,13 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   feeds.AddColumn("R (ohm)", Align::kRight);
   feeds.AddColumn("X (ohm)", Align::kRight);
   feeds.AddColumn("|Z| (ohm)", Align::kRight);
-  feeds.AddColumn(fmt::format("SWR (z0 {} ohm)", Number(z0_ohm)), Align::kRight);
+  feeds.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
   feeds.AddColumn("|I| (A)", Align::kRight);
-  feeds.AddColumn("I phase (deg)", Align::kRight);
+  feeds.AddColumn("arg I (deg)", Align::kRight);
   feeds.AddColumn("P (W)", Align::kRight);
   for (const FeedResult& feed : result.feeds) {
     std::string swr = report::Swr(feed.swr);
-    if (feed.z0_ohm != z0_ohm) swr += fmt::format(" (z0 {} ohm)", Number(feed.z0_ohm));
+    if (feed.z0_ohm != z0_ohm) swr += fmt::format(" ({:.6g} ohm)", feed.z0_ohm);
     feeds.AddRow({feed.name, report::FeedPlace(model, feed.name), Number(feed.impedance_ohm.real()),
                   report::Signed(feed.impedance_ohm.imag()), Number(std::abs(feed.impedance_ohm)),
                   swr, Number(std::abs(feed.current_a)), report::Degrees(feed.current_a),
@@ -230,19 +230,18 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   const double total_w = report::TotalFeedPower(result);
   if (total_w > 0.0) {
     const double scale = std::sqrt(report::kScaledPower_w / total_w);
-    out +=
-        fmt::format("At {:.0f} W into the feeds (V x {}):", report::kScaledPower_w, Number(scale));
+    out += fmt::format("At {:.0f} W into the feeds (currents and voltages above x {}):\n",
+                       report::kScaledPower_w, Number(scale));
     for (const FeedResult& feed : result.feeds) {
-      out += fmt::format(" feed {} {} A, {} V peak;", feed.name,
+      out += fmt::format("  feed {}: {} A, {} V peak at the terminals\n", feed.name,
                          Number(std::abs(feed.current_a) * scale),
                          Number(std::abs(feed.voltage_v) * scale));
     }
     for (const LoadResult& load : result.loads) {
-      out +=
-          fmt::format(" load {} {} V peak;", load.name, Number(std::abs(load.voltage_v) * scale));
+      out += fmt::format("  load {}: {} V peak across it, {} W in it\n", load.name,
+                         Number(std::abs(load.voltage_v) * scale),
+                         Number(load.power_w * scale * scale));
     }
-    out.back() = '.';
-    out += "\n";
   }
   out +=
       "Caution: at transmitting power the open ends of wires and the capacitors and coils of "

@@ -31,7 +31,7 @@ std::string TextTable::Render(int indent) const {
   auto render_row = [&](const std::vector<std::string>& cells) {
     std::string line = margin;
     for (std::size_t c = 0; c < cells.size(); ++c) {
-      if (c > 0) line += "   ";
+      if (c > 0) line += "  ";
       const std::string pad(widths[c] - cells[c].size(), ' ');
       const bool last = c + 1 == cells.size();
       if (aligns_[c] == Align::kRight) {

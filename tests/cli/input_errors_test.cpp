@@ -1,0 +1,167 @@
+// CLI tests: every class of bad input reaches the user as one diagnostic on stderr, in the
+// form "FILE:LINE:COLUMN: error: MESSAGE" (or "FILE: error:" when there is no line), with exit
+// code 2 and nothing on stdout (docs/commands.md, "Exit codes"). A few representative cases
+// per class; the model stage's own tests pin every message of the language.
+#include <gtest/gtest.h>
+
+#include <string>
+
+#include "cli/program_runner.hpp"
+
+namespace wirefield::cli_test {
+namespace {
+
+// A model that solves; the cases below break one line of it.
+const std::string kGoodModel =
+    "units m\n"
+    "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+    "feed src at dip@50%\n"
+    "frequency 14.2MHz\n";
+
+void ExpectBadInput(const ProgramRun& run, const std::string& expected_err) {
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2) << Describe(run);
+  EXPECT_EQ(run.out, "");
+  EXPECT_EQ(run.err, expected_err);
+}
+
+TEST(InputErrors, UnknownStatementNamesItsLineAndColumn) {
+  const std::string path = WriteScratchFile("unknown_statement.wire", kGoodModel + "antenna x\n");
+  ExpectBadInput(RunWirefield({"solve", path}),
+                 path +
+                     ":5:1: error: unknown statement 'antenna'; statements are units, let, "
+                     "wire, feed, load, ground, frequency, z0\n");
+}
+
+TEST(InputErrors, MisspelledStatementSuggestsTheKeyword) {
+  const std::string path = WriteScratchFile("misspelled.wire", kGoodModel + "grond free\n");
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err.rfind(path + ":5:1: error: unknown statement 'grond'", 0), 0u) << run.err;
+  EXPECT_NE(run.err.find("ground"), std::string::npos) << run.err;
+}
+
+TEST(InputErrors, UnitOfTheWrongQuantityIsAnErrorAtTheNumber) {
+  const std::string path = WriteScratchFile("bad_unit.wire",
+                                            "units m\n"
+                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1MHz\n"
+                                            "feed src at dip@50%\n"
+                                            "frequency 14.2MHz\n");
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_EQ(run.err.rfind(path + ":2:48: error: ", 0), 0u) << run.err;
+}
+
+TEST(InputErrors, UnknownUnitIsAnError) {
+  const std::string path =
+      WriteScratchFile("unknown_unit.wire",
+                       "units m\n"
+                       "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1 furlong\n"
+                       "feed src at dip@50%\n"
+                       "frequency 14.2MHz\n");
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err.rfind(path + ":2:", 0), 0u) << run.err;
+  EXPECT_NE(run.err.find(": error: "), std::string::npos) << run.err;
+}
+
+TEST(InputErrors, FeedOnAnUnknownWireNamesTheWire) {
+  const std::string path = WriteScratchFile("unknown_wire.wire",
+                                            "units m\n"
+                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                                            "feed src at dipole@50%\n"
+                                            "frequency 14.2MHz\n");
+  ExpectBadInput(RunWirefield({"solve", path}),
+                 path +
+                     ":3:13: error: feed 'src': unknown wire 'dipole'; a wire must be "
+                     "defined on an earlier line\n");
+}
+
+TEST(InputErrors, MissingFileNamesThePath) {
+  const std::string path = ModelsDir() + "/no_such_model.wire";
+  ExpectBadInput(RunWirefield({"solve", path}),
+                 path + ": error: cannot read the model file: No such file or directory\n");
+}
+
+TEST(InputErrors, ModelWithoutAFeedSaysWhatToAdd) {
+  const std::string path = WriteScratchFile("no_feed.wire",
+                                            "units m\n"
+                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                                            "frequency 14.2MHz\n");
+  ExpectBadInput(RunWirefield({"solve", path}),
+                 path + ":4:1: error: the model has no feed; add 'feed NAME at WIRE@POS'\n");
+}
+
+TEST(InputErrors, ModelWithoutAFrequencyAsksForOne) {
+  const std::string path = WriteScratchFile("no_frequency.wire",
+                                            "units m\n"
+                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                                            "feed src at dip@50%\n");
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err.rfind(path + ": error: ", 0), 0u) << run.err;
+  EXPECT_NE(run.err.find("--freq"), std::string::npos) << run.err;
+  EXPECT_NE(run.err.find("frequency"), std::string::npos) << run.err;
+}
+
+TEST(InputErrors, FrequencyOptionOfTheWrongQuantityIsAnError) {
+  const std::string path = WriteScratchFile("good_for_freq.wire", kGoodModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--freq", "14.2mm"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_EQ(run.err.rfind("--freq:1:1: error: --freq needs ", 0), 0u) << run.err;
+}
+
+TEST(InputErrors, NegativeFrequencyOptionIsAnError) {
+  const std::string path = WriteScratchFile("good_for_negative.wire", kGoodModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--freq=-14MHz"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err.rfind("--freq:1:1: error: --freq must be positive", 0), 0u) << run.err;
+}
+
+TEST(InputErrors, ResistanceOptionMustBeAResistance) {
+  const std::string path = WriteScratchFile("good_for_z0.wire", kGoodModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--z0", "50uH"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err.rfind("--z0:1:1: error: --z0 needs ", 0), 0u) << run.err;
+}
+
+TEST(InputErrors, SetWithoutEqualsSignShowsTheForm) {
+  const std::string path = WriteScratchFile("good_for_set.wire", kGoodModel);
+  ExpectBadInput(RunWirefield({"solve", path, "--set", "height"}),
+                 "--set: error: expected NAME=VALUE (such as --set height=10m); got 'height'\n");
+}
+
+TEST(InputErrors, SetOfAnUnknownVariableListsTheModelsVariables) {
+  const std::string path =
+      WriteScratchFile("with_let.wire",
+                       "units m\n"
+                       "let height = 10\n"
+                       "wire dip from (-5, 0, height) to (5, 0, height) radius 1mm\n"
+                       "feed src at dip@50%\n"
+                       "frequency 14.2MHz\n");
+  ExpectBadInput(RunWirefield({"solve", path, "--set", "hieght=8m"}),
+                 "--set hieght: error: the model has no variable 'hieght' (its variables: "
+                 "height)\n");
+}
+
+TEST(InputErrors, UnknownOptionIsAnErrorWithExitTwo) {
+  const std::string path = WriteScratchFile("good_for_option.wire", kGoodModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--zo", "50"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_EQ(run.err.rfind("wirefield: error: ", 0), 0u) << run.err;
+  EXPECT_NE(run.err.find("--zo"), std::string::npos) << run.err;
+}
+
+}  // namespace
+}  // namespace wirefield::cli_test

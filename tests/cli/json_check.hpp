@@ -1,0 +1,18 @@
+// CLI tests: checks that a `solve --json` document has the keys and types of the contract
+// (docs/commands.md) and only finite numbers. Input: parsed JSON; output: gtest failures.
+#pragma once
+
+#include <nlohmann/json.hpp>
+#include <string>
+
+namespace wirefield::cli_test {
+
+// Adds a gtest failure for each contract key of `solve --json` that is missing or of the
+// wrong type, and for every number in the document that is not finite.
+void ExpectSolveJsonContract(const nlohmann::json& doc, const std::string& context);
+
+// Adds a gtest failure for each null or non-finite number anywhere in `value`, except the
+// z_ohm of a load marked "open": true.
+void ExpectAllNumbersFinite(const nlohmann::json& value, const std::string& path);
+
+}  // namespace wirefield::cli_test

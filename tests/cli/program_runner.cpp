@@ -1,0 +1,122 @@
+// CLI tests: fork/exec of the wirefield program with stdout and stderr sent to scratch files
+// (no pipes, so a large output can never dead-lock the test), a time limit armed with alarm()
+// in the child so that a hang shows up as SIGALRM instead of stalling the suite, and an
+// address-space limit so that a runaway allocation fails fast instead of swapping the machine.
+#include "cli/program_runner.hpp"
+
+#include <fcntl.h>
+#include <signal.h>
+#include <sys/resource.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <cerrno>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <stdexcept>
+
+namespace wirefield::cli_test {
+
+namespace {
+
+// A folder for this test process, removed when the process ends.
+class ScratchFolder {
+ public:
+  ScratchFolder()
+      : path_(std::filesystem::temp_directory_path() /
+              ("wirefield_cli_tests_" + std::to_string(::getpid()))) {
+    std::filesystem::create_directories(path_);
+  }
+  ~ScratchFolder() {
+    std::error_code ignored;
+    std::filesystem::remove_all(path_, ignored);
+  }
+  ScratchFolder(const ScratchFolder&) = delete;
+  ScratchFolder& operator=(const ScratchFolder&) = delete;
+  const std::filesystem::path& path() const { return path_; }
+
+ private:
+  std::filesystem::path path_;
+};
+
+const std::filesystem::path& ScratchDir() {
+  static const ScratchFolder folder;
+  return folder.path();
+}
+
+}  // namespace
+
+std::string ReadFile(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+std::string WriteScratchFile(const std::string& name, const std::string& text) {
+  const std::filesystem::path path = ScratchDir() / name;
+  std::ofstream out(path, std::ios::binary | std::ios::trunc);
+  out << text;
+  out.close();
+  if (!out) throw std::runtime_error("cannot write scratch file " + path.string());
+  return path.string();
+}
+
+std::string ModelsDir() { return std::string(WIREFIELD_SOURCE_DIR) + "/models"; }
+
+ProgramRun RunWirefield(const std::vector<std::string>& args) {
+  static int run_count = 0;
+  ++run_count;
+  const std::string out_path =
+      (ScratchDir() / ("run" + std::to_string(run_count) + ".out")).string();
+  const std::string err_path =
+      (ScratchDir() / ("run" + std::to_string(run_count) + ".err")).string();
+
+  std::vector<std::string> argv_text;
+  argv_text.emplace_back(WIREFIELD_BINARY);
+  argv_text.insert(argv_text.end(), args.begin(), args.end());
+  std::vector<char*> argv;
+  for (std::string& a : argv_text) argv.push_back(a.data());
+  argv.push_back(nullptr);
+
+  const pid_t pid = ::fork();
+  if (pid < 0) throw std::runtime_error("fork failed");
+  if (pid == 0) {
+    const int out_fd = ::open(out_path.c_str(), O_WRONLY | O_CREAT | O_TRUNC, 0600);
+    const int err_fd = ::open(err_path.c_str(), O_WRONLY | O_CREAT | O_TRUNC, 0600);
+    const int in_fd = ::open("/dev/null", O_RDONLY);
+    if (out_fd < 0 || err_fd < 0 || in_fd < 0) ::_exit(127);
+    ::dup2(in_fd, 0);
+    ::dup2(out_fd, 1);
+    ::dup2(err_fd, 2);
+    const rlimit memory{kRunMemoryLimit_bytes, kRunMemoryLimit_bytes};
+    ::setrlimit(RLIMIT_AS, &memory);
+    ::alarm(kRunTimeLimit_s);
+    ::execv(argv[0], argv.data());
+    ::_exit(127);
+  }
+  int status = 0;
+  while (::waitpid(pid, &status, 0) < 0) {
+    if (errno != EINTR) throw std::runtime_error("waitpid failed");
+  }
+  ProgramRun run;
+  run.exited = WIFEXITED(status);
+  if (run.exited) run.exit_code = WEXITSTATUS(status);
+  if (WIFSIGNALED(status)) run.signal = WTERMSIG(status);
+  run.out = ReadFile(out_path);
+  run.err = ReadFile(err_path);
+  std::filesystem::remove(out_path);
+  std::filesystem::remove(err_path);
+  return run;
+}
+
+std::string Describe(const ProgramRun& run) {
+  std::string text =
+      run.exited ? "exit " + std::to_string(run.exit_code) : "signal " + std::to_string(run.signal);
+  return text + "; stdout: [" + run.out.substr(0, 400) + "] stderr: [" + run.err.substr(0, 400) +
+         "]";
+}
+
+}  // namespace wirefield::cli_test

@@ -1,0 +1,49 @@
+// CLI tests: runs the built wirefield program as a user would and captures what it did.
+// Input: arguments (and files written to a scratch folder); output: exit code or the signal
+// that ended it, and everything written to stdout and stderr.
+#pragma once
+
+#include <sys/resource.h>
+
+#include <string>
+#include <vector>
+
+namespace wirefield::cli_test {
+
+struct ProgramRun {
+  bool exited = false;  // false: ended by a signal (a crash, an abort or the time limit)
+  int exit_code = -1;   // valid when exited
+  int signal = 0;       // valid when !exited
+  std::string out;      // stdout
+  std::string err;      // stderr
+};
+
+// Seconds a single run may take before it is killed and counted as a hang. The bundled
+// models solve in well under a second; the slowest absurd input measured (frequency 1e300 Hz,
+// meshed to the mesher's cap of 2500 segments) takes about 33 s here, so 120 s leaves room
+// for a slow, loaded CI machine.
+inline constexpr unsigned kRunTimeLimit_s = 120;
+
+// Address space a single run may use. The bundled models need a few MiB; 4 GiB lets the
+// largest matrix the CLI tests ask for (none above 100 MiB) fit many times over, and keeps a
+// runaway allocation from taking the whole 24 GiB machine. Past it, new throws bad_alloc,
+// which the program must report with exit code 1.
+inline constexpr rlim_t kRunMemoryLimit_bytes = rlim_t{4} << 30;
+
+// Runs WIREFIELD_BINARY with the given arguments (no shell involved).
+ProgramRun RunWirefield(const std::vector<std::string>& args);
+
+// Writes `text` to a file of that name in a scratch folder for this test process and
+// returns its path.
+std::string WriteScratchFile(const std::string& name, const std::string& text);
+
+// The repository's models/ folder.
+std::string ModelsDir();
+
+// Reads a whole file (empty when it cannot be read).
+std::string ReadFile(const std::string& path);
+
+// "exit 2" or "signal 11", for failure messages.
+std::string Describe(const ProgramRun& run);
+
+}  // namespace wirefield::cli_test

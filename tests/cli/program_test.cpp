@@ -1,0 +1,107 @@
+// CLI tests: the program's own surface: --version, --help, unknown options and missing
+// commands, and the exit codes of docs/commands.md (0 done, 2 bad input, 1 failed run).
+// Runs the built binary; checks exit codes and the exact text users see.
+#include <gtest/gtest.h>
+
+#include <regex>
+
+#include "cli/program_runner.hpp"
+
+namespace wirefield::cli_test {
+namespace {
+
+TEST(Program, VersionPrintsOneLineAndExitsZero) {
+  const ProgramRun run = RunWirefield({"--version"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 0);
+  EXPECT_EQ(run.out, "wirefield 0.1.0\n");  // CMakeLists.txt: project(wirefield VERSION 0.1.0)
+  EXPECT_EQ(run.err, "");
+}
+
+TEST(Program, HelpExitsZeroAndListsTheSolveCommand) {
+  const ProgramRun run = RunWirefield({"--help"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 0);
+  EXPECT_NE(run.out.find("solve"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("Exit codes: 0 done; 1 the computation failed; 2 the input or an "
+                         "option is wrong."),
+            std::string::npos)
+      << run.out;
+}
+
+TEST(Program, SolveHelpDescribesEveryOptionWithItsDefault) {
+  const ProgramRun run = RunWirefield({"solve", "--help"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 0);
+  for (const char* option : {"--freq", "--set", "--z0", "--json"}) {
+    EXPECT_NE(run.out.find(option), std::string::npos) << option << " missing in\n" << run.out;
+  }
+  EXPECT_NE(run.out.find("Default: the model's `frequency` statement."), std::string::npos);
+  EXPECT_NE(run.out.find("Default: the model's `z0`, else 50 ohm."), std::string::npos);
+}
+
+TEST(Program, NoCommandIsABadInputWithAHint) {
+  const ProgramRun run = RunWirefield({});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_NE(run.err.find("Run `wirefield --help` to see the options."), std::string::npos)
+      << run.err;
+}
+
+TEST(Program, UnknownOptionExitsTwoNotTheParserLibraryCode) {
+  const ProgramRun run =
+      RunWirefield({"solve", ModelsDir() + "/hiking_club_dipole.wire", "--frequency", "14MHz"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_TRUE(std::regex_search(run.err, std::regex("^wirefield: error: .*--frequency")))
+      << run.err;
+  EXPECT_NE(run.err.find("Run `wirefield solve --help` to see the options."), std::string::npos)
+      << run.err;
+}
+
+TEST(Program, UnknownCommandExitsTwo) {
+  const ProgramRun run = RunWirefield({"polish", "model.wire"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.out, "");
+  EXPECT_NE(run.err.find("wirefield: error: "), std::string::npos) << run.err;
+}
+
+TEST(Program, SolveWithoutAModelExitsTwo) {
+  const ProgramRun run = RunWirefield({"solve"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_NE(run.err.find("MODEL"), std::string::npos) << run.err;
+}
+
+TEST(Program, FailedComputationExitsOneWithAComputationMessage) {
+  // Well-formed input whose numbers overflow the solve: a series load of 1e308 ohm (the
+  // largest double is about 1.8e308, IEEE 754) makes the matrix non-finite.
+  const std::string path = WriteScratchFile("overflowing_load.wire",
+                                            "wire w from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                                            "feed f at w@50%\n"
+                                            "load l at w@25% series R=1e308\n"
+                                            "frequency 14.2MHz\n");
+  const ProgramRun run = RunWirefield({"solve", path, "--json"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 1) << Describe(run);
+  EXPECT_EQ(run.out, "");
+  EXPECT_EQ(run.err.rfind("wirefield: computation failed: ", 0), 0u) << run.err;
+}
+
+TEST(Program, SolvingTheDemoModelExitsZeroWithAReport) {
+  const ProgramRun run = RunWirefield({"solve", ModelsDir() + "/hiking_club_dipole.wire"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 0) << Describe(run);
+  EXPECT_NE(run.out.find("frequency       14.200000 MHz"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("R (ohm)"), std::string::npos) << run.out;
+  // The safety note of the project rules: high voltage, exposure, power lines, local rules.
+  EXPECT_NE(run.out.find("Caution:"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("power lines"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("follow local rules and licensed practice"), std::string::npos) << run.out;
+}
+
+}  // namespace
+}  // namespace wirefield::cli_test

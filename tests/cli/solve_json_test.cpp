@@ -1,0 +1,148 @@
+// CLI tests: `wirefield solve --json`: one JSON document on stdout and nothing else, with the
+// contract's keys; the SWR reference (--z0 over the model's z0 over 50 ohm); and the physics
+// of a half-wave dipole, loosely, through the whole program.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <complex>
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "cli/json_check.hpp"
+#include "cli/program_runner.hpp"
+
+namespace wirefield::cli_test {
+namespace {
+
+// c = 299 792 458 m/s exactly (SI definition of the metre).
+constexpr double kSpeedOfLight_m_per_s = 299792458.0;
+
+nlohmann::json SolveJson(const std::vector<std::string>& args) {
+  const ProgramRun run = RunWirefield(args);
+  EXPECT_TRUE(run.exited && run.exit_code == 0) << Describe(run);
+  nlohmann::json doc;
+  EXPECT_NO_THROW(doc = nlohmann::json::parse(run.out)) << run.out;
+  return doc;
+}
+
+// SWR from the reflection coefficient: G = (Z - Z0)/(Z + Z0), SWR = (1 + |G|)/(1 - |G|)
+// (standard transmission-line relations; REFERENCES.md §5, "Reflection, SWR").
+double SwrFromImpedance(std::complex<double> z_ohm, double z0_ohm) {
+  const double gamma = std::abs((z_ohm - z0_ohm) / (z_ohm + z0_ohm));
+  return (1.0 + gamma) / (1.0 - gamma);
+}
+
+std::complex<double> FirstFeedImpedance(const nlohmann::json& doc) {
+  const auto& z = doc["feeds"][0]["z_ohm"];
+  return {z[0].get<double>(), z[1].get<double>()};
+}
+
+// The relative agreement asked of SWR recomputed from the printed impedance: the JSON keeps
+// 15+ significant digits, so only rounding remains.
+constexpr double kSwrRelativeTolerance = 1e-9;
+
+const std::string kDipoleModel =
+    "units m\n"
+    "let height = 10\n"
+    "wire dip from (-5, 0, height) to (5, 0, height) radius 1mm\n"
+    "feed src at dip@50%\n"
+    "frequency 14.2MHz\n";
+
+TEST(SolveJson, StdoutIsExactlyOneDocumentWithTheContractKeys) {
+  const std::string path = WriteScratchFile("json_dipole.wire", kDipoleModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--json"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  ASSERT_EQ(run.exit_code, 0) << Describe(run);
+  nlohmann::json doc;
+  ASSERT_NO_THROW(doc = nlohmann::json::parse(run.out)) << run.out;  // throws on trailing text
+  ExpectSolveJsonContract(doc, path);
+  EXPECT_DOUBLE_EQ(doc["frequency_hz"].get<double>(), 14.2e6);
+  EXPECT_EQ(doc["feeds"][0]["name"], "src");
+  EXPECT_DOUBLE_EQ(doc["feeds"][0]["z0_ohm"].get<double>(), 50.0);
+  // Added keys documented in docs/commands.md.
+  EXPECT_TRUE(doc["segments"].is_number_integer());
+  EXPECT_TRUE(doc["loads"].is_array());
+  EXPECT_TRUE(doc["warnings"].is_array());
+}
+
+TEST(SolveJson, FreqOptionOverridesTheModelsFrequency) {
+  const std::string path = WriteScratchFile("json_freq.wire", kDipoleModel);
+  const nlohmann::json doc = SolveJson({"solve", path, "--freq", "14.05 MHz", "--json"});
+  EXPECT_DOUBLE_EQ(doc["frequency_hz"].get<double>(), 14.05e6);
+}
+
+TEST(SolveJson, SetOverridesALetOfTheModel) {
+  const std::string path = WriteScratchFile("json_set.wire", kDipoleModel);
+  const nlohmann::json low = SolveJson({"solve", path, "--set", "height=3m", "--json"});
+  const nlohmann::json high = SolveJson({"solve", path, "--json"});
+  // In free space the height of the wire does not matter: translation invariance.
+  const double tolerance_ohm = 1e-6;  // only rounding differs between the two runs
+  EXPECT_NEAR(FirstFeedImpedance(low).real(), FirstFeedImpedance(high).real(), tolerance_ohm);
+  EXPECT_NEAR(FirstFeedImpedance(low).imag(), FirstFeedImpedance(high).imag(), tolerance_ohm);
+}
+
+TEST(SolveJson, SwrIsAgainstFiftyOhmByDefault) {
+  const std::string path = WriteScratchFile("json_swr50.wire", kDipoleModel);
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  const double expected = SwrFromImpedance(FirstFeedImpedance(doc), 50.0);
+  EXPECT_NEAR(doc["feeds"][0]["swr"].get<double>(), expected, kSwrRelativeTolerance * expected);
+}
+
+TEST(SolveJson, ModelZ0SetsTheSwrReference) {
+  const std::string path = WriteScratchFile("json_swr_model.wire", kDipoleModel + "z0 75ohm\n");
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  EXPECT_DOUBLE_EQ(doc["feeds"][0]["z0_ohm"].get<double>(), 75.0);
+  const double expected = SwrFromImpedance(FirstFeedImpedance(doc), 75.0);
+  EXPECT_NEAR(doc["feeds"][0]["swr"].get<double>(), expected, kSwrRelativeTolerance * expected);
+}
+
+TEST(SolveJson, Z0OptionWinsOverTheModelsZ0) {
+  const std::string path = WriteScratchFile("json_swr_flag.wire", kDipoleModel + "z0 75ohm\n");
+  const nlohmann::json doc = SolveJson({"solve", path, "--z0", "2.45kohm", "--json"});
+  EXPECT_DOUBLE_EQ(doc["feeds"][0]["z0_ohm"].get<double>(), 2450.0);
+  const double expected = SwrFromImpedance(FirstFeedImpedance(doc), 2450.0);
+  EXPECT_NEAR(doc["feeds"][0]["swr"].get<double>(), expected, kSwrRelativeTolerance * expected);
+}
+
+TEST(SolveJson, HalfWaveDipoleFeedResistanceIsNearSeventyOhm) {
+  // A 0.49-wavelength dipole of radius 1e-4 wavelength in free space at 14.2 MHz.
+  const double wavelength_m = kSpeedOfLight_m_per_s / 14.2e6;
+  const std::string model =
+      "units m\n"
+      "let lambda = " +
+      std::to_string(wavelength_m) +
+      "\n"
+      "wire dip from (-0.245 * lambda, 0, 0) to (0.245 * lambda, 0, 0) radius 1e-4 * lambda\n"
+      "feed src at dip@50%\n"
+      "frequency 14.2MHz\n";
+  const std::string path = WriteScratchFile("json_half_wave.wire", model);
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  ExpectSolveJsonContract(doc, path);
+  // REFERENCES.md §1: a thin dipole resonates at about 0.47-0.49 lambda with R approx
+  // 65-73 ohm (from memory); the exact figure is checked in tests/validation. Kept loose here
+  // (60..80 ohm): this test checks that the program carries the solver's answer through.
+  const double r_ohm = FirstFeedImpedance(doc).real();
+  EXPECT_GT(r_ohm, 60.0);
+  EXPECT_LT(r_ohm, 80.0);
+  // Power balance of the source (standard circuit theory): P = 0.5 Re(V I*) with V = 1 V.
+  const auto& i = doc["feeds"][0]["current_a"];
+  const double power_w = 0.5 * i[0].get<double>();
+  EXPECT_NEAR(doc["feeds"][0]["power_w"].get<double>(), power_w, 1e-9 * std::abs(power_w));
+}
+
+TEST(SolveJson, TextReportShowsTheSameImpedanceAsTheJson) {
+  const std::string path = WriteScratchFile("text_dipole.wire", kDipoleModel);
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  const ProgramRun text = RunWirefield({"solve", path});
+  ASSERT_TRUE(text.exited && text.exit_code == 0) << Describe(text);
+  // The table prints R with about five significant digits: recompute the same rounding.
+  const double r_ohm = FirstFeedImpedance(doc).real();
+  char expected[64];
+  std::snprintf(expected, sizeof expected, "%.3f", r_ohm);  // R of 10..99 ohm: 3 decimals
+  ASSERT_GT(r_ohm, 10.0);
+  ASSERT_LT(r_ohm, 100.0);
+  EXPECT_NE(text.out.find(expected), std::string::npos) << expected << " not in\n" << text.out;
+}
+
+}  // namespace
+}  // namespace wirefield::cli_test
