@@ -14,6 +14,10 @@ namespace wirefield::model {
 namespace {
 
 // Results of one or two floating-point operations: 4 ulp (EXPECT_DOUBLE_EQ) unless stated.
+// A chain of a few multiplications and divisions rounds by a few parts in 1e16; the relative
+// bound 1e-12 leaves room for that (and for a different order of evaluation) and still
+// catches any wrong factor or prefix, which would be off by 1e-3 or more.
+constexpr double kChainRelative = 1e-12;
 Value Eval(const std::string& text, Scope* scope = nullptr) {
   Scope local;
   Scope& s = scope != nullptr ? *scope : local;
@@ -108,7 +112,7 @@ TEST(Expression, InductiveReactanceIsAResistance) {
   // (computed here: 2 * 3.14159265358979 * 1.4e7 * 1e-5).
   const Value x = Eval("2*pi*14MHz*10uH");
   EXPECT_EQ(x.dimension, kResistance);
-  EXPECT_NEAR(x.si, 879.6459430051421, 1e-9);  // a few multiplications: rounding < 1e-12
+  EXPECT_NEAR(x.si, 879.6459430051421, 879.6459430051421 * kChainRelative);
 }
 
 TEST(Expression, CapacitiveReactanceIsAResistance) {
@@ -116,7 +120,8 @@ TEST(Expression, CapacitiveReactanceIsAResistance) {
   // 112.0815 ohm (computed here).
   const Value x = Eval("1/(2*pi*14.2MHz*100pF)");
   EXPECT_EQ(x.dimension, kResistance);
-  EXPECT_NEAR(x.si, 1.0 / (2 * std::numbers::pi * 14.2e6 * 100e-12), 1e-9);
+  const double expected_ohm = 1.0 / (2 * std::numbers::pi * 14.2e6 * 100e-12);
+  EXPECT_NEAR(x.si, expected_ohm, expected_ohm * kChainRelative);
 }
 
 TEST(Expression, SqrtHalvesEvenExponents) {
@@ -124,7 +129,8 @@ TEST(Expression, SqrtHalvesEvenExponents) {
   // 5.0329 MHz (computed here).
   const Value f = Eval("1/(2*pi*sqrt(10uH*100pF))");
   EXPECT_EQ(f.dimension, kFrequency);
-  EXPECT_NEAR(f.si, 1.0 / (2 * std::numbers::pi * std::sqrt(1e-5 * 1e-10)), 1e-6);
+  const double expected_hz = 1.0 / (2 * std::numbers::pi * std::sqrt(1e-5 * 1e-10));
+  EXPECT_NEAR(f.si, expected_hz, expected_hz * kChainRelative);
   EXPECT_EQ(Eval("sqrt(4m*9m)").dimension, kLength);
   EXPECT_DOUBLE_EQ(Number("sqrt(4m*9m)"), 6.0);
 }

@@ -6,6 +6,7 @@
 #include <cmath>
 #include <cstdio>
 #include <fstream>
+#include <numbers>
 #include <string>
 
 #include "wirefield/model.hpp"
@@ -32,6 +33,9 @@ std::string ErrorOf(const std::string& text, const std::vector<Override>& overri
 }
 
 // Unit conversions are one multiplication of an exact-decimal factor: 4 ulp (EXPECT_DOUBLE_EQ).
+// Values computed through a short expression chain: relative 1e-12, room for a few roundings
+// of 1e-16 each, far below any wrong factor (1e-3 or more).
+constexpr double kChainRelative = 1e-12;
 
 TEST(ParseWire, EndsRadiusAndSegmentsAreStoredInMetres) {
   const Model m = Parse(kKit + "wire top from (0, 0, 0) to (0, 0, 7.5) radius 1.5mm segments 31\n");
@@ -104,7 +108,8 @@ TEST(ParseLet, HalfWaveFromFrequencyGivesMetres) {
       "wire dip from (-half/2, 0, 10) to (half/2, 0, 10) radius 1mm\n"
       "feed src at dip@50%\n"
       "frequency f\n");
-  EXPECT_NEAR(m.wires[0].to_m[0] - m.wires[0].from_m[0], 299792458.0 / 14.2e6 / 2, 1e-12);
+  const double half_wave_m = 299792458.0 / 14.2e6 / 2;
+  EXPECT_NEAR(m.wires[0].to_m[0] - m.wires[0].from_m[0], half_wave_m, half_wave_m * kChainRelative);
   EXPECT_DOUBLE_EQ(*m.frequency_hz, 14.2e6);
 }
 
@@ -176,7 +181,8 @@ TEST(ParseLoad, SeriesAndParallelElementsInSiUnits) {
 TEST(ParseLoad, ReactanceExpressionIsAcceptedAsR) {
   // 2 pi f L at 7.1 MHz and 1 uH: 44.61 ohm (textbook reactance formula, computed here).
   const Model m = Parse(kKit + "load x at dip@30% series R=2*pi*7.1MHz*1uH\n");
-  EXPECT_NEAR(*m.loads[0].resistance_ohm, 2 * M_PI * 7.1e6 * 1e-6, 1e-12);
+  const double reactance_ohm = 2 * std::numbers::pi * 7.1e6 * 1e-6;
+  EXPECT_NEAR(*m.loads[0].resistance_ohm, reactance_ohm, reactance_ohm * kChainRelative);
 }
 
 TEST(ParseGround, FreePerfectAndRealAreRecognised) {
