@@ -22,6 +22,14 @@ struct PieceRef {
 constexpr double kOpenRelativeAdmittance = 1e-12;
 constexpr double kOpenStandInOhm = 1e12;
 
+// A segment's interaction with itself (or its own image) is symmetric in t and t'; the
+// quadrature is not exactly, so average the two mixed moments to keep Z = Z^T to rounding.
+void Symmetrize(PairMoments* m) {
+  const Complex mixed = 0.5 * (m->m10 + m->m01);
+  m->m10 = mixed;
+  m->m01 = mixed;
+}
+
 }  // namespace
 
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
@@ -107,14 +115,16 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
       const geometry::Segment& sj = mesh.segments[j];
       const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
       const double cos_ij = unit[i].dot(unit[j]);
-      const PairMoments m = SegmentPairMoments(si.start, si.end, sj.start, sj.end, radius2, k);
+      PairMoments m = SegmentPairMoments(si.start, si.end, sj.start, sj.end, radius2, k);
+      if (j == i) Symmetrize(&m);
       scatter(i, j, m, cos_ij, 1.0);
       if (j != i) scatter(j, i, transpose(m), cos_ij, 1.0);
       if (mesh.ground_images) {
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
         const double cos_img = unit[i].dot(unit[j].cwiseProduct(mirror));
-        const PairMoments mi = SegmentPairMoments(si.start, si.end, img0, img1, radius2, k);
+        PairMoments mi = SegmentPairMoments(si.start, si.end, img0, img1, radius2, k);
+        if (j == i) Symmetrize(&mi);
         scatter(i, j, mi, cos_img, -1.0);
         if (j != i) scatter(j, i, transpose(mi), cos_img, -1.0);
       }

@@ -1,0 +1,168 @@
+// Unit tests of the geometry stage: node placement at feeds and loads, joints and their
+// bases, ground connections, automatic segment counts, geometry errors and warnings.
+#include "geometry/mesh.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "validation/test_models.hpp"
+
+namespace wirefield::geometry {
+namespace {
+
+using wirefield::testing::Feed;
+using wirefield::testing::Wire;
+
+MeshOptions Options(double frequency_hz = 14.2e6) {
+  MeshOptions o;
+  o.max_frequency_hz = frequency_hz;
+  return o;
+}
+
+Model OneWire(int segments, PointKind kind, double value) {
+  Model m;
+  m.file = "t.wire";
+  m.wires.push_back(Wire("w", {0, 0, 5}, {10, 0, 5}, 1e-3, segments));
+  m.feeds.push_back(Feed("f", "w", kind, value));
+  return m;
+}
+
+bool HasNodeAtX(const Mesh& mesh, double x) {
+  for (const Segment& s : mesh.segments) {
+    if (std::abs(s.end.x() - x) < 1e-12) return true;
+  }
+  return false;
+}
+
+TEST(WirePoint, PercentOfLengthLandsOnANode) {
+  const Mesh mesh = BuildMesh(OneWire(10, PointKind::kPercent, 37.0), Options());
+  EXPECT_TRUE(HasNodeAtX(mesh, 3.7));
+  EXPECT_EQ(mesh.wires[0].segments_used, 10);
+}
+
+TEST(WirePoint, DistanceAlongTheWireLandsOnANode) {
+  const Mesh mesh = BuildMesh(OneWire(7, PointKind::kDistance, 2.345), Options());
+  EXPECT_TRUE(HasNodeAtX(mesh, 2.345));
+}
+
+TEST(WirePoint, FeedNodeHasOneBasisWithCurrentAlongTheWire) {
+  const Mesh mesh = BuildMesh(OneWire(10, PointKind::kPercent, 50.0), Options());
+  ASSERT_EQ(mesh.feed_ports.size(), 1u);
+  ASSERT_EQ(mesh.feed_ports[0].bases.size(), 1u);
+  EXPECT_EQ(mesh.feed_ports[0].bases[0].second, 1.0);
+  EXPECT_EQ(mesh.bases.size(), 9u) << "a free wire of n segments has n - 1 bases";
+}
+
+TEST(Mesher, ChoosesSegmentsForTheFrequencyWhenTheModelGivesNone) {
+  // 10 m at 14.2 MHz is 0.474 wavelength: 80 per wavelength asks for ceil(37.9) = 38.
+  const Mesh mesh = BuildMesh(OneWire(0, PointKind::kPercent, 50.0), Options());
+  EXPECT_EQ(mesh.wires[0].segments_given, 0);
+  EXPECT_EQ(mesh.wires[0].segments_used, 38);
+}
+
+TEST(Joint, ThreeWiresMeetingMakeTwoBasesThroughTheFirst) {
+  Model m;
+  m.file = "t.wire";
+  m.wires.push_back(Wire("a", {0, 0, 5}, {1, 0, 5}, 1e-3, 4));
+  m.wires.push_back(Wire("b", {1, 0, 5}, {2, 0, 5}, 1e-3, 4));
+  m.wires.push_back(Wire("c", {1, 0, 5}, {1, 0, 6}, 1e-3, 4));
+  m.feeds.push_back(Feed("f", "a", PointKind::kEnd, 0.0));
+  const Mesh mesh = BuildMesh(m, Options());
+  EXPECT_EQ(mesh.bases.size(), 3u * 3u + 2u);
+  // The feed at a@end passes through both joint bases.
+  EXPECT_EQ(mesh.feed_ports[0].bases.size(), 2u);
+}
+
+TEST(Ground, WireEndOnPerfectGroundGetsAHalfBasis) {
+  Model m;
+  m.file = "t.wire";
+  m.wires.push_back(Wire("mast", {0, 0, 0}, {0, 0, 5}, 1e-3, 5));
+  m.feeds.push_back(Feed("base", "mast", PointKind::kStart, 0.0));
+  m.ground.kind = GroundKind::kPerfect;
+  const Mesh mesh = BuildMesh(m, Options());
+  EXPECT_EQ(mesh.bases.size(), 5u);
+  EXPECT_TRUE(mesh.ground_images);
+  ASSERT_EQ(mesh.feed_ports[0].bases.size(), 1u);
+  EXPECT_EQ(mesh.bases[mesh.feed_ports[0].bases[0].first].piece_count, 1);
+}
+
+TEST(GeometryError, FeedAtAFreeEndSaysThereIsNothingToConnect) {
+  Model m = OneWire(10, PointKind::kEnd, 0.0);
+  m.feeds[0].location = {"t.wire", 3, 1};
+  try {
+    BuildMesh(m, Options());
+    FAIL() << "expected an InputError";
+  } catch (const InputError& e) {
+    EXPECT_STREQ(e.what(),
+                 "t.wire:3:1: error: feed 'f' is at the free end of wire 'w', where nothing is "
+                 "connected: move it inside the wire (for example w@50%) or join another wire "
+                 "there");
+  }
+}
+
+TEST(GeometryError, ModelTooLargeForMemoryIsRefusedWithTheFigure) {
+  MeshOptions o = Options();
+  o.max_matrix_bytes = 1e6;  // 1 MB: 250 unknowns need exactly 1e6 bytes, 300 more
+  try {
+    BuildMesh(OneWire(300, PointKind::kPercent, 50.0), o);
+    FAIL() << "expected an InputError";
+  } catch (const InputError& e) {
+    EXPECT_NE(std::string(e.what()).find("about 300 unknowns; the matrix would take 0.00 GiB"),
+              std::string::npos)
+        << e.what();
+  }
+}
+
+TEST(GeometryError, RadiusThickAgainstTheWavelengthIsRefused) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].radius_m = 0.5;
+  EXPECT_THROW(BuildMesh(m, Options(300e6)), InputError);  // k a = 3.1 at 1 m wavelength
+}
+
+bool Warns(const Mesh& mesh, const std::string& text) {
+  for (const Warning& w : mesh.warnings) {
+    if (w.message.find(text) != std::string::npos) return true;
+  }
+  return false;
+}
+
+TEST(GeometryWarning, SegmentsShorterThanFourRadiiAreFlagged) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].radius_m = 0.3;  // 1 m segments, 3.3 radii
+  EXPECT_TRUE(Warns(BuildMesh(m, Options(3e6)), "less than 4 radii"));
+}
+
+TEST(GeometryWarning, SegmentsLongerThanATenthWavelengthAreFlagged) {
+  // 10 m in 3 segments at 14.2 MHz: 3.33 m = 0.158 wavelength.
+  EXPECT_TRUE(
+      Warns(BuildMesh(OneWire(3, PointKind::kPercent, 50.0), Options()), "wavelength long"));
+}
+
+TEST(GeometryWarning, WiresCrossingWithoutAJointAreFlagged) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires.push_back(Wire("x", {5, -1, 5}, {5, 1, 5}, 1e-3, 4));
+  EXPECT_TRUE(Warns(BuildMesh(m, Options()), "cross or touch"));
+}
+
+TEST(GeometryWarning, WireBelowTheGroundIsFlagged) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].to_m = {10, 0, -1};
+  m.ground.kind = GroundKind::kPerfect;
+  EXPECT_TRUE(Warns(BuildMesh(m, Options()), "below the ground"));
+}
+
+TEST(GeometryWarning, WireCloserToTheGroundThanItsRadiusIsFlagged) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].from_m = {0, 0, 0.0005};
+  m.wires[0].to_m = {10, 0, 0.0005};
+  m.ground.kind = GroundKind::kPerfect;
+  EXPECT_TRUE(Warns(BuildMesh(m, Options()), "closer to the ground than its radius"));
+}
+
+TEST(GeometryWarning, CleanModelHasNoWarnings) {
+  EXPECT_TRUE(BuildMesh(OneWire(40, PointKind::kPercent, 50.0), Options()).warnings.empty());
+}
+
+}  // namespace
+}  // namespace wirefield::geometry
