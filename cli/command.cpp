@@ -11,7 +11,8 @@ namespace wirefield::cli {
 
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
   command.add_option("MODEL", flags.model_path, "The model file to read (a .wire text file).")
-      ->required();
+      ->required()
+      ->type_name("FILE");
   if (with_frequency) {
     flags.frequency_option = command.add_option(
         "--freq", flags.frequency,
