@@ -130,6 +130,34 @@ TEST(SolveJson, HalfWaveDipoleFeedResistanceIsNearSeventyOhm) {
   EXPECT_NEAR(doc["feeds"][0]["power_w"].get<double>(), power_w, 1e-9 * std::abs(power_w));
 }
 
+TEST(SolveJson, TrapAtItsResonanceIsReportedOpenNotAsANumber) {
+  // An ideal parallel LC is an open circuit at f = 1/(2 pi sqrt(LC)) (Thomson's formula,
+  // any circuits text); L is chosen from C so that 14.2 MHz is that frequency.
+  const std::string path = WriteScratchFile("open_trap.wire",
+                                            "let c_f = 100e-12\n"
+                                            "let l_h = 1 / ((2 * pi * 14.2e6)^2 * c_f)\n"
+                                            "wire w from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                                            "feed f at w@50%\n"
+                                            "load trap at w@25% parallel L=l_h C=c_f\n"
+                                            "frequency 14.2MHz\n");
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  ExpectSolveJsonContract(doc, path);
+  ASSERT_EQ(doc["loads"].size(), 1u);
+  const nlohmann::json& trap = doc["loads"][0];
+  EXPECT_EQ(trap["name"], "trap");
+  EXPECT_EQ(trap["open"], true);
+  EXPECT_TRUE(trap["z_ohm"].is_null());
+  // Almost no current passes an open circuit: the feed current is ~1e-3 A here, so 1e-9 A
+  // is six orders below it.
+  const std::complex<double> current(trap["current_a"][0].get<double>(),
+                                     trap["current_a"][1].get<double>());
+  EXPECT_LT(std::abs(current), 1e-9);
+
+  const ProgramRun text = RunWirefield({"solve", path});
+  ASSERT_TRUE(text.exited && text.exit_code == 0) << Describe(text);
+  EXPECT_NE(text.out.find("open     open"), std::string::npos) << text.out;
+}
+
 TEST(SolveJson, TextReportShowsTheSameImpedanceAsTheJson) {
   const std::string path = WriteScratchFile("text_dipole.wire", kDipoleModel);
   const nlohmann::json doc = SolveJson({"solve", path, "--json"});
