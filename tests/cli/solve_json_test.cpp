@@ -158,6 +158,19 @@ TEST(SolveJson, TrapAtItsResonanceIsReportedOpenNotAsANumber) {
   EXPECT_NE(text.out.find("open     open"), std::string::npos) << text.out;
 }
 
+TEST(SolveJson, WarningsGoToStderrAndIntoTheDocumentNeverToStdoutAsText) {
+  const std::string path = WriteScratchFile("json_warning.wire", "let unused = 3\n" + kDipoleModel);
+  const ProgramRun run = RunWirefield({"solve", path, "--json"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  ASSERT_EQ(run.exit_code, 0) << Describe(run);
+  const std::string warning = path + ":1:5: warning: variable 'unused' is never used";
+  EXPECT_EQ(run.err, warning + "\n");
+  nlohmann::json doc;
+  ASSERT_NO_THROW(doc = nlohmann::json::parse(run.out)) << run.out;
+  ASSERT_EQ(doc["warnings"].size(), 1u);
+  EXPECT_EQ(doc["warnings"][0], warning);
+}
+
 TEST(SolveJson, TextReportShowsTheSameImpedanceAsTheJson) {
   const std::string path = WriteScratchFile("text_dipole.wire", kDipoleModel);
   const nlohmann::json doc = SolveJson({"solve", path, "--json"});
