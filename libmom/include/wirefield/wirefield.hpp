@@ -3,3 +3,4 @@
 
 #include "wirefield/model.hpp"
 #include "wirefield/simulation.hpp"
+#include "wirefield/report.hpp"

@@ -1,0 +1,112 @@
+// Benchmarks (make bench): the whole solve of a 20 m band dipole, the matrix fill, and the
+// dense solve by Eigen against LAPACK's zgesv on the same matrix (the limit to compare with).
+#include <benchmark/benchmark.h>
+
+#include <complex>
+#include <vector>
+
+#include "fill/assemble.hpp"
+#include "geometry/mesh.hpp"
+#include "solve/dense.hpp"
+#include "wirefield/wirefield.hpp"
+
+#ifdef EIGEN_USE_LAPACKE
+#include <lapacke.h>
+#endif
+
+namespace {
+
+const char* kDipoleModel =
+    "# 20 m band half-wave dipole, 1 mm radius, 10 m up, free space\n"
+    "let f = 14.2MHz\n"
+    "wire top from (-5.02, 0, 10) to (5.02, 0, 10) radius 1mm\n"
+    "feed src at top@50%\n"
+    "frequency f\n";
+
+// A straight wire of n segments (n - 1 unknowns) at 14.2 MHz, for size scans.
+wirefield::Model LongWire(int segments) {
+  wirefield::Model m;
+  m.file = "bench";
+  wirefield::WireSpec w;
+  w.name = "w";
+  w.from_m = {0, 0, 10};
+  w.to_m = {40, 0, 10};
+  w.radius_m = 1e-3;
+  w.segments = segments;
+  m.wires.push_back(w);
+  wirefield::FeedSpec f;
+  f.name = "f";
+  f.at = {"w", wirefield::PointKind::kPercent, 50.0, {}};
+  m.feeds.push_back(f);
+  m.frequency_hz = 14.2e6;
+  return m;
+}
+
+wirefield::geometry::Mesh MeshOf(const wirefield::Model& m) {
+  wirefield::geometry::MeshOptions o;
+  o.max_frequency_hz = *m.frequency_hz;
+  return wirefield::geometry::BuildMesh(m, o);
+}
+
+// Parse, mesh, fill, solve and report, as `wirefield solve` does.
+void BM_DipoleWholeSolve(benchmark::State& state) {
+  for (auto _ : state) {
+    wirefield::Model m = wirefield::ParseModelText(kDipoleModel, "bench.wire");
+    wirefield::Simulation sim(std::move(m));
+    const wirefield::SolveResult r = sim.Solve(sim.DefaultFrequency());
+    benchmark::DoNotOptimize(wirefield::FormatSolveJson(sim, r));
+  }
+}
+BENCHMARK(BM_DipoleWholeSolve)->Unit(benchmark::kMillisecond);
+
+void BM_Fill(benchmark::State& state) {
+  const wirefield::Model m = LongWire(static_cast<int>(state.range(0)) + 1);
+  const wirefield::geometry::Mesh mesh = MeshOf(m);
+  for (auto _ : state) {
+    benchmark::DoNotOptimize(wirefield::fill::AssembleImpedance(mesh, 14.2e6));
+  }
+  state.counters["unknowns"] = static_cast<double>(mesh.bases.size());
+}
+BENCHMARK(BM_Fill)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
+
+void BM_SolveEigen(benchmark::State& state) {
+  const wirefield::Model m = LongWire(static_cast<int>(state.range(0)) + 1);
+  const wirefield::geometry::Mesh mesh = MeshOf(m);
+  const Eigen::MatrixXcd z = wirefield::fill::AssembleImpedance(mesh, 14.2e6);
+  const Eigen::VectorXcd v = wirefield::fill::AssembleExcitation(mesh, m);
+  for (auto _ : state) benchmark::DoNotOptimize(wirefield::solve::SolveDense(z, v));
+}
+BENCHMARK(BM_SolveEigen)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
+
+#ifdef EIGEN_USE_LAPACKE
+void BM_SolveLapack(benchmark::State& state) {
+  const wirefield::Model m = LongWire(static_cast<int>(state.range(0)) + 1);
+  const wirefield::geometry::Mesh mesh = MeshOf(m);
+  const Eigen::MatrixXcd z = wirefield::fill::AssembleImpedance(mesh, 14.2e6);
+  const Eigen::VectorXcd v = wirefield::fill::AssembleExcitation(mesh, m);
+  const lapack_int n = static_cast<lapack_int>(z.rows());
+  std::vector<lapack_int> pivots(n);
+  for (auto _ : state) {
+    Eigen::MatrixXcd a = z;
+    Eigen::VectorXcd b = v;
+    const lapack_int info =
+        LAPACKE_zgesv(LAPACK_COL_MAJOR, n, 1, reinterpret_cast<lapack_complex_double*>(a.data()), n,
+                      pivots.data(), reinterpret_cast<lapack_complex_double*>(b.data()), n);
+    benchmark::DoNotOptimize(info);
+    benchmark::DoNotOptimize(b);
+  }
+}
+BENCHMARK(BM_SolveLapack)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
+#endif
+
+// Fill and solve of 1000 unknowns together (the 2 s budget on one core).
+void BM_FillAndSolve1000(benchmark::State& state) {
+  const wirefield::Model m = LongWire(1001);
+  wirefield::Simulation sim(m);
+  for (auto _ : state) benchmark::DoNotOptimize(sim.Solve(14.2e6));
+}
+BENCHMARK(BM_FillAndSolve1000)->Unit(benchmark::kMillisecond);
+
+}  // namespace
+
+BENCHMARK_MAIN();
