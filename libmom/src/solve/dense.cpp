@@ -10,6 +10,9 @@ namespace {
 // A backward-stable LU leaves a residual near machine precision times the growth factor;
 // anything above this means the factorization broke down (a singular matrix).
 constexpr double kMaxRelativeResidual = 1e-6;
+// Double precision keeps about 16 digits; with a condition number above 1e14 fewer than two
+// remain in the currents.
+constexpr double kMinReciprocalCondition = 1e-14;
 }  // namespace
 
 DenseSolution SolveDense(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
@@ -17,6 +20,16 @@ DenseSolution SolveDense(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
     throw ComputationError("the impedance matrix has non-finite entries (coincident segments?)");
   }
   Eigen::PartialPivLU<Eigen::MatrixXcd> lu(z);
+  // Reciprocal condition number estimate (O(n^2) after the factorization). Below
+  // kMinReciprocalCondition the answer has no correct digits left.
+  const double rcond = lu.rcond();
+  if (!(rcond >= kMinReciprocalCondition)) {
+    throw ComputationError(fmt::format(
+        "the moment-method matrix is numerically singular (reciprocal condition number "
+        "{:.3g}); look for wires that lie on top of each other, or load impedances many "
+        "orders of magnitude above the antenna's (take the wire out instead)",
+        rcond));
+  }
   DenseSolution out;
   out.currents = lu.solve(v);
   const double vnorm = v.norm();
