@@ -32,8 +32,8 @@ TEST(SegmentPairMoments, SelfTermMatchesClosedFormStaticIntegral) {
 }
 
 TEST(SegmentPairMoments, NearAndFarPairsMatchBruteForceQuadrature) {
-  // Brute force: 20-point Gauss on 60 sub-intervals of each segment (each 1.6 radii long). Tolerance 1e-5: well
-  // below the discretisation error of the method itself.
+  // Brute force: 20-point Gauss on 60 sub-intervals of each segment (each about 2 radii long).
+  // Tolerance 1e-5: well below the discretisation error of the method itself.
   const double l = 0.0125, a = 1e-4, k = 2.0 * M_PI;
   const Vec3 o(0, 0, 0), z1(0, 0, l);
   const std::vector<std::pair<Vec3, Vec3>> sources = {
