@@ -68,6 +68,10 @@ struct WireSpec {
   Point to_m{};
   double radius_m = 0.0;
   int segments = 0;  // 0: the mesher chooses
+  // Conductor: empty material and no conductivity = perfect conductor (the default).
+  std::string material;                         // e.g. "copper", as written in the model
+  std::optional<double> conductivity_s_per_m;   // set for any lossy conductor
+  double relative_permeability = 1.0;           // steel > 1
   SourceLocation location;
 };
 

@@ -66,6 +66,7 @@ struct SolveResult {
   std::vector<FeedResult> feeds;
   std::vector<LoadResult> loads;
   std::vector<SegmentCurrent> currents;
+  double wire_loss_w = 0.0;  // power dissipated in lossy conductors (skin effect), W
   double fill_time_s = 0.0;
   double solve_time_s = 0.0;
 };

@@ -4,3 +4,4 @@
 #include "wirefield/model.hpp"
 #include "wirefield/simulation.hpp"
 #include "wirefield/report.hpp"
+#include "wirefield/pattern.hpp"

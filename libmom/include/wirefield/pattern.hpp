@@ -1,0 +1,88 @@
+// wirefield public API, part 4: the far field, gain, radiation pattern and power budget of a
+// solved model (free space, or the upper half-space over a perfect ground).
+// Angles: elevation up from the horizon (90 = zenith), azimuth from +x toward +y, degrees.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "wirefield/simulation.hpp"
+
+namespace wirefield {
+
+// Far field in one direction. e_theta_v / e_phi_v are r e^{jkr} E (volts): the field at
+// distance r is that over r. Gains are relative to the power into the feeds (dBi); a gain of
+// no radiation is reported as kNoGainDbi, never minus infinity.
+struct FarFieldPoint {
+  double elevation_deg = 0.0;
+  double azimuth_deg = 0.0;
+  Complex e_theta_v;  // vertical polarization (in the plane of elevation)
+  Complex e_phi_v;    // horizontal polarization
+  double gain_dbi = 0.0;
+  double gain_vertical_dbi = 0.0;
+  double gain_horizontal_dbi = 0.0;
+};
+inline constexpr double kNoGainDbi = -999.0;
+
+struct PatternOptions {
+  // Grid step of the search for the maximum and of the cuts, degrees. Default 1; smaller is
+  // finer and slower (the cost grows as 1/step^2 for the search).
+  double step_deg = 1.0;
+  // Elevation of the azimuth cut, degrees; default the take-off angle (elevation of max).
+  std::optional<double> azimuth_cut_elevation_deg;
+};
+
+// One cut: gain against angle (elevation 0..180 through the azimuth of the maximum and its
+// back, or azimuth 0..360 at a fixed elevation).
+struct PatternCut {
+  std::string plane;        // "elevation" or "azimuth"
+  double fixed_angle_deg;   // the azimuth (elevation cut) or elevation (azimuth cut) held fixed
+  std::vector<double> angle_deg;
+  std::vector<double> gain_dbi;
+  std::vector<double> gain_vertical_dbi;
+  std::vector<double> gain_horizontal_dbi;
+  std::optional<double> beamwidth_deg;  // -3 dB width of the main lobe, when it closes
+};
+
+// Where the power goes. input = sum of 0.5 Re(V I*) over feeds.
+struct PowerBudget {
+  double input_w = 0.0;
+  double radiated_w = 0.0;  // integrated over the sphere (free) or the upper half-space
+  double loads_w = 0.0;
+  double wires_w = 0.0;
+  double efficiency = 0.0;        // radiated / input
+  double balance_error = 0.0;     // (radiated + loads + wires - input) / input
+};
+
+struct PatternResult {
+  double frequency_hz = 0.0;
+  double step_deg = 1.0;  // used
+  double max_gain_dbi = 0.0;
+  double max_gain_elevation_deg = 0.0;
+  double max_gain_azimuth_deg = 0.0;
+  double takeoff_elevation_deg = 0.0;  // elevation of maximum radiation
+  PatternCut elevation_cut;
+  PatternCut azimuth_cut;
+  std::optional<double> front_to_back_db;  // when the azimuth cut has a clear front
+  std::optional<double> front_to_side_db;
+  PowerBudget power;
+  std::vector<Warning> warnings;  // e.g. power balance off by more than 2%
+};
+
+// The far field of a solved model in one direction.
+FarFieldPoint FarField(const Simulation& simulation, const SolveResult& solved,
+                       double elevation_deg, double azimuth_deg);
+
+// Gain search, cuts, figures of merit and the power budget.
+PatternResult ComputePattern(const Simulation& simulation, const SolveResult& solved,
+                             const PatternOptions& options = {});
+
+// Reports (the command-line program prints these).
+std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern);
+std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern);
+std::string FormatPatternCsv(const PatternResult& pattern);
+// Two polar plots (elevation and azimuth cut, dB scale) as one self-contained SVG document.
+std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& pattern);
+
+}  // namespace wirefield
