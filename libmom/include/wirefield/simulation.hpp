@@ -51,12 +51,15 @@ struct LoadResult {
   bool open = false;      // true when the element is an ideal open circuit at this frequency
 };
 
-// Current on one segment's centre (peak phasor, along the segment from its start to its end).
+// Current on one segment (peak phasors, positive along the segment from its start to its
+// end). The current is linear along the segment, from current_start_a to current_end_a.
 struct SegmentCurrent {
   int wire = 0;  // index into Model::wires
   Point start_m{};
   Point end_m{};
-  Complex current_a;
+  Complex current_a;  // at the centre
+  Complex current_start_a;
+  Complex current_end_a;
 };
 
 struct SolveResult {

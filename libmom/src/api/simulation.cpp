@@ -138,21 +138,26 @@ SolveResult Simulation::Solve(double frequency_hz) const {
     lr.power_w = 0.5 * std::norm(lr.current_a) * std::real(lr.impedance_ohm);
     r.loads.push_back(lr);
   }
-  // Segment-centre currents: each piece contributes alpha + beta / 2 times its basis current.
-  std::vector<Complex> centre(mesh.segments.size(), 0.0);
+  // Segment end currents: each piece carries alpha + beta t times its basis current.
+  std::vector<Complex> at_start(mesh.segments.size(), 0.0), at_end(mesh.segments.size(), 0.0);
   for (size_t b = 0; b < mesh.bases.size(); ++b) {
     const geometry::Basis& basis = mesh.bases[b];
     for (int p = 0; p < basis.piece_count; ++p) {
       const geometry::Piece& piece = basis.pieces[p];
-      centre[piece.segment] += (piece.alpha() + 0.5 * piece.beta()) * sol.currents(b);
+      at_start[piece.segment] += piece.alpha() * sol.currents(b);
+      at_end[piece.segment] += (piece.alpha() + piece.beta()) * sol.currents(b);
     }
   }
   for (size_t s = 0; s < mesh.segments.size(); ++s) {
     const geometry::Segment& seg = mesh.segments[s];
-    r.currents.push_back({seg.wire,
-                          {seg.start.x(), seg.start.y(), seg.start.z()},
-                          {seg.end.x(), seg.end.y(), seg.end.z()},
-                          centre[s]});
+    SegmentCurrent c;
+    c.wire = seg.wire;
+    c.start_m = {seg.start.x(), seg.start.y(), seg.start.z()};
+    c.end_m = {seg.end.x(), seg.end.y(), seg.end.z()};
+    c.current_start_a = at_start[s];
+    c.current_end_a = at_end[s];
+    c.current_a = 0.5 * (at_start[s] + at_end[s]);
+    r.currents.push_back(c);
   }
   return r;
 }

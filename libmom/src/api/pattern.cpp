@@ -1,0 +1,273 @@
+// API: far field, gain, pattern search, cuts, figures of merit and the power budget of a
+// solved model. Wraps post::FarFieldSource; the grid search, beamwidths and front-to-back
+// live here because they need the model (ground) and the solve together.
+#include "wirefield/pattern.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+
+#include "core/constants.hpp"
+#include "post/far_field.hpp"
+
+namespace wirefield {
+namespace {
+
+constexpr double kDeg = core::kPi / 180.0;
+// The run checks energy conservation: above this relative mismatch it warns.
+constexpr double kBalanceTolerance = 0.02;
+// An azimuth cut whose gains vary less than this (dB) has no front to speak of.
+constexpr double kMinFrontContrastDb = 3.0;
+// Lobes whose peaks differ by less than this (dB) count as equally strong.
+constexpr double kLobeTieDb = 0.05;
+
+// Maximum of a unimodal function on [lo, hi] by golden-section search (to 1e-4 degrees).
+template <typename F>
+double GoldenMax(F f, double lo, double hi) {
+  const double ratio = 0.5 * (std::sqrt(5.0) - 1.0);
+  double a = lo, b = hi;
+  double c = b - ratio * (b - a), d = a + ratio * (b - a);
+  double fc = f(c), fd = f(d);
+  while (b - a > 1e-4) {
+    if (fc < fd) {
+      a = c;
+      c = d;
+      fc = fd;
+      d = a + ratio * (b - a);
+      fd = f(d);
+    } else {
+      b = d;
+      d = c;
+      fd = fc;
+      c = b - ratio * (b - a);
+      fc = f(c);
+    }
+  }
+  return 0.5 * (a + b);
+}
+
+double ToDbi(double gain) { return gain > 1e-100 ? 10.0 * std::log10(gain) : kNoGainDbi; }
+
+double InputPower(const SolveResult& solved) {
+  double p = 0.0;
+  for (const FeedResult& f : solved.feeds) p += f.power_w;
+  return p;
+}
+
+struct Evaluator {
+  post::FarFieldSource source;
+  double input_w;
+
+  FarFieldPoint At(double elevation_deg, double azimuth_deg) const {
+    FarFieldPoint p;
+    p.elevation_deg = elevation_deg;
+    p.azimuth_deg = azimuth_deg;
+    const auto [et, ep] = source.Field((90.0 - elevation_deg) * kDeg, azimuth_deg * kDeg);
+    p.e_theta_v = et;
+    p.e_phi_v = ep;
+    const double scale = 4.0 * core::kPi / (2.0 * core::kEta0_ohm * input_w);
+    p.gain_vertical_dbi = ToDbi(std::norm(et) * scale);
+    p.gain_horizontal_dbi = ToDbi(std::norm(ep) * scale);
+    p.gain_dbi = ToDbi((std::norm(et) + std::norm(ep)) * scale);
+    return p;
+  }
+};
+
+Evaluator MakeEvaluator(const Simulation& simulation, const SolveResult& solved) {
+  const double input_w = InputPower(solved);
+  if (!(input_w > 0.0)) {
+    throw ComputationError(
+        "the feeds deliver no power to the antenna, so gain is undefined; give a feed a "
+        "non-zero voltage");
+  }
+  return {post::FarFieldSource(solved.currents, solved.frequency_hz,
+                               simulation.model().ground.kind == GroundKind::kPerfect),
+          input_w};
+}
+
+void Append(PatternCut* cut, double angle_deg, const FarFieldPoint& p) {
+  cut->angle_deg.push_back(angle_deg);
+  cut->gain_dbi.push_back(p.gain_dbi);
+  cut->gain_vertical_dbi.push_back(p.gain_vertical_dbi);
+  cut->gain_horizontal_dbi.push_back(p.gain_horizontal_dbi);
+}
+
+// Width of the region within 3 dB of the cut's maximum that contains it, with linear
+// interpolation at the crossings. circular: the cut wraps around (azimuth).
+std::optional<double> Beamwidth(const PatternCut& cut, bool circular) {
+  const int n = static_cast<int>(cut.gain_dbi.size());
+  if (n < 3) return std::nullopt;
+  const int peak = static_cast<int>(std::max_element(cut.gain_dbi.begin(), cut.gain_dbi.end()) -
+                                    cut.gain_dbi.begin());
+  const double level = cut.gain_dbi[peak] - 3.0;
+  const double step = cut.angle_deg[1] - cut.angle_deg[0];
+  auto walk = [&](int dir) -> std::optional<double> {
+    for (int s = 1; s < n; ++s) {
+      int i = peak + dir * s, prev = peak + dir * (s - 1);
+      if (circular) {
+        i = ((i % n) + n) % n;
+        prev = ((prev % n) + n) % n;
+      } else if (i < 0 || i >= n) {
+        return (s - 1) * step;  // the lobe reaches the end of the cut (the ground)
+      }
+      if (cut.gain_dbi[i] < level) {
+        const double frac = (cut.gain_dbi[prev] - level) / (cut.gain_dbi[prev] - cut.gain_dbi[i]);
+        return (s - 1 + frac) * step;
+      }
+    }
+    return std::nullopt;
+  };
+  const auto left = walk(-1), right = walk(+1);
+  if (!left || !right) return std::nullopt;
+  return *left + *right;
+}
+
+}  // namespace
+
+FarFieldPoint FarField(const Simulation& simulation, const SolveResult& solved,
+                       double elevation_deg, double azimuth_deg) {
+  return MakeEvaluator(simulation, solved).At(elevation_deg, azimuth_deg);
+}
+
+PatternResult ComputePattern(const Simulation& simulation, const SolveResult& solved,
+                             const PatternOptions& options) {
+  if (!(options.step_deg > 0.0) || options.step_deg > 10.0) {
+    throw InputError({"--step", 0, 0},
+                     fmt::format("the pattern step must be above 0 and at most 10 degrees, not {}",
+                                 options.step_deg));
+  }
+  const Evaluator eval = MakeEvaluator(simulation, solved);
+  const bool over_ground = simulation.model().ground.kind == GroundKind::kPerfect;
+  PatternResult r;
+  r.frequency_hz = solved.frequency_hz;
+  // A whole number of steps per 90 degrees, no coarser than asked.
+  const int per_quadrant = static_cast<int>(std::ceil(90.0 / options.step_deg - 1e-9));
+  const double step = 90.0 / per_quadrant;
+  r.step_deg = step;
+
+  // Grid search for the maximum.
+  const int n_az = 4 * per_quadrant;
+  const int el_lo = over_ground ? 0 : -per_quadrant;
+  double best = -INFINITY;
+  for (int ie = el_lo; ie <= per_quadrant; ++ie) {
+    const double el = ie * step;
+    const int az_count = ie == per_quadrant || ie == -per_quadrant ? 1 : n_az;
+    for (int ia = 0; ia < az_count; ++ia) {
+      const FarFieldPoint p = eval.At(el, ia * step);
+      if (p.gain_dbi > best) {
+        best = p.gain_dbi;
+        r.max_gain_dbi = p.gain_dbi;
+        r.max_gain_elevation_deg = el;
+        r.max_gain_azimuth_deg = ia * step;
+      }
+    }
+  }
+
+  // Refine the maximum off the grid: alternate golden-section searches in elevation and
+  // azimuth within one step of the best grid point.
+  const double el_min = over_ground ? 0.0 : -90.0;
+  auto gain_at = [&](double el, double az) { return eval.At(el, az).gain_dbi; };
+  {
+    double el = r.max_gain_elevation_deg, az = r.max_gain_azimuth_deg;
+    for (int round = 0; round < 2; ++round) {
+      el = GoldenMax([&](double e) { return gain_at(e, az); }, std::max(el_min, el - step),
+                     std::min(90.0, el + step));
+      if (std::abs(el) < 90.0 - 1e-9) {
+        az = GoldenMax([&](double a) { return gain_at(el, a); }, az - step, az + step);
+      }
+    }
+    const double refined = gain_at(el, az);
+    if (refined > r.max_gain_dbi + 1e-6) {  // flat patterns keep the grid point
+      r.max_gain_dbi = refined;
+      r.max_gain_elevation_deg = el;
+      r.max_gain_azimuth_deg = std::fmod(az + 360.0, 360.0);
+    }
+  }
+  // Equal lobes (a horizontal dipole one wavelength up has two of the same height): the
+  // take-off angle is the lowest lobe toward the front within kLobeTieDb of the maximum.
+  {
+    const double az = r.max_gain_azimuth_deg;
+    double lowest = r.max_gain_elevation_deg;
+    for (int ie = el_lo + 1; ie < per_quadrant; ++ie) {
+      const double el = ie * step;
+      if (el >= lowest) break;
+      const double g = gain_at(el, az);
+      if (g < gain_at(el - step, az) || g < gain_at(el + step, az)) continue;
+      const double peak_el =
+          GoldenMax([&](double e) { return gain_at(e, az); }, el - step, el + step);
+      if (gain_at(peak_el, az) >= r.max_gain_dbi - kLobeTieDb) {
+        lowest = peak_el;
+        break;
+      }
+    }
+    r.max_gain_elevation_deg = lowest + 0.0;  // no -0
+    if (std::abs(r.max_gain_elevation_deg) < 1e-9) r.max_gain_elevation_deg = 0.0;
+  }
+
+  // Elevation cut in the vertical plane of the maximum: angle 0 is the horizon toward the
+  // maximum, 90 the zenith, 180 the horizon behind (in free space it continues below).
+  r.elevation_cut.plane = "elevation";
+  r.elevation_cut.fixed_angle_deg = r.max_gain_azimuth_deg;
+  const int cut_hi = over_ground ? 2 * per_quadrant : 3 * per_quadrant;
+  const int cut_lo = over_ground ? 0 : -per_quadrant;
+  for (int i = cut_lo; i <= cut_hi; ++i) {
+    const double a = i * step;
+    const double el = a <= 90.0 ? a : 180.0 - a;
+    const double az = a <= 90.0 ? r.max_gain_azimuth_deg : r.max_gain_azimuth_deg + 180.0;
+    Append(&r.elevation_cut, a, eval.At(el, std::fmod(az, 360.0)));
+  }
+  r.elevation_cut.beamwidth_deg = Beamwidth(r.elevation_cut, false);
+  // Take-off angle: elevation of the strongest radiation in that plane, toward the front.
+  r.takeoff_elevation_deg = r.max_gain_elevation_deg;
+
+  // Azimuth cut.
+  const double cut_el = options.azimuth_cut_elevation_deg.value_or(r.takeoff_elevation_deg);
+  if (!(cut_el >= (over_ground ? 0.0 : -90.0)) || !(cut_el <= 90.0)) {
+    throw InputError({"--elevation", 0, 0},
+                     fmt::format("the azimuth cut's elevation must lie in {}..90 degrees, not {}",
+                                 over_ground ? 0 : -90, cut_el));
+  }
+  r.azimuth_cut.plane = "azimuth";
+  r.azimuth_cut.fixed_angle_deg = cut_el;
+  for (int ia = 0; ia <= n_az; ++ia) Append(&r.azimuth_cut, ia * step, eval.At(cut_el, ia * step));
+  {
+    PatternCut closed = r.azimuth_cut;  // without the repeated 360
+    closed.angle_deg.pop_back();
+    closed.gain_dbi.pop_back();
+    r.azimuth_cut.beamwidth_deg = Beamwidth(closed, true);
+    const auto [lo, hi] = std::minmax_element(closed.gain_dbi.begin(), closed.gain_dbi.end());
+    if (*hi - *lo >= kMinFrontContrastDb) {
+      const int front = static_cast<int>(hi - closed.gain_dbi.begin());
+      auto at = [&](int offset) { return closed.gain_dbi[(front + offset) % n_az]; };
+      r.front_to_back_db = *hi - at(2 * per_quadrant);
+      r.front_to_side_db = *hi - std::max(at(per_quadrant), at(3 * per_quadrant));
+    } else {
+      r.azimuth_cut.beamwidth_deg.reset();  // omnidirectional: no lobe to measure
+    }
+  }
+
+  // Power budget and the energy check.
+  r.power.input_w = eval.input_w;
+  r.power.radiated_w = eval.source.RadiatedPower();
+  for (const LoadResult& l : solved.loads) r.power.loads_w += l.power_w;
+  r.power.wires_w = solved.wire_loss_w;
+  r.power.efficiency = r.power.radiated_w / r.power.input_w;
+  r.power.balance_error =
+      (r.power.radiated_w + r.power.loads_w + r.power.wires_w - r.power.input_w) / r.power.input_w;
+  if (std::abs(r.power.balance_error) > kBalanceTolerance) {
+    Warning w;
+    w.location.file = simulation.model().file;
+    w.message = fmt::format(
+        "power balance is off by {:.1f}%: radiated ({:.4g} W) plus dissipated "
+        "({:.4g} W) should equal the input ({:.4g} W); the mesh is probably too "
+        "coarse or the geometry outside the thin-wire model (wires closer than a "
+        "few radii): give more segments or separate the wires",
+        100.0 * r.power.balance_error, r.power.radiated_w, r.power.loads_w + r.power.wires_w,
+        r.power.input_w);
+    r.warnings.push_back(std::move(w));
+  }
+  return r;
+}
+
+}  // namespace wirefield

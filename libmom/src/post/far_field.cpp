@@ -1,0 +1,104 @@
+// Post stage: far field, radiation intensity and radiated power of segment currents.
+// Integration over the sphere: composite 8-point Gauss-Legendre in cos(theta) and the
+// trapezoid rule in phi (exact for the band-limited periodic integrand), both with a number of
+// points that grows with the electrical size k * extent of the antenna and its image.
+#include "post/far_field.hpp"
+
+#include <boost/math/quadrature/gauss.hpp>
+#include <cmath>
+
+#include "core/constants.hpp"
+
+namespace wirefield::post {
+namespace {
+
+// int_0^1 exp(j psi t) dt and int_0^1 t exp(j psi t) dt, with series for small psi.
+void LinearPhaseIntegrals(double psi, Complex* a0, Complex* a1) {
+  const Complex j(0.0, 1.0);
+  if (std::abs(psi) < 1e-2) {
+    const double p2 = psi * psi;
+    *a0 = Complex(1.0 - p2 / 6.0 + p2 * p2 / 120.0, psi / 2.0 - p2 * psi / 24.0);
+    *a1 = Complex(0.5 - p2 / 8.0 + p2 * p2 / 144.0, psi / 3.0 - p2 * psi / 30.0);
+    return;
+  }
+  const Complex e = std::polar(1.0, psi);
+  *a0 = (e - 1.0) / (j * psi);
+  *a1 = e / (j * psi) + (e - 1.0) / (psi * psi);
+}
+
+}  // namespace
+
+FarFieldSource::FarFieldSource(const std::vector<SegmentCurrent>& currents, double frequency_hz,
+                               bool perfect_ground)
+    : k_(2.0 * core::kPi * frequency_hz / core::kSpeedOfLight_m_per_s),
+      upper_half_only_(perfect_ground) {
+  for (const SegmentCurrent& c : currents) {
+    const Vec3 a(c.start_m[0], c.start_m[1], c.start_m[2]);
+    const Vec3 b(c.end_m[0], c.end_m[1], c.end_m[2]);
+    elements_.push_back({a, b - a, c.current_start_a, c.current_end_a});
+    extent_m_ = std::max({extent_m_, a.norm(), b.norm()});
+    if (perfect_ground) {
+      // Image: mirrored in z = 0, current (-Ix, -Iy, Iz): the mirrored segment carries -I.
+      const Vec3 m(1.0, 1.0, -1.0);
+      elements_.push_back(
+          {a.cwiseProduct(m), (b - a).cwiseProduct(m), -c.current_start_a, -c.current_end_a});
+    }
+  }
+}
+
+CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {
+  CVec3 n = CVec3::Zero();
+  for (const Element& e : elements_) {
+    const double psi = k_ * rhat.dot(e.delta);
+    Complex a0, a1;
+    LinearPhaseIntegrals(psi, &a0, &a1);
+    // int_0^1 (i0 + (i1 - i0) t) exp(jk rhat.(start + delta t)) dt, times the length vector.
+    const Complex integral =
+        std::polar(1.0, k_ * rhat.dot(e.start)) * (e.i0 * a0 + (e.i1 - e.i0) * a1);
+    n += e.delta.cast<Complex>() * integral;
+  }
+  return n;
+}
+
+std::pair<Complex, Complex> FarFieldSource::Field(double theta_rad, double phi_rad) const {
+  const double st = std::sin(theta_rad), ct = std::cos(theta_rad);
+  const double sp = std::sin(phi_rad), cp = std::cos(phi_rad);
+  const Vec3 rhat(st * cp, st * sp, ct);
+  const Vec3 theta_hat(ct * cp, ct * sp, -st);
+  const Vec3 phi_hat(-sp, cp, 0.0);
+  const CVec3 n = RadiationVector(rhat);
+  const Complex factor(0.0, -k_ * core::kEta0_ohm / (4.0 * core::kPi));
+  return {factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
+}
+
+double FarFieldSource::Intensity(double theta_rad, double phi_rad) const {
+  const auto [et, ep] = Field(theta_rad, phi_rad);
+  return (std::norm(et) + std::norm(ep)) / (2.0 * core::kEta0_ohm);
+}
+
+double FarFieldSource::RadiatedPower() const {
+  // Angular band limit of the pattern: about k * extent harmonics in each angle.
+  const int bandwidth = static_cast<int>(std::ceil(k_ * extent_m_)) + 8;
+  const int panels = std::max(4, bandwidth / 4 + 2);
+  const int n_phi = std::max(16, 2 * bandwidth + 2);
+  using G = boost::math::quadrature::gauss<double, 8>;
+  const double u_lo = upper_half_only_ ? 0.0 : -1.0;
+  const double panel = (1.0 - u_lo) / panels;
+  double power = 0.0;
+  for (int p = 0; p < panels; ++p) {
+    const double mid = u_lo + (p + 0.5) * panel;
+    for (size_t i = 0; i < G::abscissa().size(); ++i) {
+      for (int sign : {-1, 1}) {
+        const double u = mid + sign * 0.5 * panel * G::abscissa()[i];
+        const double w = 0.5 * panel * G::weights()[i];
+        const double theta = std::acos(std::clamp(u, -1.0, 1.0));
+        double ring = 0.0;
+        for (int q = 0; q < n_phi; ++q) ring += Intensity(theta, 2.0 * core::kPi * q / n_phi);
+        power += w * ring * (2.0 * core::kPi / n_phi);
+      }
+    }
+  }
+  return power;
+}
+
+}  // namespace wirefield::post

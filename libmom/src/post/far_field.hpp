@@ -1,0 +1,51 @@
+// Post stage: the far field of solved segment currents. The radiation vector
+// N(rhat) = sum over segments of int I(l) u exp(jk rhat.r(l)) dl (plus the images over a
+// perfect ground) gives E = -j k eta / (4 pi) [N - (N.rhat) rhat] exp(-jkr) / r.
+// Each segment's integral of its linear current is taken in closed form.
+#pragma once
+
+#include <Eigen/Core>
+#include <complex>
+#include <vector>
+
+#include "wirefield/simulation.hpp"
+
+namespace wirefield::post {
+
+using Vec3 = Eigen::Vector3d;
+using CVec3 = Eigen::Vector3cd;
+
+// A radiating source: segment currents ready for far-field sums (images included).
+class FarFieldSource {
+ public:
+  FarFieldSource(const std::vector<SegmentCurrent>& currents, double frequency_hz,
+                 bool perfect_ground);
+
+  // r e^{jkr} (E_theta, E_phi) in volts in the direction (theta, phi), radians
+  // (theta from the zenith).
+  std::pair<Complex, Complex> Field(double theta_rad, double phi_rad) const;
+
+  // Radiation intensity U = r^2 |E|^2 / (2 eta), W/sr, for peak phasors.
+  double Intensity(double theta_rad, double phi_rad) const;
+
+  // Power radiated: U integrated over the sphere (free space) or the upper half-space.
+  double RadiatedPower() const;
+
+  double wavenumber_per_m() const { return k_; }
+  double extent_m() const { return extent_m_; }
+
+ private:
+  struct Element {
+    Vec3 start;
+    Vec3 delta;      // end - start
+    Complex i0, i1;  // current at start, end
+  };
+  CVec3 RadiationVector(const Vec3& rhat) const;
+
+  std::vector<Element> elements_;
+  double k_ = 0.0;
+  double extent_m_ = 0.0;  // largest distance of any element end from the origin
+  bool upper_half_only_ = false;
+};
+
+}  // namespace wirefield::post

@@ -1,0 +1,137 @@
+// Validation: far field, gain and radiated power against antenna theory: half-wave and short
+// dipole directivity, the monopole on a perfect ground, the horizontal dipole over a perfect
+// ground (image array factor), polarisation, and energy conservation.
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "validation/reference/induced_emf.hpp"
+#include "validation/test_models.hpp"
+
+namespace wirefield {
+namespace {
+
+using testing::Dipole;
+using testing::HorizontalDipole;
+using testing::kUnitWavelengthHz;
+
+struct Solved {
+  Simulation sim;
+  SolveResult result;
+};
+
+Solved SolveModel(const Model& m) {
+  SimulationOptions o;
+  o.max_frequency_hz = kUnitWavelengthHz;
+  Simulation sim(m, o);
+  SolveResult r = sim.Solve(kUnitWavelengthHz);
+  return {std::move(sim), std::move(r)};
+}
+
+TEST(HalfWaveDipole, GainIsTheTextbookDirectivity) {
+  // D = 4 / Cin(2 pi) = 1.6409 -> 2.151 dBi (Balanis, 3rd ed., eq. 4-91, from memory;
+  // REFERENCES.md §1), for the sinusoidal current of a vanishing radius. Tolerance 0.05 dB:
+  // at a = 1e-6 wavelength the real current departs from the sinusoid by O(1/Omega).
+  const Solved s = SolveModel(Dipole(0.5, 1e-6, 41));
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  const double ref_dbi = reference::PowerRatioToDecibels(reference::HalfWaveDipoleDirectivity());
+  EXPECT_NEAR(p.max_gain_dbi, ref_dbi, 0.05);
+  EXPECT_NEAR(p.max_gain_elevation_deg, 0.0, 0.5) << "broadside to a vertical dipole";
+  // Half-power beamwidth of the half-wave dipole, 78 degrees (Balanis §4.6, from memory).
+  ASSERT_TRUE(p.elevation_cut.beamwidth_deg.has_value());
+  EXPECT_NEAR(*p.elevation_cut.beamwidth_deg, 78.0, 1.0);
+}
+
+TEST(ShortDipole, GainIsOnePointFive) {
+  // Directivity 1.5 -> 1.761 dBi for any short current element (Balanis §4.2, from memory).
+  const Solved s = SolveModel(Dipole(0.02, 1e-5, 11));
+  EXPECT_NEAR(ComputePattern(s.sim, s.result).max_gain_dbi, 10.0 * std::log10(1.5), 0.02);
+}
+
+TEST(QuarterWaveMonopole, GainOverPerfectGroundIsTwiceTheDipoles) {
+  // D = 2 x 1.6409 -> 5.161 dBi: the power goes into one half-space (image theory,
+  // Balanis §4.7.4, from memory; REFERENCES.md §1). Tolerance 0.05 dB as for the dipole.
+  Model m;
+  m.file = "monopole";
+  m.wires.push_back(testing::Wire("mast", {0, 0, 0}, {0, 0, 0.25}, 1e-6, 20));
+  m.feeds.push_back(testing::Feed("base", "mast", PointKind::kStart, 0.0));
+  m.ground.kind = GroundKind::kPerfect;
+  m.frequency_hz = kUnitWavelengthHz;
+  const Solved s = SolveModel(m);
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  EXPECT_NEAR(p.max_gain_dbi,
+              reference::PowerRatioToDecibels(2.0 * reference::HalfWaveDipoleDirectivity()), 0.05);
+  EXPECT_NEAR(p.max_gain_elevation_deg, 0.0, 0.5);
+}
+
+TEST(HorizontalDipoleOverPerfectGround, TakeOffAngleFollowsTheImageArrayFactor) {
+  // Array factor 2 sin(kh sin(elevation)): the lowest lobe peaks at sin(el) = lambda/(4h)
+  // for h >= lambda/4 (REFERENCES.md §1, confirmed in secondary sources; Balanis §4.7.2,
+  // from memory): 30.0 deg at h = lambda/2, 14.48 deg at h = lambda; the zenith for
+  // h = lambda/4. Peak gains (induced-EMF estimate, computed in REFERENCES): 8.42, 8.24,
+  // 7.48 dBi, +-0.3 dB for MoM.
+  struct Case {
+    double height, elevation_deg, gain_dbi;
+  };
+  for (const Case c : {Case{0.5, 30.0, 8.42}, Case{1.0, 14.48, 8.24}, Case{0.25, 90.0, 7.48}}) {
+    Model m = HorizontalDipole(0.5, 1e-4, 41, c.height);
+    m.ground.kind = GroundKind::kPerfect;
+    const Solved s = SolveModel(m);
+    const PatternResult p = ComputePattern(s.sim, s.result);
+    EXPECT_NEAR(p.takeoff_elevation_deg, c.elevation_deg, 0.5) << "h " << c.height;
+    EXPECT_NEAR(p.max_gain_dbi, c.gain_dbi, 0.3) << "h " << c.height;
+    if (c.height > 0.25) {
+      EXPECT_NEAR(std::fmod(p.max_gain_azimuth_deg, 180.0), 90.0, 0.5) << "broadside";
+    }
+  }
+}
+
+TEST(HorizontalDipoleOverPerfectGround, BroadsidePlaneCarriesNoVerticalPolarisation) {
+  // By symmetry the field in the plane normal to a horizontal wire (y-z plane here) is
+  // parallel to the wire, so horizontal; the vertical component vanishes (image theory).
+  Model m = HorizontalDipole(0.5, 1e-4, 41, 0.5);
+  m.ground.kind = GroundKind::kPerfect;
+  const Solved s = SolveModel(m);
+  for (double el : {5.0, 20.0, 45.0, 70.0}) {
+    const FarFieldPoint f = FarField(s.sim, s.result, el, 90.0);
+    EXPECT_LT(std::abs(f.e_theta_v), 1e-9 * std::abs(f.e_phi_v)) << "elevation " << el;
+  }
+}
+
+TEST(PowerBalance, LosslessModelsRadiateTheirInputPower) {
+  // Energy conservation (Poynting's theorem): with no losses the power integrated over the
+  // far-field sphere (or half-space over a perfect ground) equals the feed power. The issue's
+  // tolerance is 1%; the Galerkin solution meets it far more tightly.
+  std::vector<Model> models = {Dipole(0.5, 1e-4, 41), Dipole(1.3, 1e-3, 61)};
+  Model bent = HorizontalDipole(0.7, 1e-3, 31, 0.3);
+  bent.wires.push_back(testing::Wire("drop", {0.35, 0, 0.3}, {0.35, 0, 0.0}, 1e-3, 9));
+  bent.ground.kind = GroundKind::kPerfect;
+  models.push_back(bent);
+  for (const Model& m : models) {
+    const Solved s = SolveModel(m);
+    const PatternResult p = ComputePattern(s.sim, s.result);
+    EXPECT_NEAR(p.power.radiated_w, p.power.input_w, 0.01 * p.power.input_w);
+    EXPECT_LT(std::abs(p.power.balance_error), 0.01);
+    EXPECT_TRUE(p.warnings.empty());
+  }
+}
+
+TEST(PowerBalance, CurrentsThatDoNotConserveEnergyAreFlagged) {
+  // The check compares the feed power with the far field of the currents. Galerkin testing
+  // conserves energy on any mesh to the accuracy of the integration (measured 1e-5 even with
+  // one-wavelength segments), so a real failure needs broken integration; here the currents
+  // of a solved dipole are perturbed instead, which must trip the 2% warning.
+  Solved s = SolveModel(Dipole(0.5, 1e-4, 41));
+  for (SegmentCurrent& c : s.result.currents) {
+    c.current_start_a *= 1.1;
+    c.current_end_a *= 1.1;
+  }
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  EXPECT_NEAR(p.power.balance_error, 0.21, 0.01);  // 1.1^2 - 1
+  ASSERT_EQ(p.warnings.size(), 1u);
+  EXPECT_NE(p.warnings[0].message.find("power balance is off by 21.0%"), std::string::npos)
+      << p.warnings[0].message;
+}
+
+}  // namespace
+}  // namespace wirefield
