@@ -12,6 +12,7 @@
 
 #include "core/constants.hpp"
 #include "fill/assemble.hpp"
+#include "fill/conductor.hpp"
 #include "geometry/mesh.hpp"
 #include "post/network.hpp"
 #include "solve/dense.hpp"
@@ -108,6 +109,7 @@ SolveResult Simulation::Solve(double frequency_hz) const {
   auto t0 = std::chrono::steady_clock::now();
   Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz);
   fill::AddLoads(mesh, model, frequency_hz, &z);
+  fill::AddConductorLoss(mesh, model, frequency_hz, &z);
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
   r.fill_time_s = Seconds(t0);
   t0 = std::chrono::steady_clock::now();
@@ -158,6 +160,16 @@ SolveResult Simulation::Solve(double frequency_hz) const {
     c.current_end_a = at_end[s];
     c.current_a = 0.5 * (at_start[s] + at_end[s]);
     r.currents.push_back(c);
+    // Skin-effect loss: 0.5 Re(Z') L int_0^1 |I(t)|^2 dt for the linear current.
+    const WireSpec& wire = model.wires[seg.wire];
+    if (wire.conductivity_s_per_m) {
+      const double r_per_m = std::real(fill::WireImpedancePerMetre(
+          seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz));
+      const double mean_square = (std::norm(at_start[s]) + std::norm(at_end[s]) +
+                                  std::real(at_start[s] * std::conj(at_end[s]))) /
+                                 3.0;
+      r.wire_loss_w += 0.5 * r_per_m * seg.length_m() * mean_square;
+    }
   }
   return r;
 }

@@ -8,6 +8,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "fill/conductor.hpp"
 #include "fill/kernel.hpp"
 
 namespace wirefield::fill {
@@ -141,6 +142,35 @@ void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_h
     const geometry::Port& port = mesh.load_ports[l];
     for (const auto& [bm, sm] : port.bases) {
       for (const auto& [bn, sn] : port.bases) (*z)(bm, bn) += sm * sn * zl;
+    }
+  }
+}
+
+void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+                      Eigen::MatrixXcd* z) {
+  std::vector<std::vector<PieceRef>> on_segment(mesh.segments.size());
+  for (size_t b = 0; b < mesh.bases.size(); ++b) {
+    const geometry::Basis& basis = mesh.bases[b];
+    for (int p = 0; p < basis.piece_count; ++p) {
+      const geometry::Piece& piece = basis.pieces[p];
+      on_segment[piece.segment].push_back({static_cast<int>(b), piece.alpha(), piece.beta()});
+    }
+  }
+  for (size_t s = 0; s < mesh.segments.size(); ++s) {
+    const geometry::Segment& seg = mesh.segments[s];
+    const WireSpec& wire = model.wires[seg.wire];
+    if (!wire.conductivity_s_per_m) continue;
+    const Complex per_metre = WireImpedancePerMetre(seg.radius_m, *wire.conductivity_s_per_m,
+                                                    wire.relative_permeability, frequency_hz);
+    const Complex zs = per_metre * seg.length_m();
+    // int_0^1 (a_m + b_m t)(a_n + b_n t) dt for the two pieces' linear currents.
+    for (const PieceRef& pm : on_segment[s]) {
+      for (const PieceRef& pn : on_segment[s]) {
+        const double overlap = pm.alpha * pn.alpha +
+                               0.5 * (pm.alpha * pn.beta + pm.beta * pn.alpha) +
+                               pm.beta * pn.beta / 3.0;
+        (*z)(pm.basis, pn.basis) += zs * overlap;
+      }
     }
   }
 }

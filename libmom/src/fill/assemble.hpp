@@ -26,6 +26,11 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
               Eigen::MatrixXcd* z);
 
+// Adds the skin-effect impedance of lossy wires (Model::wires[].conductivity_s_per_m) as a
+// distributed series impedance: Z_mn += Z' int f_m . f_n dl over each segment.
+void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+                      Eigen::MatrixXcd* z);
+
 // The delta-gap excitation of every feed.
 Eigen::VectorXcd AssembleExcitation(const geometry::Mesh& mesh, const Model& model);
 
