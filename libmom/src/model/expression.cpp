@@ -55,8 +55,9 @@ bool IsReservedName(std::string_view name, std::string* reason) {
 
 bool IsClauseWord(std::string_view name) {
   static constexpr std::string_view kWords[] = {
-      "segments", "radius",       "voltage",      "series", "parallel", "R", "L",
-      "C",        "permittivity", "conductivity", "from",   "to",       "at"};
+      "segments", "radius", "voltage", "series",       "parallel",
+      "R",        "L",      "C",       "permittivity", "conductivity",
+      "from",     "to",     "at",      "material",     "permeability"};
   for (std::string_view w : kWords) {
     if (w == name) return true;
   }

@@ -12,6 +12,7 @@
 #include <memory>
 #include <string_view>
 
+#include "core/materials.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
 #include "model/units.hpp"
@@ -310,6 +311,7 @@ class Parser {
     }
     std::optional<double> radius_m;
     bool have_segments = false;
+    ConductorClauses conductor;
     while (Peek().kind != TokenKind::kEnd) {
       const Token& clause = Peek();
       if (IsWord("radius")) {
@@ -348,18 +350,121 @@ class Parser {
         }
         wire.segments = static_cast<int>(n);
         have_segments = true;
+      } else if (IsWord("material") || IsWord("conductivity") || IsWord("permeability")) {
+        Conductor(context, &conductor);
       } else {
         throw Error(clause,
-                    fmt::format("{}: unexpected {}; after the points come 'radius R' and an "
-                                "optional 'segments N'",
+                    fmt::format("{}: unexpected {}; after the points come 'radius R' and the "
+                                "optional 'segments N', 'material NAME' or 'conductivity=SIGMA "
+                                "[permeability=MU_R]'",
                                 context, Quote(clause)));
       }
     }
     if (!radius_m) throw Expected(context, "'radius R'");
     wire.radius_m = *radius_m;
+    if (conductor.permeability && !conductor.conductivity) {
+      throw Error(*conductor.permeability_token,
+                  fmt::format("{}: permeability= needs conductivity=SIGMA beside it (a table "
+                              "material sets its own)",
+                              context));
+    }
+    if (conductor.material) {
+      const core::Material* entry = core::FindMaterial(*conductor.material);
+      wire.material = *conductor.material;
+      wire.conductivity_s_per_m = entry->conductivity_s_per_m;
+      wire.relative_permeability = entry->relative_permeability;
+    } else if (conductor.conductivity) {
+      wire.conductivity_s_per_m = *conductor.conductivity;
+      wire.relative_permeability = conductor.permeability.value_or(1.0);
+    }
     wire_lines_[wire.name] = wire.location;
     wire_index_[wire.name] = model_.wires.size();
     model_.wires.push_back(std::move(wire));
+  }
+
+  // The conductor clauses of a wire, as read; checked against each other as they come.
+  struct ConductorClauses {
+    std::optional<std::string> material;
+    std::optional<Token> material_token;
+    std::optional<double> conductivity;
+    std::optional<double> permeability;
+    std::optional<Token> permeability_token;
+  };
+
+  // Reads one of `material NAME`, `conductivity=SIGMA`, `permeability=MU_R`.
+  void Conductor(const std::string& context, ConductorClauses* c) {
+    const Token clause = Next();
+    const std::string& word = clause.text;
+    auto twice = [&] { return Error(clause, fmt::format("{}: {} is given twice", context, word)); };
+    auto both = [&] {
+      return Error(clause, fmt::format("{}: give either 'material NAME' or 'conductivity=SIGMA', "
+                                       "not both",
+                                       context));
+    };
+    if (word == "material") {
+      if (c->material) throw twice();
+      if (c->conductivity) throw both();
+      const Token& name = Peek();
+      if (name.kind != TokenKind::kName) {
+        throw Expected(context, fmt::format("a material name after 'material' ({}); for a "
+                                            "number write conductivity=SIGMA",
+                                            MaterialList()));
+      }
+      if (core::FindMaterial(name.text) == nullptr) {
+        throw Error(name,
+                    fmt::format("{}: unknown material '{}'{}; the materials are {}, or "
+                                "write conductivity=SIGMA (S/m)",
+                                context, Shorten(name.text),
+                                DidYouMeanAside(name.text, core::MaterialNames()), MaterialList()));
+      }
+      Next();
+      if (c->permeability) {
+        throw Error(*c->permeability_token,
+                    fmt::format("{}: permeability= goes with conductivity=SIGMA; material "
+                                "'{}' sets its own",
+                                context, name.text));
+      }
+      c->material = name.text;
+      c->material_token = name;
+      return;
+    }
+    ExpectPunct("=", context, fmt::format("'=' after {}", word));
+    const Measured m = Expression();
+    if (word == "conductivity") {
+      if (c->conductivity) throw twice();
+      if (c->material) throw both();
+      const double sigma = Plain(m, context + ": conductivity", "in S/m");
+      if (sigma <= 0.0) {
+        throw Error(m.start, fmt::format("{}: conductivity must be positive; got {} S/m (leave "
+                                         "it out for a perfect conductor)",
+                                         context, FormatNumber(sigma)));
+      }
+      c->conductivity = sigma;
+    } else {
+      if (c->permeability) throw twice();
+      if (c->material) {
+        throw Error(clause, fmt::format("{}: permeability= goes with conductivity=SIGMA; "
+                                        "material '{}' sets its own",
+                                        context, *c->material));
+      }
+      const double mu_r =
+          Plain(m, context + ": permeability", "relative to vacuum; 1 for non-magnetic metals");
+      if (mu_r < 1.0) {
+        throw Error(m.start, fmt::format("{}: permeability must be at least 1 (relative to "
+                                         "vacuum; 1 for non-magnetic metals); got {}",
+                                         context, FormatNumber(mu_r)));
+      }
+      c->permeability = mu_r;
+      c->permeability_token = clause;
+    }
+  }
+
+  // "copper, hard_drawn_copper, ..." for messages: the table names, alternative spellings
+  // after them.
+  static std::string MaterialList() {
+    std::string list;
+    for (const std::string& n : core::MaterialNames()) list += (list.empty() ? "" : ", ") + n;
+    return list;
   }
 
   WirePointSpec WirePoint(const std::string& context) {
