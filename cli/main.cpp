@@ -55,6 +55,7 @@ int Run(int argc, char** argv) {
       "Run `wirefield COMMAND --help` for a command's options; docs/commands.md has them all.");
   std::vector<wirefield::cli::Command> commands;
   commands.push_back(wirefield::cli::AddSolveCommand(program));
+  commands.push_back(wirefield::cli::AddPatternCommand(program));
 
   try {
     program.parse(argc, argv);

@@ -1,0 +1,218 @@
+// Command-line program: `wirefield pattern MODEL`: solve one model at one frequency, compute
+// its far-field pattern and print the gain report (text or, with --json, the contract's JSON);
+// --csv and --svg also write the cuts to files. Flags -> Model, PatternOptions ->
+// Simulation::Solve -> ComputePattern -> FormatPattern* -> stdout and files (written whole).
+#include "wirefield/pattern.hpp"
+
+#include <fmt/format.h>
+
+#include <cerrno>
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <cstring>
+#include <filesystem>
+#include <fstream>
+#include <memory>
+#include <optional>
+#include <string>
+#include <system_error>
+#include <vector>
+
+#include "command.hpp"
+#include "wirefield/report.hpp"
+
+namespace wirefield::cli {
+
+namespace {
+
+// The grid step's bounds: finer than 0 is meaningless; coarser than 10 deg misses the maximum
+// of a lobe by up to 5 deg and blurs beamwidths, and the search cost grows as 1/step^2.
+constexpr double kMaxStep_deg = 10.0;
+
+struct PatternFlags {
+  ModelFlags model;
+  std::string step;       // --step, as typed
+  std::string elevation;  // --elevation, as typed
+  std::string csv_path;
+  std::string svg_path;
+  CLI::Option* step_option = nullptr;
+  CLI::Option* elevation_option = nullptr;
+  CLI::Option* csv_option = nullptr;
+  CLI::Option* svg_option = nullptr;
+};
+
+// An angle option: a plain number of degrees, optionally followed by `deg` ("2", "2.5deg").
+double ParseDegrees(const std::string& text, const std::string& option,
+                    const std::string& example) {
+  const SourceLocation where{option, 1, 1};
+  std::string body = text;
+  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
+  if (body.size() >= 3 && body.compare(body.size() - 3, 3, "deg") == 0) {
+    body.resize(body.size() - 3);
+  }
+  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
+  const char* begin = body.c_str();
+  while (*begin == ' ' || *begin == '\t') ++begin;
+  char* end = nullptr;
+  errno = 0;
+  const double value = std::strtod(begin, &end);
+  if (*begin == '\0' || end == begin || *end != '\0' || errno == ERANGE || !std::isfinite(value)) {
+    throw InputError(where, fmt::format("{} needs an angle in degrees such as {}; got '{}'", option,
+                                        example, text));
+  }
+  return value;
+}
+
+PatternOptions ChosenOptions(const PatternFlags& flags, const Model& model) {
+  PatternOptions options;
+  if (flags.step_option->count() > 0) {
+    options.step_deg = ParseDegrees(flags.step, "--step", "1 or 2.5deg");
+    if (!(options.step_deg > 0.0 && options.step_deg <= kMaxStep_deg)) {
+      throw InputError(SourceLocation{"--step", 1, 1},
+                       fmt::format("--step must be greater than 0 and at most {:.0f} degrees; "
+                                   "got {:.6g}",
+                                   kMaxStep_deg, options.step_deg));
+    }
+  }
+  if (flags.elevation_option->count() > 0) {
+    const double elevation_deg = ParseDegrees(flags.elevation, "--elevation", "10 or 15deg");
+    const bool ground = model.ground.kind != GroundKind::kFree;
+    const double lowest_deg = ground ? 0.0 : -90.0;
+    if (elevation_deg < lowest_deg || elevation_deg > 90.0) {
+      throw InputError(
+          SourceLocation{"--elevation", 1, 1},
+          ground ? fmt::format("--elevation must lie between 0 and 90 degrees over a ground "
+                               "(there is no far field below it); got {:.6g}",
+                               elevation_deg)
+                 : fmt::format("--elevation must lie between -90 and 90 degrees; got {:.6g}",
+                               elevation_deg));
+    }
+    options.azimuth_cut_elevation_deg = elevation_deg;
+  }
+  return options;
+}
+
+// A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
+struct OutputFile {
+  std::string path;
+  std::string text;
+  std::string what;  // "CSV" or "SVG"
+};
+
+void RemoveQuietly(const std::string& path) {
+  std::error_code ignored;
+  std::filesystem::remove(path, ignored);
+}
+
+[[noreturn]] void FailToWrite(const OutputFile& file, const std::string& reason) {
+  throw InputError(SourceLocation{file.path, 0, 0},
+                   fmt::format("cannot write the {} file: {}; check that its folder exists and "
+                               "is writable, or give another path",
+                               file.what, reason));
+}
+
+void WriteFilesAtomically(const std::vector<OutputFile>& files) {
+  std::vector<std::string> written;
+  auto clean_up = [&written] {
+    for (const std::string& tmp : written) RemoveQuietly(tmp);
+  };
+  for (const OutputFile& file : files) {
+    const std::string tmp = file.path + ".tmp";
+    std::FILE* out = std::fopen(tmp.c_str(), "wb");
+    if (out == nullptr) {
+      const std::string reason = std::strerror(errno);
+      clean_up();
+      FailToWrite(file, reason);
+    }
+    written.push_back(tmp);
+    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size();
+    const int errno_after_write = errno;
+    const bool closed = std::fclose(out) == 0;
+    if (!ok || !closed) {
+      clean_up();
+      FailToWrite(file, std::strerror(ok ? errno : errno_after_write));
+    }
+  }
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    std::error_code error;
+    std::filesystem::rename(written[i], files[i].path, error);
+    if (error) {
+      clean_up();
+      FailToWrite(files[i], error.message());
+    }
+  }
+}
+
+int RunPattern(const PatternFlags& flags) {
+  // Check the flags before the (possibly long) file read, mesh and solve.
+  FrequencyFlag(flags.model);
+  Model model = LoadModel(flags.model);
+  const PatternOptions options = ChosenOptions(flags, model);
+  const double frequency_hz = ChosenFrequency(flags.model, model);
+  SimulationOptions simulation_options;
+  simulation_options.max_frequency_hz = frequency_hz;
+  Simulation simulation(std::move(model), simulation_options);
+  PrintWarnings(simulation.warnings());
+  const SolveResult solved = simulation.Solve(frequency_hz);
+  const PatternResult pattern = ComputePattern(simulation, solved, options);
+  PrintWarnings(pattern.warnings);
+
+  // Format everything before writing anything, so a failure never leaves half a result.
+  std::vector<OutputFile> files;
+  if (flags.csv_option->count() > 0) {
+    files.push_back({flags.csv_path, FormatPatternCsv(pattern), "CSV"});
+  }
+  if (flags.svg_option->count() > 0) {
+    files.push_back({flags.svg_path, FormatPatternSvg(simulation, pattern), "SVG"});
+  }
+  std::string output = flags.model.json ? FormatPatternJson(simulation, pattern)
+                                        : FormatPatternText(simulation, pattern);
+  WriteFilesAtomically(files);
+  if (!flags.model.json) {
+    for (const OutputFile& file : files) {
+      output += fmt::format("Wrote the {} file {}\n", file.what, file.path);
+    }
+  }
+  WriteStdout(output);
+  return 0;
+}
+
+}  // namespace
+
+Command AddPatternCommand(CLI::App& program) {
+  auto flags = std::make_shared<PatternFlags>();
+  CLI::App* app = program.add_subcommand(
+      "pattern",
+      "Solve a model at one frequency and compute its radiation pattern: maximum gain (dBi) "
+      "and its direction, take-off angle, gain at low elevations, beamwidths, front-to-back, "
+      "and where the power goes (radiated, loads, wires, efficiency).");
+  AddModelFlags(*app, flags->model, /*with_frequency=*/true);
+  flags->step_option = app->add_option(
+      "--step", flags->step,
+      "Grid step of the search for the maximum and of both cuts, degrees; must be > 0 and "
+      "<= 10. Smaller is finer and slower (the search costs grow as 1/step^2). Default: 1.");
+  flags->step_option->type_name("DEG");
+  flags->elevation_option = app->add_option(
+      "--elevation", flags->elevation,
+      "Elevation of the azimuth cut, degrees above the horizon (0..90 over a ground, -90..90 "
+      "in free space). Default: the take-off angle (elevation of the maximum).");
+  flags->elevation_option->type_name("DEG");
+  flags->csv_option = app->add_option(
+      "--csv", flags->csv_path,
+      "Also write both cuts to FILE as CSV (columns in docs/commands.md). Default: none.");
+  flags->csv_option->type_name("FILE");
+  flags->svg_option = app->add_option(
+      "--svg", flags->svg_path,
+      "Also write both cuts to FILE as an SVG picture of two polar plots. Default: none.");
+  flags->svg_option->type_name("FILE");
+  app->footer(
+      "Examples:\n"
+      "  wirefield pattern models/campsite_vertical.wire\n"
+      "  wirefield pattern models/hiking_club_dipole.wire --json\n"
+      "  wirefield pattern models/campsite_vertical.wire --step 2 --svg vertical.svg --csv "
+      "vertical.csv");
+  return Command{app, [flags] { return RunPattern(*flags); }};
+}
+
+}  // namespace wirefield::cli

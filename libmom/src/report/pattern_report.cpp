@@ -1,0 +1,346 @@
+// Report stage: a computed radiation pattern (PatternResult plus the Simulation's model) as a
+// readable text report, the `pattern` command's JSON document and a CSV of both cuts
+// (docs/commands.md). Every number is checked to be finite first; no radiation (kNoGainDbi)
+// reads "none" in text and -999 in JSON and CSV.
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <filesystem>
+#include <nlohmann/json.hpp>
+#include <string>
+#include <vector>
+
+#include "report/pattern_format.hpp"
+#include "report/text_table.hpp"
+#include "wirefield/pattern.hpp"
+
+namespace wirefield {
+namespace report {
+
+namespace {
+
+void CheckNumber(double value, const std::string& what) {
+  if (!std::isfinite(value)) {
+    throw ComputationError(fmt::format(
+        "the pattern has a non-finite {} ({}); the model may be degenerate or the solve may "
+        "have failed silently",
+        what, value));
+  }
+}
+
+void CheckCut(const PatternCut& cut) {
+  const std::size_t n = cut.angle_deg.size();
+  if (cut.gain_dbi.size() != n || cut.gain_vertical_dbi.size() != n ||
+      cut.gain_horizontal_dbi.size() != n) {
+    throw ComputationError(
+        fmt::format("internal error: the {} cut has arrays of different lengths", cut.plane));
+  }
+  CheckNumber(cut.fixed_angle_deg, cut.plane + " cut fixed angle");
+  for (std::size_t i = 0; i < n; ++i) {
+    CheckNumber(cut.angle_deg[i], cut.plane + " cut angle");
+    CheckNumber(cut.gain_dbi[i], cut.plane + " cut gain");
+    CheckNumber(cut.gain_vertical_dbi[i], cut.plane + " cut vertical gain");
+    CheckNumber(cut.gain_horizontal_dbi[i], cut.plane + " cut horizontal gain");
+  }
+  if (cut.beamwidth_deg) CheckNumber(*cut.beamwidth_deg, cut.plane + " cut beamwidth");
+}
+
+}  // namespace
+
+void CheckPattern(const PatternResult& pattern) {
+  CheckNumber(pattern.frequency_hz, "frequency");
+  CheckNumber(pattern.step_deg, "grid step");
+  CheckNumber(pattern.max_gain_dbi, "maximum gain");
+  CheckNumber(pattern.max_gain_elevation_deg, "elevation of the maximum");
+  CheckNumber(pattern.max_gain_azimuth_deg, "azimuth of the maximum");
+  CheckNumber(pattern.takeoff_elevation_deg, "take-off angle");
+  CheckCut(pattern.elevation_cut);
+  CheckCut(pattern.azimuth_cut);
+  if (pattern.front_to_back_db) CheckNumber(*pattern.front_to_back_db, "front-to-back ratio");
+  if (pattern.front_to_side_db) CheckNumber(*pattern.front_to_side_db, "front-to-side ratio");
+  CheckNumber(pattern.power.input_w, "input power");
+  CheckNumber(pattern.power.radiated_w, "radiated power");
+  CheckNumber(pattern.power.loads_w, "power in loads");
+  CheckNumber(pattern.power.wires_w, "power in wires");
+  CheckNumber(pattern.power.efficiency, "efficiency");
+  CheckNumber(pattern.power.balance_error, "power balance error");
+}
+
+bool IsNoGain(double gain_dbi) { return gain_dbi <= kNoGainDbi; }
+
+std::string GainText(double gain_dbi, int decimals) {
+  if (IsNoGain(gain_dbi)) return "none";
+  return fmt::format("{:.{}f}", gain_dbi, decimals);
+}
+
+double GainValue(double gain_dbi) { return IsNoGain(gain_dbi) ? kNoGainDbi : gain_dbi; }
+
+std::string AngleText(double angle_deg) {
+  // Grid angles show exactly (1, 2.5, 0.25); refined angles such as 30.177 show to 0.1 deg,
+  // finer than any pattern step and than a user can aim an antenna.
+  for (int decimals = 0; decimals <= 2; ++decimals) {
+    const double scale = std::pow(10.0, decimals);
+    if (std::abs(angle_deg * scale - std::round(angle_deg * scale)) < 1e-4 * scale) {
+      return fmt::format("{:.{}f}", std::round(angle_deg * scale) / scale + 0.0, decimals);
+    }
+  }
+  return fmt::format("{:.1f}", angle_deg + 0.0);  // + 0.0: no "-0"
+}
+
+std::string GroundWords(const GroundSpec& ground) {
+  switch (ground.kind) {
+    case GroundKind::kFree:
+      return "free space (no ground)";
+    case GroundKind::kPerfect:
+      return "perfect ground plane z = 0";
+    case GroundKind::kReal:
+      return fmt::format("real ground z = 0, relative permittivity {:.6g}, {:.6g} S/m",
+                         ground.permittivity, ground.conductivity_s_per_m);
+  }
+  return "?";
+}
+
+std::string ModelFileName(const std::string& path) {
+  const std::string name = std::filesystem::path(path).filename().string();
+  return name.empty() ? path : name;
+}
+
+namespace {
+
+// Elevations that carry long-distance contacts, the ones portable operators compare
+// antennas at (common practice).
+constexpr double kLowElevations_deg[] = {5.0, 10.0, 15.0, 20.0, 30.0};
+
+// Power the "at 100 W" line scales the budget to: a common HF transmitter output (common
+// practice). The budget is linear in power, so this only rescales.
+constexpr double kScaledPower_w = 100.0;
+
+// The sample of the elevation cut on the front side (0..90 deg) nearest to elevation_deg.
+std::optional<std::size_t> NearestFrontSample(const PatternCut& cut, double elevation_deg) {
+  std::optional<std::size_t> best;
+  for (std::size_t i = 0; i < cut.angle_deg.size(); ++i) {
+    const double angle = cut.angle_deg[i];
+    if (angle < -1e-9 || angle > 90.0 + 1e-9) continue;
+    if (!best || std::abs(angle - elevation_deg) < std::abs(cut.angle_deg[*best] - elevation_deg)) {
+      best = i;
+    }
+  }
+  return best;
+}
+
+// The sample of a cut nearest to angle_deg, when it lies within tolerance_deg of it.
+std::optional<std::size_t> SampleAt(const PatternCut& cut, double angle_deg, double tolerance_deg) {
+  std::optional<std::size_t> best;
+  for (std::size_t i = 0; i < cut.angle_deg.size(); ++i) {
+    if (!best ||
+        std::abs(cut.angle_deg[i] - angle_deg) < std::abs(cut.angle_deg[*best] - angle_deg)) {
+      best = i;
+    }
+  }
+  if (best && std::abs(cut.angle_deg[*best] - angle_deg) <= tolerance_deg + 1e-9) return best;
+  return {};
+}
+
+std::string GainWithUnit(double gain_dbi) {
+  return IsNoGain(gain_dbi) ? "none" : GainText(gain_dbi) + " dBi";
+}
+
+std::string Watts(double power_w) {
+  const double magnitude = std::abs(power_w);
+  if (magnitude == 0.0) return "0 W";
+  if (magnitude >= 1e-3 && magnitude < 1e6) return fmt::format("{:.6g} W", power_w);
+  return fmt::format("{:.4e} W", power_w);
+}
+
+std::string Percent(double part_w, double whole_w) {
+  if (whole_w <= 0.0) return "";
+  return fmt::format("{:7.2f} %", 100.0 * part_w / whole_w);
+}
+
+std::string BeamwidthText(const PatternCut& cut) {
+  if (!cut.beamwidth_deg) return "not defined (the main lobe does not fall 3 dB on both sides)";
+  return fmt::format("{} deg", AngleText(std::round(*cut.beamwidth_deg * 10.0) / 10.0));
+}
+
+nlohmann::json GainArray(const std::vector<double>& gains_dbi) {
+  nlohmann::json out = nlohmann::json::array();
+  for (double gain : gains_dbi) out.push_back(GainValue(gain));
+  return out;
+}
+
+nlohmann::json CutJson(const PatternCut& cut) {
+  nlohmann::json out;
+  out["plane"] = cut.plane;
+  out["fixed_angle_deg"] = cut.fixed_angle_deg;
+  out["angle_deg"] = cut.angle_deg;
+  out["gain_dbi"] = GainArray(cut.gain_dbi);
+  out["gain_vertical_dbi"] = GainArray(cut.gain_vertical_dbi);
+  out["gain_horizontal_dbi"] = GainArray(cut.gain_horizontal_dbi);
+  out["beamwidth_deg"] = cut.beamwidth_deg ? nlohmann::json(*cut.beamwidth_deg) : nullptr;
+  return out;
+}
+
+nlohmann::json OptionalJson(const std::optional<double>& value) {
+  return value ? nlohmann::json(*value) : nlohmann::json(nullptr);
+}
+
+}  // namespace
+}  // namespace report
+
+std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern) {
+  using report::Align;
+  using report::AngleText;
+  using report::GainText;
+  using report::TextTable;
+  report::CheckPattern(pattern);
+  const Model& model = simulation.model();
+  const PowerBudget& power = pattern.power;
+  std::string out;
+  out += fmt::format("wirefield pattern: {}\n", model.file);
+  out += fmt::format("  frequency        {:.6f} MHz\n", pattern.frequency_hz / 1e6);
+  out += fmt::format("  ground           {}\n", report::GroundWords(model.ground));
+  out += fmt::format("  grid step        {} deg (the search for the maximum and both cuts)\n",
+                     AngleText(pattern.step_deg));
+
+  out += "\nMaximum\n";
+  out += fmt::format("  gain             {} at elevation {} deg, azimuth {} deg\n",
+                     report::GainWithUnit(pattern.max_gain_dbi),
+                     AngleText(pattern.max_gain_elevation_deg),
+                     AngleText(pattern.max_gain_azimuth_deg));
+  out += fmt::format("  take-off angle   {} deg (elevation of the main lobe toward the front)\n",
+                     AngleText(pattern.takeoff_elevation_deg));
+  const PatternCut& elevation = pattern.elevation_cut;
+  if (auto at_max =
+          report::SampleAt(elevation, pattern.max_gain_elevation_deg, pattern.step_deg / 2.0)) {
+    out += fmt::format("  polarization     vertical {}, horizontal {} (at elevation {} deg)\n",
+                       report::GainWithUnit(elevation.gain_vertical_dbi[*at_max]),
+                       report::GainWithUnit(elevation.gain_horizontal_dbi[*at_max]),
+                       AngleText(elevation.angle_deg[*at_max]));
+  }
+
+  if (!elevation.angle_deg.empty()) {
+    out += fmt::format("\nLow angles, toward azimuth {} deg (long-distance contacts)\n",
+                       AngleText(elevation.fixed_angle_deg));
+    TextTable low;
+    low.AddColumn("elevation (deg)", Align::kRight);
+    low.AddColumn("gain (dBi)", Align::kRight);
+    low.AddColumn("vertical (dBi)", Align::kRight);
+    low.AddColumn("horizontal (dBi)", Align::kRight);
+    low.AddColumn("below max (dB)", Align::kRight);
+    std::vector<std::size_t> shown;
+    for (double target_deg : report::kLowElevations_deg) {
+      const auto i = report::NearestFrontSample(elevation, target_deg);
+      if (!i || std::find(shown.begin(), shown.end(), *i) != shown.end()) continue;
+      shown.push_back(*i);
+      const double gain = elevation.gain_dbi[*i];
+      low.AddRow({AngleText(elevation.angle_deg[*i]), GainText(gain),
+                  GainText(elevation.gain_vertical_dbi[*i]),
+                  GainText(elevation.gain_horizontal_dbi[*i]),
+                  report::IsNoGain(gain) || report::IsNoGain(pattern.max_gain_dbi)
+                      ? "none"
+                      : fmt::format("{:.2f}", pattern.max_gain_dbi - gain)});
+    }
+    out += low.Render(2);
+  }
+
+  out += "\nCuts (-3 dB beamwidth of the main lobe)\n";
+  out += fmt::format("  elevation cut through azimuth {} deg and its back: {}\n",
+                     AngleText(elevation.fixed_angle_deg), report::BeamwidthText(elevation));
+  out += fmt::format("  azimuth cut at elevation {} deg: {}\n",
+                     AngleText(pattern.azimuth_cut.fixed_angle_deg),
+                     report::BeamwidthText(pattern.azimuth_cut));
+  out += fmt::format("  front-to-back    {}\n",
+                     pattern.front_to_back_db ? fmt::format("{:.2f} dB", *pattern.front_to_back_db)
+                                              : "none (no clear front in the azimuth cut)");
+  out += fmt::format("  front-to-side    {}\n",
+                     pattern.front_to_side_db ? fmt::format("{:.2f} dB", *pattern.front_to_side_db)
+                                              : "none (no clear front in the azimuth cut)");
+
+  out += "\nPower budget (share of the power into the feeds)\n";
+  TextTable budget;
+  budget.AddColumn("where", Align::kLeft);
+  budget.AddColumn("power", Align::kRight);
+  budget.AddColumn("share", Align::kRight);
+  budget.AddRow({"into the feeds", report::Watts(power.input_w),
+                 report::Percent(power.input_w, power.input_w)});
+  budget.AddRow({model.ground.kind == GroundKind::kFree ? "radiated (whole sphere)"
+                                                        : "radiated (above the ground)",
+                 report::Watts(power.radiated_w),
+                 report::Percent(power.radiated_w, power.input_w)});
+  budget.AddRow({"lost in loads", report::Watts(power.loads_w),
+                 report::Percent(power.loads_w, power.input_w)});
+  budget.AddRow({"lost in wires", report::Watts(power.wires_w),
+                 report::Percent(power.wires_w, power.input_w)});
+  out += budget.Render(2);
+  out += fmt::format("  efficiency       {:.2f} % (radiated / into the feeds)\n",
+                     100.0 * power.efficiency);
+  out += fmt::format("  balance error    {:+.3f} % ((radiated + loads + wires - input) / input)\n",
+                     100.0 * power.balance_error);
+  if (power.input_w > 0.0) {
+    const double scale = report::kScaledPower_w / power.input_w;
+    out += fmt::format("  at {:.0f} W into the feeds: {} radiated, {} in loads, {} in wires\n",
+                       report::kScaledPower_w, report::Watts(power.radiated_w * scale),
+                       report::Watts(power.loads_w * scale), report::Watts(power.wires_w * scale));
+  }
+
+  if (!pattern.warnings.empty()) {
+    out += "\nWarnings\n";
+    for (const Warning& warning : pattern.warnings) out += "  " + ToString(warning) + "\n";
+  }
+
+  out +=
+      "\nGains are relative to the power delivered to the feed terminals (dBi), so losses in "
+      "loads,\nwires and ground lower them. Elevation is measured up from the horizon, azimuth "
+      "from +x\ntoward +y. Full cuts: --csv FILE or --svg FILE.\n";
+  out +=
+      "Caution: in the direction of maximum gain the field of a transmitting antenna is "
+      "strongest;\nnear the antenna it can exceed RF exposure limits, and wire ends and loads "
+      "carry high RF\nvoltage. Keep people clear, keep masts and wires well away from power "
+      "lines, and follow\nlocal rules and licensed practice.\n";
+  return out;
+}
+
+std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern) {
+  report::CheckPattern(pattern);
+  nlohmann::json doc;
+  doc["model"] = simulation.model().file;
+  doc["frequency_hz"] = pattern.frequency_hz;
+  doc["max_gain_dbi"] = report::GainValue(pattern.max_gain_dbi);
+  doc["max_gain_elevation_deg"] = pattern.max_gain_elevation_deg;
+  doc["max_gain_azimuth_deg"] = pattern.max_gain_azimuth_deg;
+  doc["input_power_w"] = pattern.power.input_w;
+  doc["radiated_power_w"] = pattern.power.radiated_w;
+  doc["efficiency"] = pattern.power.efficiency;
+  doc["takeoff_elevation_deg"] = pattern.takeoff_elevation_deg;
+  doc["step_deg"] = pattern.step_deg;
+  doc["loads_power_w"] = pattern.power.loads_w;
+  doc["wires_power_w"] = pattern.power.wires_w;
+  doc["power_balance_error"] = pattern.power.balance_error;
+  doc["front_to_back_db"] = report::OptionalJson(pattern.front_to_back_db);
+  doc["front_to_side_db"] = report::OptionalJson(pattern.front_to_side_db);
+  doc["elevation_cut"] = report::CutJson(pattern.elevation_cut);
+  doc["azimuth_cut"] = report::CutJson(pattern.azimuth_cut);
+  doc["warnings"] = nlohmann::json::array();
+  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  for (const Warning& warning : pattern.warnings) doc["warnings"].push_back(ToString(warning));
+  return doc.dump(2) + "\n";
+}
+
+std::string FormatPatternCsv(const PatternResult& pattern) {
+  report::CheckPattern(pattern);
+  std::string out =
+      "plane,fixed_angle_deg,angle_deg,gain_dbi,gain_vertical_dbi,gain_horizontal_dbi\n";
+  for (const PatternCut* cut : {&pattern.elevation_cut, &pattern.azimuth_cut}) {
+    for (std::size_t i = 0; i < cut->angle_deg.size(); ++i) {
+      out += fmt::format("{},{:.10g},{:.10g},{:.6f},{:.6f},{:.6f}\n", cut->plane,
+                         cut->fixed_angle_deg + 0.0, cut->angle_deg[i] + 0.0,  // + 0.0: no "-0"
+                         report::GainValue(cut->gain_dbi[i]),
+                         report::GainValue(cut->gain_vertical_dbi[i]),
+                         report::GainValue(cut->gain_horizontal_dbi[i]));
+    }
+  }
+  return out;
+}
+
+}  // namespace wirefield
