@@ -107,6 +107,19 @@ void BM_FillAndSolve1000(benchmark::State& state) {
 }
 BENCHMARK(BM_FillAndSolve1000)->Unit(benchmark::kMillisecond);
 
+// The default pattern (1 degree grid, cuts, power integration) of a 200-unknown model over
+// a perfect ground, including its solve: the budget is one second.
+void BM_Pattern200(benchmark::State& state) {
+  wirefield::Model m = LongWire(201);
+  m.ground.kind = wirefield::GroundKind::kPerfect;
+  for (auto _ : state) {
+    wirefield::Simulation sim(m);
+    const wirefield::SolveResult r = sim.Solve(14.2e6);
+    benchmark::DoNotOptimize(wirefield::ComputePattern(sim, r));
+  }
+}
+BENCHMARK(BM_Pattern200)->Unit(benchmark::kMillisecond);
+
 }  // namespace
 
 BENCHMARK_MAIN();

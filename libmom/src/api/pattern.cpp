@@ -19,6 +19,8 @@ constexpr double kDeg = core::kPi / 180.0;
 constexpr double kBalanceTolerance = 0.02;
 // An azimuth cut whose gains vary less than this (dB) has no front to speak of.
 constexpr double kMinFrontContrastDb = 3.0;
+// Grid step of the search for the maximum (the cuts use the user's step).
+constexpr double kSearchStepDeg = 2.0;
 // Lobes whose peaks differ by less than this (dB) count as equally strong.
 constexpr double kLobeTieDb = 0.05;
 
@@ -146,35 +148,40 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   const double step = 90.0 / per_quadrant;
   r.step_deg = step;
 
-  // Grid search for the maximum.
+  // Grid search for the maximum, on a grid no finer than kSearchStepDeg (wire antennas have
+  // no lobes narrower than several times that), then refined off the grid below.
   const int n_az = 4 * per_quadrant;
   const int el_lo = over_ground ? 0 : -per_quadrant;
+  const int search_per_quadrant =
+      std::min(per_quadrant, static_cast<int>(std::ceil(90.0 / kSearchStepDeg - 1e-9)));
+  const double search_step = 90.0 / search_per_quadrant;
   double best = -INFINITY;
-  for (int ie = el_lo; ie <= per_quadrant; ++ie) {
-    const double el = ie * step;
-    const int az_count = ie == per_quadrant || ie == -per_quadrant ? 1 : n_az;
-    for (int ia = 0; ia < az_count; ++ia) {
-      const FarFieldPoint p = eval.At(el, ia * step);
+  for (int ie = over_ground ? 0 : -search_per_quadrant; ie <= search_per_quadrant; ++ie) {
+    const double el = ie * search_step;
+    const bool pole = std::abs(ie) == search_per_quadrant;
+    for (int ia = 0; ia < (pole ? 1 : 4 * search_per_quadrant); ++ia) {
+      const FarFieldPoint p = eval.At(el, ia * search_step);
       if (p.gain_dbi > best) {
         best = p.gain_dbi;
         r.max_gain_dbi = p.gain_dbi;
         r.max_gain_elevation_deg = el;
-        r.max_gain_azimuth_deg = ia * step;
+        r.max_gain_azimuth_deg = ia * search_step;
       }
     }
   }
 
   // Refine the maximum off the grid: alternate golden-section searches in elevation and
-  // azimuth within one step of the best grid point.
+  // azimuth within one search step of the best grid point.
   const double el_min = over_ground ? 0.0 : -90.0;
   auto gain_at = [&](double el, double az) { return eval.At(el, az).gain_dbi; };
   {
     double el = r.max_gain_elevation_deg, az = r.max_gain_azimuth_deg;
     for (int round = 0; round < 2; ++round) {
-      el = GoldenMax([&](double e) { return gain_at(e, az); }, std::max(el_min, el - step),
-                     std::min(90.0, el + step));
+      el = GoldenMax([&](double e) { return gain_at(e, az); }, std::max(el_min, el - search_step),
+                     std::min(90.0, el + search_step));
       if (std::abs(el) < 90.0 - 1e-9) {
-        az = GoldenMax([&](double a) { return gain_at(el, a); }, az - step, az + step);
+        az =
+            GoldenMax([&](double a) { return gain_at(el, a); }, az - search_step, az + search_step);
       }
     }
     const double refined = gain_at(el, az);

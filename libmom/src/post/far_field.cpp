@@ -12,18 +12,20 @@
 namespace wirefield::post {
 namespace {
 
-// int_0^1 exp(j psi t) dt and int_0^1 t exp(j psi t) dt, with series for small psi.
-void LinearPhaseIntegrals(double psi, Complex* a0, Complex* a1) {
-  const Complex j(0.0, 1.0);
+// e_s int_0^1 exp(j psi t) dt and e_s int_0^1 t exp(j psi t) dt with e_e = e_s exp(j psi):
+// the phases of the two ends come in, so no exponential is evaluated here. Series for small
+// psi, where the closed form cancels.
+void LinearPhaseIntegrals(double psi, Complex e_s, Complex e_e, Complex* a0, Complex* a1) {
   if (std::abs(psi) < 1e-2) {
     const double p2 = psi * psi;
-    *a0 = Complex(1.0 - p2 / 6.0 + p2 * p2 / 120.0, psi / 2.0 - p2 * psi / 24.0);
-    *a1 = Complex(0.5 - p2 / 8.0 + p2 * p2 / 144.0, psi / 3.0 - p2 * psi / 30.0);
+    *a0 = e_s * Complex(1.0 - p2 / 6.0 + p2 * p2 / 120.0, psi / 2.0 - p2 * psi / 24.0);
+    *a1 = e_s * Complex(0.5 - p2 / 8.0 + p2 * p2 / 144.0, psi / 3.0 - p2 * psi / 30.0);
     return;
   }
-  const Complex e = std::polar(1.0, psi);
-  *a0 = (e - 1.0) / (j * psi);
-  *a1 = e / (j * psi) + (e - 1.0) / (psi * psi);
+  const Complex minus_j_over_psi(0.0, -1.0 / psi);  // 1 / (j psi)
+  const Complex diff = e_e - e_s;
+  *a0 = diff * minus_j_over_psi;
+  *a1 = e_e * minus_j_over_psi + diff / (psi * psi);
 }
 
 }  // namespace
@@ -35,27 +37,37 @@ FarFieldSource::FarFieldSource(const std::vector<SegmentCurrent>& currents, doub
   for (const SegmentCurrent& c : currents) {
     const Vec3 a(c.start_m[0], c.start_m[1], c.start_m[2]);
     const Vec3 b(c.end_m[0], c.end_m[1], c.end_m[2]);
-    elements_.push_back({a, b - a, c.current_start_a, c.current_end_a});
+    elements_.push_back({PointIndex(a), PointIndex(b), b - a, c.current_start_a, c.current_end_a});
     extent_m_ = std::max({extent_m_, a.norm(), b.norm()});
     if (perfect_ground) {
       // Image: mirrored in z = 0, current (-Ix, -Iy, Iz): the mirrored segment carries -I.
       const Vec3 m(1.0, 1.0, -1.0);
-      elements_.push_back(
-          {a.cwiseProduct(m), (b - a).cwiseProduct(m), -c.current_start_a, -c.current_end_a});
+      elements_.push_back({PointIndex(a.cwiseProduct(m)), PointIndex(b.cwiseProduct(m)),
+                           (b - a).cwiseProduct(m), -c.current_start_a, -c.current_end_a});
     }
   }
 }
 
+int FarFieldSource::PointIndex(const Vec3& p) {
+  // Consecutive segments share ends: look back a few points only (linear cost overall).
+  const int n = static_cast<int>(points_.size());
+  for (int i = n - 1; i >= std::max(0, n - 4); --i) {
+    if (points_[i] == p) return i;
+  }
+  points_.push_back(p);
+  return n;
+}
+
 CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {
+  thread_local std::vector<Complex> phase;
+  phase.resize(points_.size());
+  for (size_t i = 0; i < points_.size(); ++i) phase[i] = std::polar(1.0, k_ * rhat.dot(points_[i]));
   CVec3 n = CVec3::Zero();
   for (const Element& e : elements_) {
-    const double psi = k_ * rhat.dot(e.delta);
     Complex a0, a1;
-    LinearPhaseIntegrals(psi, &a0, &a1);
+    LinearPhaseIntegrals(k_ * rhat.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
     // int_0^1 (i0 + (i1 - i0) t) exp(jk rhat.(start + delta t)) dt, times the length vector.
-    const Complex integral =
-        std::polar(1.0, k_ * rhat.dot(e.start)) * (e.i0 * a0 + (e.i1 - e.i0) * a1);
-    n += e.delta.cast<Complex>() * integral;
+    n += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
   }
   return n;
 }

@@ -36,13 +36,15 @@ class FarFieldSource {
 
  private:
   struct Element {
-    Vec3 start;
+    int start, end;  // indices into points_
     Vec3 delta;      // end - start
     Complex i0, i1;  // current at start, end
   };
+  int PointIndex(const Vec3& p);
   CVec3 RadiationVector(const Vec3& rhat) const;
 
   std::vector<Element> elements_;
+  std::vector<Vec3> points_;  // segment ends, shared by neighbours (one phase each)
   double k_ = 0.0;
   double extent_m_ = 0.0;  // largest distance of any element end from the origin
   bool upper_half_only_ = false;
