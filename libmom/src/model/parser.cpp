@@ -405,10 +405,18 @@ class Parser {
       if (c->material) throw twice();
       if (c->conductivity) throw both();
       const Token& name = Peek();
+      if (name.kind == TokenKind::kEnd) {
+        throw Error(name, fmt::format("{}: missing a material name after 'material' (the "
+                                      "materials are {})",
+                                      context, MaterialList()));
+      }
+      if (name.kind == TokenKind::kNumber) {
+        throw Error(name, fmt::format("{}: material takes a name ({}), not a number; for a "
+                                      "conductivity in S/m write conductivity={}",
+                                      context, MaterialList(), name.text));
+      }
       if (name.kind != TokenKind::kName) {
-        throw Expected(context, fmt::format("a material name after 'material' ({}); for a "
-                                            "number write conductivity=SIGMA",
-                                            MaterialList()));
+        throw Expected(context, fmt::format("a material name ({})", MaterialList()));
       }
       if (core::FindMaterial(name.text) == nullptr) {
         throw Error(name,
@@ -459,11 +467,18 @@ class Parser {
     }
   }
 
-  // "copper, hard_drawn_copper, ..." for messages: the table names, alternative spellings
-  // after them.
+  // "copper, ..., aluminium (or aluminum), ..." for messages: the table names in table
+  // order, each followed by its other spellings.
   static std::string MaterialList() {
+    const std::vector<std::string> names = core::MaterialNames();
     std::string list;
-    for (const std::string& n : core::MaterialNames()) list += (list.empty() ? "" : ", ") + n;
+    for (const std::string& n : names) {
+      if (core::FindMaterial(n)->name != n) continue;  // another spelling, listed below
+      list += (list.empty() ? "" : ", ") + n;
+      for (const std::string& other : names) {
+        if (other != n && core::FindMaterial(other)->name == n) list += " (or " + other + ")";
+      }
+    }
     return list;
   }
 
