@@ -1,7 +1,8 @@
 // Fill stage: the internal (skin-effect) impedance per metre of a round wire of finite
 // conductivity, which the fill adds along each lossy wire. Inputs: radius, conductivity,
 // relative permeability, frequency (SI); output: ohm per metre, e^{jwt} convention (real part
-// the AC resistance, imaginary part w times the internal inductance). See docs/numerics.md.
+// the AC resistance, imaginary part w times the internal inductance). See the conductor
+// section of docs/model-language.md.
 #pragma once
 
 #include <complex>

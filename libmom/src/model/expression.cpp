@@ -31,7 +31,7 @@ std::vector<std::string> Scope::Names() const {
 const std::vector<std::string>& FunctionNames() {
   static const std::vector<std::string> kNames = {"sqrt", "sin",  "cos",   "tan", "asin",
                                                   "acos", "atan", "atan2", "exp", "log",
-                                                  "abs",  "min",  "max"};
+                                                  "abs",  "min",  "max",   "awg"};
   return kNames;
 }
 
@@ -67,6 +67,12 @@ bool IsClauseWord(std::string_view name) {
 std::string FormatNumber(double value) { return fmt::format("{:.6g}", value); }
 
 namespace {
+
+// awg(n): gauges 0000 (written -3) to 56, the range of the ASTM B258 table (from memory);
+// No. 36 is 0.005 in = 0.127 mm exactly (ASTM B258 formula; REFERENCES.md section 3).
+constexpr double kAwgThickest = -3.0;
+constexpr double kAwgThinnest = 56.0;
+constexpr double kAwg36Diameter_m = 0.127e-3;
 
 class Evaluator {
  public:
@@ -304,7 +310,7 @@ class Evaluator {
                                         f, f));
       }
       throw Error(name, fmt::format("unknown function '{}'{} (functions: sqrt sin cos tan asin "
-                                    "acos atan atan2 exp log abs min max)",
+                                    "acos atan atan2 exp log abs min max awg)",
                                     Shorten(f), DidYouMean(f, FunctionNames())));
     }
     const DepthGuard guard(*this, Peek());
@@ -389,6 +395,22 @@ class Evaluator {
       r.si = std::log(a.si);
     } else if (f == "abs") {
       r = Value{std::abs(a.si), a.dimension};
+    } else if (f == "awg") {
+      // American Wire Gauge diameter d_n = 0.005 in * 92^((36 - n)/39) = 0.127 mm *
+      // 92^((36 - n)/39): No. 36 is 0.005 in, No. 0000 (n = -3) is 0.4600 in (the formula of
+      // ASTM B258; REFERENCES.md section 3). The standard rounds its table to 0.1 mil; this is
+      // the unrounded formula.
+      if (!a.dimension.IsNone()) {
+        throw Error(*at[0], fmt::format("awg needs a plain gauge number (14 for AWG 14, -3 for "
+                                        "0000); got {}",
+                                        Describe(a.dimension)));
+      }
+      if (a.si != std::floor(a.si) || a.si < kAwgThickest || a.si > kAwgThinnest) {
+        throw Error(*at[0], fmt::format("awg needs a whole gauge number from {} (for 0000) to "
+                                        "{}; got {}",
+                                        kAwgThickest, kAwgThinnest, FormatNumber(a.si)));
+      }
+      r = Value{kAwg36Diameter_m * std::pow(92.0, (36.0 - a.si) / 39.0), kLength};
     } else if (f == "atan2") {
       if (args[0].dimension != args[1].dimension) {
         throw Error(*at[1], fmt::format("atan2(y, x) needs y and x of one kind; got {} and {}",

@@ -241,7 +241,7 @@ TEST(ExpressionError, UnknownVariableSuggestsTheNearest) {
 TEST(ExpressionError, UnknownFunctionSuggestsTheNearest) {
   EXPECT_EQ(ErrorOf("sqr(2)"),
             "calc:1:1: error: unknown function 'sqr'; did you mean 'sqrt'? (functions: sqrt sin "
-            "cos tan asin acos atan atan2 exp log abs min max)");
+            "cos tan asin acos atan atan2 exp log abs min max awg)");
 }
 
 TEST(ExpressionError, WrongArgumentCountsAreNamed) {
