@@ -275,7 +275,7 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
                   pattern.frequency_hz / 1e6);
 
   std::string out;
-  out += "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n";
+  // No XML declaration: an SVG file is UTF-8 by default and opens with <svg.
   out += fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{0:.0f}\" height=\"{1:.0f}\" "
       "viewBox=\"0 0 {0:.0f} {1:.0f}\" font-family=\"sans-serif\">\n",
