@@ -104,6 +104,39 @@ struct GroundSpec {
   SourceLocation location;
 };
 
+// A transformer at a feed (an end-fed wire's step-up transformer, a balun): turns
+// primary:secondary (transmitter side : antenna side), impedance ratio (secondary/primary)^2.
+struct TransformerSpec {
+  std::string name;
+  std::string feed;  // the feed it sits at
+  double primary_turns = 1.0;
+  double secondary_turns = 1.0;
+  std::optional<double> magnetizing_inductance_h;  // primary side; absent = ideal (infinite)
+  std::optional<double> al_nh_per_turn2;           // core A_L; with primary turns gives L
+  double leakage_inductance_h = 0.0;               // series, primary side
+  std::optional<double> compensation_capacitance_f;  // shunt, transmitter side
+  std::optional<double> core_loss_resistance_ohm;    // shunt, primary side
+  std::optional<double> core_q;                      // alternative: Q of the magnetizing L
+  SourceLocation location;
+};
+
+// A feed line between a feed (or its transformer) and the transmitter.
+struct FeedLineSpec {
+  std::string name;
+  std::string feed;
+  double length_m = 0.0;
+  std::string cable;  // a named cable of the built-in table, or empty
+  double z0_ohm = 50.0;
+  double velocity_factor = 0.66;
+  // Matched loss at two frequencies (dB per 100 m); loss is interpolated as a + b sqrt(f)
+  // + c f through them (conductor and dielectric loss), see docs/numerics.md.
+  double loss1_db_per_100m = 0.0;
+  double loss1_frequency_hz = 10e6;
+  double loss2_db_per_100m = 0.0;
+  double loss2_frequency_hz = 30e6;
+  SourceLocation location;
+};
+
 struct Model {
   std::string file;  // as given by the caller
   std::vector<WireSpec> wires;
@@ -113,6 +146,8 @@ struct Model {
   std::optional<double> frequency_hz;
   SourceLocation frequency_location;
   std::optional<double> z0_ohm;  // reference impedance for SWR; 50 ohm when absent
+  std::vector<TransformerSpec> transformers;  // at most one per feed
+  std::vector<FeedLineSpec> feed_lines;       // at most one per feed
   std::vector<Warning> warnings;  // raised while parsing
 };
 

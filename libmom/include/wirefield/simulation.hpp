@@ -40,6 +40,13 @@ struct FeedResult {
   double swr = 0.0;       // against z0_ohm
   double z0_ohm = 50.0;
   double power_w = 0.0;   // 0.5 Re(V I*): power delivered to the antenna terminals
+  // At the transmitter, through the feed's transformer and line (equal to the terminals'
+  // values when the feed has neither). swr above is against z0_ohm at this point.
+  Complex transmitter_impedance_ohm;
+  double return_loss_db = 0.0;
+  // Shares of the transmitter's power lost in the transformer and the line (0..1).
+  double transformer_loss_fraction = 0.0;
+  double line_loss_fraction = 0.0;
 };
 
 struct LoadResult {

@@ -5,3 +5,5 @@
 #include "wirefield/simulation.hpp"
 #include "wirefield/report.hpp"
 #include "wirefield/pattern.hpp"
+#include "wirefield/network.hpp"
+#include "wirefield/sweep.hpp"

@@ -1,0 +1,53 @@
+// wirefield public API, part 6: frequency sweeps. Solves a Simulation at many frequencies
+// (in parallel across cores, reusing the mesh) and summarises the first feed: SWR at the
+// transmitter, resonances, minimum SWR, SWR bandwidths, per band.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "wirefield/simulation.hpp"
+
+namespace wirefield {
+
+struct SweepOptions {
+  // Worker threads; 0 = one per hardware core. More threads cost memory (one matrix each).
+  int threads = 0;
+};
+
+struct SweepPoint {
+  double frequency_hz = 0.0;
+  Complex feed_impedance_ohm;         // at the first feed's terminals
+  Complex transmitter_impedance_ohm;  // through its transformer and line
+  double swr = 0.0;                   // at the transmitter, against z0_ohm
+  double return_loss_db = 0.0;
+  double transformer_loss_fraction = 0.0;
+  double line_loss_fraction = 0.0;
+};
+
+struct SweepResult {
+  double z0_ohm = 50.0;
+  std::vector<SweepPoint> points;  // in the order of the frequencies given
+  std::vector<double> resonances_hz;  // zero crossings of X at the transmitter, interpolated
+  double min_swr = 0.0;
+  double min_swr_frequency_hz = 0.0;
+  int unknowns = 0;
+  int threads_used = 1;
+  double elapsed_s = 0.0;
+};
+
+// Frequencies from_hz, from_hz + step_hz, ... up to to_hz (inclusive within 1e-9 of a step).
+std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz);
+// points >= 2 frequencies spread evenly from from_hz to to_hz inclusive.
+std::vector<double> FrequencyPoints(double from_hz, double to_hz, int points);
+
+// Solves at every frequency. Throws InputError for an empty or non-positive frequency list.
+SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& frequencies_hz,
+                     const SweepOptions& options = {});
+
+// The frequency ranges (interpolated) where the SWR stays at or below `limit` (e.g. 2.0,
+// 1.5) among the given points: pairs of [low, high] Hz.
+std::vector<std::pair<double, double>> SwrBandwidths(const SweepResult& sweep, double limit);
+
+}  // namespace wirefield
