@@ -160,6 +160,7 @@ std::string Percent(double part_w, double whole_w) {
 
 std::string BeamwidthText(const PatternCut& cut) {
   if (!cut.beamwidth_deg) return "not defined (the main lobe does not fall 3 dB on both sides)";
+  if (*cut.beamwidth_deg >= 360.0 - 1e-6) return "360 deg (within 3 dB of the maximum all round)";
   return fmt::format("{} deg", AngleText(std::round(*cut.beamwidth_deg * 10.0) / 10.0));
 }
 

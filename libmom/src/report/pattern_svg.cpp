@@ -221,6 +221,9 @@ std::string Traces(const Polar& polar, const PatternCut& cut) {
 
 std::string BeamwidthCaption(const PatternCut& cut) {
   if (!cut.beamwidth_deg) return "&#8722;3 dB beamwidth: not defined (the lobe does not close)";
+  if (*cut.beamwidth_deg >= 360.0 - 1e-6) {
+    return "&#8722;3 dB beamwidth: 360&#176; (within 3 dB all round)";
+  }
   return fmt::format("&#8722;3 dB beamwidth: {}&#176;",
                      AngleText(std::round(*cut.beamwidth_deg * 10.0) / 10.0));
 }
