@@ -128,12 +128,16 @@ struct FeedLineSpec {
   std::string cable;  // a named cable of the built-in table, or empty
   double z0_ohm = 50.0;
   double velocity_factor = 0.66;
-  // Matched loss at two frequencies (dB per 100 m); loss is interpolated as a + b sqrt(f)
-  // + c f through them (conductor and dielectric loss), see docs/numerics.md.
+  // Matched loss at two frequencies (dB per 100 m); the attenuation is fitted as
+  // alpha(f) = a sqrt(f) + b f through them (conductor and dielectric loss), see
+  // docs/numerics.md, "Feed chain". Both zero: a lossless line.
   double loss1_db_per_100m = 0.0;
   double loss1_frequency_hz = 10e6;
   double loss2_db_per_100m = 0.0;
   double loss2_frequency_hz = 30e6;
+  // How many of the loss points above are given: 2 (the fit above), 1 (loss1 alone, scaled
+  // as sqrt(f)) or 0 (a lossless line).
+  int loss_points = 2;
   SourceLocation location;
 };
 

@@ -209,7 +209,7 @@ std::vector<Token> LexLine(std::string_view line, const LineSource& source) {
       token.text = std::string(line.substr(i, j - i));
       i = j;
     } else {
-      static constexpr std::string_view kPunct = "(),+-*/^@%=";
+      static constexpr std::string_view kPunct = "(),+-*/^@%=:";  // ":" in turns 2:16
       if (kPunct.find(c) == std::string_view::npos) ThrowBadPunct(c, column, source);
       token.kind = TokenKind::kPunct;
       token.text = std::string(1, c);

@@ -4,6 +4,8 @@
 // at FILE:LINE:COLUMN. Also parses command-line quantities (--freq, --z0) as expressions.
 #include <fmt/format.h>
 
+#include <algorithm>
+#include <cctype>
 #include <cerrno>
 #include <cmath>
 #include <cstdio>
@@ -11,12 +13,15 @@
 #include <map>
 #include <memory>
 #include <string_view>
+#include <tuple>
 
 #include "core/materials.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
 #include "model/units.hpp"
+#include "network/line.hpp"
 #include "wirefield/model.hpp"
+#include "wirefield/network.hpp"
 
 namespace wirefield {
 namespace model {
@@ -35,8 +40,8 @@ constexpr double kBytesPerMatrixEntry = 16.0;
 constexpr double kEndSnapFraction = 1e-12;
 
 const std::vector<std::string>& Keywords() {
-  static const std::vector<std::string> kKeywords = {"units", "let",    "wire",      "feed",
-                                                     "load",  "ground", "frequency", "z0"};
+  static const std::vector<std::string> kKeywords = {
+      "units", "let", "wire", "feed", "load", "ground", "frequency", "z0", "transformer", "line"};
   return kKeywords;
 }
 
@@ -175,10 +180,12 @@ class Parser {
   void Statement() {
     const Token& keyword = Peek();
     if (keyword.kind != TokenKind::kName) {
-      throw Error(keyword, fmt::format("expected a statement ({}) at the start of the line; "
-                                       "got {}",
-                                       "units, let, wire, feed, load, ground, frequency, z0",
-                                       Quote(keyword)));
+      throw Error(
+          keyword,
+          fmt::format("expected a statement ({}) at the start of the line; "
+                      "got {}",
+                      "units, let, wire, feed, load, ground, frequency, z0, transformer, line",
+                      Quote(keyword)));
     }
     Next();
     const std::string& k = keyword.text;
@@ -190,8 +197,13 @@ class Parser {
     if (k == "ground") return Ground(keyword);
     if (k == "frequency") return Frequency(keyword);
     if (k == "z0") return Z0(keyword);
+    if (k == "transformer") return Transformer(keyword);
+    if (k == "line") return FeedLine(keyword);
     std::string hint = DidYouMean(k, Keywords());
-    if (hint.empty()) hint = "; statements are units, let, wire, feed, load, ground, frequency, z0";
+    if (hint.empty())
+      hint =
+          "; statements are units, let, wire, feed, load, ground, frequency, z0, transformer, "
+          "line";
     throw Error(keyword, fmt::format("unknown statement '{}'{}", Shorten(k), hint));
   }
 
@@ -670,6 +682,380 @@ class Parser {
     }
   }
 
+  // ---- the feed chain: transformer and line -------------------------------------------
+  // The feed a transformer or line sits at: a feed defined on an earlier line.
+  std::string ChainFeed(const std::string& context) {
+    if (!IsWord("at")) throw Expected(context, "'at FEED'");
+    Next();
+    const Token& t = Peek();
+    if (t.kind != TokenKind::kName) throw Expected(context, "a feed name after 'at'");
+    Next();
+    if (feed_lines_.count(t.text) == 0) {
+      std::vector<std::string> names;
+      for (const FeedSpec& f : model_.feeds) names.push_back(f.name);
+      throw Error(t, fmt::format("{}: unknown feed '{}'{}{}", context, Shorten(t.text),
+                                 DidYouMeanAside(t.text, names),
+                                 names.empty() ? "; no feed is defined above this line"
+                                               : "; a feed must be defined on an earlier line"));
+    }
+    return t.text;
+  }
+
+  // "=" after a clause word, then a value.
+  Measured ClauseValue(const std::string& context, const Token& clause) {
+    ExpectPunct("=", context, fmt::format("'=' after {}", clause.text));
+    return Expression();
+  }
+
+  double Positive(const Measured& m, const Quantity& q, const std::string& context,
+                  const std::string& what, const std::string& advice) const {
+    const double v = As(m, q, 1.0, fmt::format("{}: {}", context, what));
+    if (!(v > 0.0)) {
+      throw Error(m.start, fmt::format("{}: {} must be positive; got {} {}{}", context, what,
+                                       FormatNumber(v), q.si_unit, advice));
+    }
+    return v;
+  }
+
+  void Transformer(const Token& keyword) {
+    const Token& name_token = Peek();
+    TransformerSpec t;
+    t.location = Loc(keyword);
+    t.name = Name("transformer", "a transformer name (transformer NAME at FEED turns P:S)");
+    CheckNew(transformer_lines_, "transformer", t.name, name_token);
+    const std::string context = fmt::format("transformer '{}'", t.name);
+    const Token feed_token = tokens_[pos_ + 1 < tokens_.size() ? pos_ + 1 : pos_];
+    t.feed = ChainFeed(context);
+    if (const auto it = feed_transformer_.find(t.feed); it != feed_transformer_.end()) {
+      throw Error(feed_token,
+                  fmt::format("{}: feed '{}' already has transformer '{}' ({}); a "
+                              "feed takes one transformer",
+                              context, t.feed, it->second.first, Line(it->second.second)));
+    }
+    bool have_turns = false;
+    std::optional<Token> al_token, magnetizing_token, q_token, coreloss_token, leakage_token;
+    while (Peek().kind != TokenKind::kEnd) {
+      const Token clause = Peek();
+      auto twice = [&] {
+        return Error(clause, fmt::format("{}: {} is given twice", context, clause.text));
+      };
+      if (IsWord("turns")) {
+        if (have_turns) throw twice();
+        Next();
+        const Measured p = Expression();
+        t.primary_turns = Plain(p, context + ": turns", "the primary turns, as in turns 2:16");
+        if (!IsPunct(":")) {
+          throw Expected(context, "':' between the primary and the secondary turns (turns 2:16)");
+        }
+        Next();
+        const Measured s = Expression();
+        t.secondary_turns = Plain(s, context + ": turns", "the secondary turns, as in turns 2:16");
+        for (const auto& [value, at, side] :
+             {std::tuple{t.primary_turns, p.start, "primary (transmitter side)"},
+              std::tuple{t.secondary_turns, s.start, "secondary (antenna side)"}}) {
+          if (!(value > 0.0)) {
+            throw Error(at, fmt::format("{}: the {} turns must be positive; got {}", context, side,
+                                        FormatNumber(value)));
+          }
+        }
+        have_turns = true;
+        continue;
+      }
+      static const std::vector<std::string> kClauses = {
+          "turns", "magnetizing", "al", "leakage", "compensation", "coreloss", "q"};
+      if (clause.kind != TokenKind::kName ||
+          std::find(kClauses.begin(), kClauses.end(), clause.text) == kClauses.end()) {
+        throw Error(
+            clause,
+            fmt::format(
+                "{}: unexpected {}{}; the clauses are turns P:S, magnetizing=L, "
+                "al=A_L, leakage=L, compensation=C, coreloss=R and q=Q",
+                context, Quote(clause),
+                clause.kind == TokenKind::kName ? DidYouMeanAside(clause.text, kClauses) : ""));
+      }
+      Next();
+      const Measured m = ClauseValue(context, clause);
+      const std::string& w = clause.text;
+      if (w == "magnetizing" || w == "al") {
+        if ((w == "magnetizing" && magnetizing_token) || (w == "al" && al_token)) throw twice();
+        if (magnetizing_token || al_token) {
+          throw Error(clause, fmt::format("{}: give either magnetizing=L or al=A_L (which sets L "
+                                          "= A_L * P^2), not both",
+                                          context));
+        }
+        if (w == "magnetizing") {
+          t.magnetizing_inductance_h = Positive(m, InductanceQuantity(), context, "magnetizing",
+                                                " (leave it out for an ideal transformer)");
+          magnetizing_token = clause;
+        } else {
+          double al = 0.0;
+          if (m.value.dimension == kInductance) {
+            al = m.value.si / 1e-9;
+          } else if (m.value.dimension.IsNone()) {
+            al = m.value.si;
+          } else {
+            throw Error(m.start, fmt::format("{}: al needs A_L in nH/turn^2 (a plain number, or "
+                                             "with nH); got {}",
+                                             context, Describe(m.value.dimension)));
+          }
+          if (!(al > 0.0)) {
+            throw Error(m.start, fmt::format("{}: al must be positive; got {} nH/turn^2", context,
+                                             FormatNumber(al)));
+          }
+          t.al_nh_per_turn2 = al;
+          al_token = clause;
+        }
+      } else if (w == "leakage") {
+        if (leakage_token) throw twice();
+        const double l = As(m, InductanceQuantity(), 1.0, context + ": leakage");
+        if (l < 0.0) {
+          throw Error(m.start, fmt::format("{}: leakage must not be negative; got {} H", context,
+                                           FormatNumber(l)));
+        }
+        t.leakage_inductance_h = l;
+        leakage_token = clause;
+      } else if (w == "compensation") {
+        if (t.compensation_capacitance_f) throw twice();
+        t.compensation_capacitance_f = Positive(m, CapacitanceQuantity(), context, "compensation",
+                                                " (leave it out for no capacitor)");
+      } else {
+        const bool is_q = w == "q";
+        if ((is_q && q_token) || (!is_q && coreloss_token)) throw twice();
+        if (q_token || coreloss_token) {
+          throw Error(clause, fmt::format("{}: give either coreloss=R or q=Q, not both", context));
+        }
+        if (is_q) {
+          const double q = Plain(m, context + ": q", "the Q of the magnetizing inductance");
+          if (!(q > 0.0)) {
+            throw Error(m.start,
+                        fmt::format("{}: q must be positive; got {}", context, FormatNumber(q)));
+          }
+          t.core_q = q;
+          q_token = clause;
+        } else {
+          t.core_loss_resistance_ohm = Positive(m, ResistanceQuantity(), context, "coreloss",
+                                                " (leave it out for a lossless core)");
+          coreloss_token = clause;
+        }
+      }
+    }
+    if (!have_turns) {
+      throw Expected(context, "'turns P:S' (transmitter side : antenna side, as in turns 2:16)");
+    }
+    if (q_token && !magnetizing_token && !al_token) {
+      throw Error(*q_token, fmt::format("{}: q= is the Q of the magnetizing inductance; give "
+                                        "magnetizing=L or al=A_L too",
+                                        context));
+    }
+    transformer_lines_[t.name] = t.location;
+    feed_transformer_[t.feed] = {t.name, t.location};
+    model_.transformers.push_back(std::move(t));
+  }
+
+  static std::string CableList() {
+    std::string list;
+    for (const CableInfo& c : CableTable()) list += (list.empty() ? "" : ", ") + c.name;
+    return list;
+  }
+
+  // "rg58" -> "RG-58": the table name that differs only in case and dashes, else the nearest.
+  static std::string CableHint(const std::string& written) {
+    auto fold = [](const std::string& s) {
+      std::string r;
+      for (char c : s) {
+        if (c != '-') r += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+      }
+      return r;
+    };
+    std::vector<std::string> names;
+    for (const CableInfo& c : CableTable()) {
+      if (fold(c.name) == fold(written)) return fmt::format(" (did you mean '{}'?)", c.name);
+      names.push_back(c.name);
+    }
+    return DidYouMeanAside(written, names);
+  }
+
+  void FeedLine(const Token& keyword) {
+    const Token& name_token = Peek();
+    FeedLineSpec line;
+    line.location = Loc(keyword);
+    line.name = Name("line", "a line name (line NAME at FEED length LEN cable=NAME)");
+    CheckNew(line_lines_, "line", line.name, name_token);
+    const std::string context = fmt::format("line '{}'", line.name);
+    const Token feed_token = tokens_[pos_ + 1 < tokens_.size() ? pos_ + 1 : pos_];
+    line.feed = ChainFeed(context);
+    if (const auto it = feed_line_.find(line.feed); it != feed_line_.end()) {
+      throw Error(feed_token,
+                  fmt::format("{}: feed '{}' already has line '{}' ({}); a feed "
+                              "takes one line",
+                              context, line.feed, it->second.first, Line(it->second.second)));
+    }
+    std::optional<Token> length_token, cable_token, z0_token, velocity_token, loss_token;
+    const std::string either = fmt::format(
+        "{}: give either cable=NAME or z0=, velocity= and "
+        "loss=, not both",
+        context);
+    while (Peek().kind != TokenKind::kEnd) {
+      const Token clause = Peek();
+      auto twice = [&] {
+        return Error(clause, fmt::format("{}: {} is given twice", context, clause.text));
+      };
+      static const std::vector<std::string> kClauses = {"length", "cable", "z0", "velocity",
+                                                        "loss"};
+      if (clause.kind != TokenKind::kName ||
+          std::find(kClauses.begin(), kClauses.end(), clause.text) == kClauses.end()) {
+        throw Error(
+            clause,
+            fmt::format(
+                "{}: unexpected {}{}; the clauses are length LEN and either "
+                "cable=NAME or z0=Z velocity=VF [loss=DB@F,DB@F]",
+                context, Quote(clause),
+                clause.kind == TokenKind::kName ? DidYouMeanAside(clause.text, kClauses) : ""));
+      }
+      Next();
+      const std::string& w = clause.text;
+      if (w == "length") {
+        if (length_token) throw twice();
+        const Measured m = Expression();
+        line.length_m = As(m, LengthQuantity(), length_factor_, context + ": length");
+        if (!(line.length_m > 0.0)) {
+          throw Error(m.start, fmt::format("{}: length must be positive; got {} m", context,
+                                           FormatNumber(line.length_m)));
+        }
+        length_token = clause;
+      } else if (w == "cable") {
+        if (cable_token) throw twice();
+        if (z0_token || velocity_token || loss_token) throw Error(clause, either);
+        ExpectPunct("=", context, "'=' after cable");
+        const Token& first = Peek();
+        if (first.kind == TokenKind::kEnd) {
+          throw Error(first, fmt::format("{}: missing a cable name after 'cable=' (the cables "
+                                         "are {})",
+                                         context, CableList()));
+        }
+        std::string written = Next().text;  // RG-58 is three tokens written without spaces
+        while (Peek().kind != TokenKind::kEnd && !Peek().space_before) written += Next().text;
+        const CableInfo* found = nullptr;
+        for (const CableInfo& c : CableTable()) {
+          if (c.name == written) found = &c;
+        }
+        if (found == nullptr) {
+          throw Error(first,
+                      fmt::format("{}: unknown cable '{}'{}; the cables are {}, or give "
+                                  "z0=, velocity= and loss=",
+                                  context, Shorten(written), CableHint(written), CableList()));
+        }
+        line.cable = found->name;
+        line.z0_ohm = found->z0_ohm;
+        line.velocity_factor = found->velocity_factor;
+        line.loss1_db_per_100m = found->loss1_db_per_100m;
+        line.loss1_frequency_hz = found->loss1_frequency_hz;
+        line.loss2_db_per_100m = found->loss2_db_per_100m;
+        line.loss2_frequency_hz = found->loss2_frequency_hz;
+        line.loss_points = 2;
+        cable_token = clause;
+      } else if (w == "z0") {
+        if (z0_token) throw twice();
+        if (cable_token) throw Error(clause, either);
+        line.z0_ohm =
+            Positive(ClauseValue(context, clause), ResistanceQuantity(), context, "z0", "");
+        z0_token = clause;
+      } else if (w == "velocity") {
+        if (velocity_token) throw twice();
+        if (cable_token) throw Error(clause, either);
+        const Measured m = ClauseValue(context, clause);
+        const double vf = Plain(m, context + ": velocity", "the velocity factor, as in 0.66");
+        if (!(vf > 0.0 && vf <= 1.0)) {
+          throw Error(m.start, fmt::format("{}: velocity is the velocity factor, above 0 and at "
+                                           "most 1; got {}",
+                                           context, FormatNumber(vf)));
+        }
+        line.velocity_factor = vf;
+        velocity_token = clause;
+      } else {
+        if (loss_token) throw twice();
+        if (cable_token) throw Error(clause, either);
+        Loss(context, clause, &line);
+        loss_token = clause;
+      }
+    }
+    if (!length_token) throw Expected(context, "'length LEN' (the length of the line)");
+    if (!cable_token) {
+      if (!z0_token) {
+        throw Expected(context, "'cable=NAME' or 'z0=Z velocity=VF loss=DB@F,DB@F' (cables: " +
+                                    CableList() + ")");
+      }
+      if (!velocity_token) {
+        throw Expected(context, "'velocity=VF' (the velocity factor of the line)");
+      }
+      if (!loss_token) line.loss_points = 0;  // documented: no loss= is a lossless line
+    }
+    line_lines_[line.name] = line.location;
+    feed_line_[line.feed] = {line.name, line.location};
+    model_.feed_lines.push_back(std::move(line));
+  }
+
+  // loss=DB@F or loss=DB1@F1,DB2@F2 (dB per 100 m, matched).
+  void Loss(const std::string& context, const Token& clause, FeedLineSpec* line) {
+    ExpectPunct("=", context, "'=' after loss");
+    double db[2] = {0.0, 0.0}, f[2] = {0.0, 0.0};
+    int n = 0;
+    Token first_start;
+    while (true) {
+      if (n == 2) {
+        throw Error(Peek(), fmt::format("{}: loss takes one or two points (loss=1.3@10MHz,"
+                                        "2.5@30MHz); remove the third",
+                                        context));
+      }
+      const Measured m = Expression();
+      if (n == 0) first_start = m.start;
+      db[n] = Plain(m, context + ": loss", "dB per 100 m");
+      if (db[n] < 0.0) {
+        throw Error(m.start, fmt::format("{}: loss must not be negative; got {} dB/100 m", context,
+                                         FormatNumber(db[n])));
+      }
+      if (!IsPunct("@")) {
+        throw Expected(context, "'@' and the frequency of the loss figure (loss=1.3@10MHz)");
+      }
+      Next();
+      const Measured fm = Expression();
+      f[n] = Positive(fm, FrequencyQuantity(), context, "the loss frequency", "");
+      ++n;
+      if (!IsPunct(",")) break;
+      Next();
+    }
+    line->loss1_db_per_100m = db[0];
+    line->loss1_frequency_hz = f[0];
+    line->loss_points = n;
+    if (n == 1) return;
+    if (f[0] == f[1]) {
+      throw Error(first_start, fmt::format("{}: the two loss figures are at the same frequency "
+                                           "{} Hz; give them at two frequencies",
+                                           context, FormatNumber(f[0])));
+    }
+    if ((db[0] == 0.0) != (db[1] == 0.0)) {
+      throw Error(first_start, fmt::format("{}: a line with loss at one frequency has loss at "
+                                           "every frequency; give both figures positive, or "
+                                           "both 0 for a lossless line",
+                                           context));
+    }
+    line->loss2_db_per_100m = db[1];
+    line->loss2_frequency_hz = f[1];
+    const network::LossFit fit = network::FitLoss(*line);
+    if (!fit.exact) {
+      model_.warnings.push_back(Warning{
+          Loc(clause),
+          fmt::format(
+              "{}: the loss grows {} between {} and {} Hz, which a conductor and "
+              "dielectric loss cannot; the fit keeps only the {} term and misses a figure "
+              "by {:.0f}%",
+              context,
+              fit.a_np_per_m_per_sqrt_hz > 0.0 ? "more slowly than sqrt(f)" : "faster than f",
+              FormatNumber(f[0]), FormatNumber(f[1]),
+              fit.a_np_per_m_per_sqrt_hz > 0.0 ? "sqrt(f)" : "f", 100.0 * fit.worst_misfit)});
+    }
+  }
+
   void Ground(const Token& keyword) {
     if (ground_line_) {
       throw Error(keyword,
@@ -783,6 +1169,9 @@ class Parser {
   Scope scope_;
   std::map<std::string, OverrideEntry> overrides_;
   std::map<std::string, SourceLocation> wire_lines_, feed_lines_, load_lines_;
+  // Names of transformers and lines (each kind its own namespace), and what sits at a feed.
+  std::map<std::string, SourceLocation> transformer_lines_, line_lines_;
+  std::map<std::string, std::pair<std::string, SourceLocation>> feed_transformer_, feed_line_;
   std::map<std::string, size_t> wire_index_;
   std::optional<SourceLocation> ground_line_, frequency_line_, z0_line_;
   double length_factor_ = 1.0;  // metres per bare length number (the `units` statement)

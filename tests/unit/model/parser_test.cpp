@@ -440,10 +440,10 @@ TEST(ParseError, UnknownStatementSuggestsTheNearestKeyword) {
             "kit.wire:1:1: error: unknown statement 'wir'; did you mean 'wire'?");
   EXPECT_EQ(ErrorOf("antenna x\n"),
             "kit.wire:1:1: error: unknown statement 'antenna'; statements are units, let, wire, "
-            "feed, load, ground, frequency, z0");
+            "feed, load, ground, frequency, z0, transformer, line");
   EXPECT_EQ(ErrorOf("(1, 2)\n"),
             "kit.wire:1:1: error: expected a statement (units, let, wire, feed, load, ground, "
-            "frequency, z0) at the start of the line; got '('");
+            "frequency, z0, transformer, line) at the start of the line; got '('");
 }
 
 TEST(ParseError, MissingArgumentsAreNamed) {
