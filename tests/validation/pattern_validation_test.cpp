@@ -98,6 +98,20 @@ TEST(HorizontalDipoleOverPerfectGround, BroadsidePlaneCarriesNoVerticalPolarisat
   }
 }
 
+TEST(HorizontalDipoleInFreeSpace, ReportsItsMaximumOnTheHorizonBroadside) {
+  // A horizontal half-wave dipole in free space radiates equally in its whole broadside
+  // plane (rotational symmetry about the wire); among equal directions the report prefers
+  // the horizon, where a take-off angle means something, and no beamwidth exists in that
+  // plane.
+  const Solved s = SolveModel(HorizontalDipole(0.5, 1e-4, 41, 0.0));
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  EXPECT_EQ(p.max_gain_elevation_deg, 0.0);
+  EXPECT_NEAR(std::fmod(p.max_gain_azimuth_deg, 180.0), 90.0, 0.01);
+  EXPECT_FALSE(p.elevation_cut.beamwidth_deg.has_value());
+  ASSERT_TRUE(p.azimuth_cut.beamwidth_deg.has_value());
+  EXPECT_NEAR(*p.azimuth_cut.beamwidth_deg, 78.0, 1.0);  // Balanis §4.6 (from memory)
+}
+
 TEST(PowerBalance, LosslessModelsRadiateTheirInputPower) {
   // Energy conservation (Poynting's theorem): with no losses the power integrated over the
   // far-field sphere (or half-space over a perfect ground) equals the feed power. The issue's

@@ -122,6 +122,8 @@ std::optional<double> Beamwidth(const PatternCut& cut, bool circular) {
   };
   const auto left = walk(-1), right = walk(+1);
   if (!left || !right) return std::nullopt;
+  // Within 3 dB from end to end: no lobe to measure.
+  if (*left + *right >= (n - 1) * step - 1e-9) return std::nullopt;
   return *left + *right;
 }
 
@@ -151,7 +153,6 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   // Grid search for the maximum, on a grid no finer than kSearchStepDeg (wire antennas have
   // no lobes narrower than several times that), then refined off the grid below.
   const int n_az = 4 * per_quadrant;
-  const int el_lo = over_ground ? 0 : -per_quadrant;
   const int search_per_quadrant =
       std::min(per_quadrant, static_cast<int>(std::ceil(90.0 / kSearchStepDeg - 1e-9)));
   const double search_step = 90.0 / search_per_quadrant;
@@ -194,11 +195,29 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   // Equal lobes (a horizontal dipole one wavelength up has two of the same height): the
   // take-off angle is the lowest lobe toward the front within kLobeTieDb of the maximum.
   {
+    // In free space the scan starts at the horizon too: a tie across elevations (a
+    // horizontal dipole's broadside plane) then reports the horizon, not the nadir.
+    if (!over_ground && r.max_gain_elevation_deg < 0.0) {
+      double best_az = 0.0, best_gain = -INFINITY;
+      for (int ia = 0; ia < n_az; ++ia) {
+        const double g = gain_at(0.0, ia * step);
+        if (g > best_gain) {
+          best_gain = g;
+          best_az = ia * step;
+        }
+      }
+      best_az =
+          GoldenMax([&](double a) { return gain_at(0.0, a); }, best_az - step, best_az + step);
+      if (gain_at(0.0, best_az) >= r.max_gain_dbi - kLobeTieDb) {
+        r.max_gain_elevation_deg = 0.0;
+        r.max_gain_azimuth_deg = std::fmod(best_az + 360.0, 360.0);
+      }
+    }
     const double az = r.max_gain_azimuth_deg;
     double lowest = r.max_gain_elevation_deg;
-    for (int ie = el_lo + 1; ie < per_quadrant; ++ie) {
+    for (int ie = 1; ie < per_quadrant; ++ie) {
       const double el = ie * step;
-      if (el >= lowest) break;
+      if (el >= std::abs(lowest) && lowest >= 0.0) break;
       const double g = gain_at(el, az);
       if (g < gain_at(el - step, az) || g < gain_at(el + step, az)) continue;
       const double peak_el =
@@ -224,7 +243,14 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
     const double az = a <= 90.0 ? r.max_gain_azimuth_deg : r.max_gain_azimuth_deg + 180.0;
     Append(&r.elevation_cut, a, eval.At(el, std::fmod(az, 360.0)));
   }
-  r.elevation_cut.beamwidth_deg = Beamwidth(r.elevation_cut, false);
+  if (over_ground) {
+    r.elevation_cut.beamwidth_deg = Beamwidth(r.elevation_cut, false);
+  } else {
+    PatternCut closed = r.elevation_cut;  // -90..270 is a full circle: drop the repeat
+    closed.angle_deg.pop_back();
+    closed.gain_dbi.pop_back();
+    r.elevation_cut.beamwidth_deg = Beamwidth(closed, true);
+  }
   // Take-off angle: elevation of the strongest radiation in that plane, toward the front.
   r.takeoff_elevation_deg = r.max_gain_elevation_deg;
 

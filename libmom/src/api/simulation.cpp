@@ -128,6 +128,8 @@ SolveResult Simulation::Solve(double frequency_hz) const {
     fr.impedance_ohm = fr.voltage_v / fr.current_a;
     fr.z0_ohm = z0;
     fr.swr = post::Swr(fr.impedance_ohm, z0);
+    fr.transmitter_impedance_ohm = fr.impedance_ohm;
+    fr.return_loss_db = post::ReturnLossDb(fr.impedance_ohm, z0);
     fr.power_w = 0.5 * std::real(fr.voltage_v * std::conj(fr.current_a));
     r.feeds.push_back(fr);
   }

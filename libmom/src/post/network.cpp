@@ -19,4 +19,11 @@ double Swr(Complex z_ohm, double z0_ohm) {
   return std::min((1.0 + g) / (1.0 - g), kSwrCap);
 }
 
+double ReturnLossDb(Complex z_ohm, double z0_ohm) {
+  const double g = std::abs(ReflectionCoefficient(z_ohm, z0_ohm));
+  if (!std::isfinite(g)) return 0.0;
+  if (g <= std::pow(10.0, -kMaxReturnLossDb / 20.0)) return kMaxReturnLossDb;
+  return -20.0 * std::log10(g);
+}
+
 }  // namespace wirefield::post

@@ -14,4 +14,8 @@ Complex ReflectionCoefficient(Complex z_ohm, double z0_ohm);
 // reflection, so that output stays finite.
 double Swr(Complex z_ohm, double z0_ohm);
 
+// Return loss -20 log10 |G| in dB, capped at kMaxReturnLossDb for a perfect match.
+inline constexpr double kMaxReturnLossDb = 99.0;
+double ReturnLossDb(Complex z_ohm, double z0_ohm);
+
 }  // namespace wirefield::post

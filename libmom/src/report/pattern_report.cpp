@@ -201,8 +201,10 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   out += fmt::format("wirefield pattern: {}\n", model.file);
   out += fmt::format("  frequency        {:.6f} MHz\n", pattern.frequency_hz / 1e6);
   out += fmt::format("  ground           {}\n", report::GroundWords(model.ground));
-  out += fmt::format("  grid step        {} deg (the search for the maximum and both cuts)\n",
-                     AngleText(pattern.step_deg));
+  out += fmt::format(
+      "  grid step        {} deg for both cuts; the maximum is searched on a grid of at most 2 deg "
+      "and refined off it\n",
+      AngleText(pattern.step_deg));
 
   out += "\nMaximum\n";
   out += fmt::format("  gain             {} at elevation {} deg, azimuth {} deg\n",
