@@ -1,6 +1,7 @@
 // API: the Simulation class, the one place that sees every stage. Model -> geometry::Mesh
 // (once) -> per frequency: fill::Assemble -> solve::SolveDense -> feed, load and segment
 // results.
+#include "wirefield/network.hpp"
 #include "wirefield/simulation.hpp"
 
 #include <fmt/format.h>
@@ -127,9 +128,14 @@ SolveResult Simulation::Solve(double frequency_hz) const {
     }
     fr.impedance_ohm = fr.voltage_v / fr.current_a;
     fr.z0_ohm = z0;
-    fr.swr = post::Swr(fr.impedance_ohm, z0);
-    fr.transmitter_impedance_ohm = fr.impedance_ohm;
-    fr.return_loss_db = post::ReturnLossDb(fr.impedance_ohm, z0);
+    // What the transmitter sees through the feed's transformer and line (if any).
+    const ChainResult chain =
+        EvaluateFeedChain(model, static_cast<int>(f), fr.impedance_ohm, frequency_hz, z0);
+    fr.transmitter_impedance_ohm = chain.transmitter_impedance_ohm;
+    fr.swr = chain.swr;
+    fr.return_loss_db = chain.return_loss_db;
+    fr.transformer_loss_fraction = chain.transformer_loss_fraction;
+    fr.line_loss_fraction = chain.line_loss_fraction;
     fr.power_w = 0.5 * std::real(fr.voltage_v * std::conj(fr.current_a));
     r.feeds.push_back(fr);
   }
