@@ -267,6 +267,9 @@ class Evaluator {
       return v;
     }
     if (n.space_before && IsClauseWord(n.text)) return v;  // "radius 1 segments 9"
+    // "R=50 Q=3": a spaced name with '=' after it starts the next clause, which the statement
+    // then names as unknown, rather than being taken for an unknown unit.
+    if (n.space_before && Peek(1).kind == TokenKind::kPunct && Peek(1).text == "=") return v;
     if (n.space_before && scope_.Find(n.text) != nullptr) {
       throw Error(n, fmt::format("'{}' after the number {} is not a unit; write '{}*{}' to "
                                  "multiply",

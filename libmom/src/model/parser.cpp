@@ -742,6 +742,13 @@ class Parser {
       if (IsWord("turns")) {
         if (have_turns) throw twice();
         Next();
+        if (Peek().kind == TokenKind::kNumber && pos_ + 1 < tokens_.size() &&
+            tokens_[pos_ + 1].kind == TokenKind::kNumber) {  // "turns 2 16"
+          throw Error(tokens_[pos_ + 1],
+                      fmt::format("{}: expected ':' between the primary and the secondary turns "
+                                  "(turns 2:16); got {}",
+                                  context, Quote(tokens_[pos_ + 1])));
+        }
         const Measured p = Expression();
         t.primary_turns = Plain(p, context + ": turns", "the primary turns, as in turns 2:16");
         if (!IsPunct(":")) {
@@ -1019,7 +1026,12 @@ class Parser {
       }
       Next();
       const Measured fm = Expression();
-      f[n] = Positive(fm, FrequencyQuantity(), context, "the loss frequency", "");
+      f[n] = As(fm, FrequencyQuantity(), 1.0, context + ": loss=DB@F");
+      if (!(f[n] > 0.0)) {
+        throw Error(fm.start, fmt::format("{}: the frequency of a loss figure must be positive; "
+                                          "got {} Hz",
+                                          context, FormatNumber(f[n])));
+      }
       ++n;
       if (!IsPunct(",")) break;
       Next();
@@ -1030,8 +1042,8 @@ class Parser {
     if (n == 1) return;
     if (f[0] == f[1]) {
       throw Error(first_start, fmt::format("{}: the two loss figures are at the same frequency "
-                                           "{} Hz; give them at two frequencies",
-                                           context, FormatNumber(f[0])));
+                                           "{} MHz; give them at two frequencies",
+                                           context, FormatNumber(f[0] / 1e6)));
     }
     if ((db[0] == 0.0) != (db[1] == 0.0)) {
       throw Error(first_start, fmt::format("{}: a line with loss at one frequency has loss at "
@@ -1046,12 +1058,12 @@ class Parser {
       model_.warnings.push_back(Warning{
           Loc(clause),
           fmt::format(
-              "{}: the loss grows {} between {} and {} Hz, which a conductor and "
-              "dielectric loss cannot; the fit keeps only the {} term and misses a figure "
+              "{}: the loss grows {} between {} and {} MHz, which the conductor-plus-dielectric "
+              "model cannot follow; the fit keeps only the {} term and misses a figure "
               "by {:.0f}%",
               context,
               fit.a_np_per_m_per_sqrt_hz > 0.0 ? "more slowly than sqrt(f)" : "faster than f",
-              FormatNumber(f[0]), FormatNumber(f[1]),
+              FormatNumber(f[0] / 1e6), FormatNumber(f[1] / 1e6),
               fit.a_np_per_m_per_sqrt_hz > 0.0 ? "sqrt(f)" : "f", 100.0 * fit.worst_misfit)});
     }
   }

@@ -52,5 +52,24 @@ TEST(DocsExamples, EveryModelInTheLanguageReferenceParses) {
   }
 }
 
+TEST(DocsExamples, TheEndFedKitExampleHasItsTransformerAndLine) {
+  // The feed-chain section's example must really exercise both statements.
+  const std::string path = std::string(WIREFIELD_SOURCE_DIR) + "/docs/model-language.md";
+  std::ifstream file(path);
+  ASSERT_TRUE(file) << path;
+  std::stringstream text;
+  text << file.rdbuf();
+  int with_chain = 0;
+  for (const std::string& block : ModelBlocks(text.str())) {
+    const Model m = ParseModelText(block, "docs");
+    if (!m.transformers.empty() && !m.feed_lines.empty()) {
+      ++with_chain;
+      EXPECT_EQ(m.transformers[0].feed, m.feed_lines[0].feed);
+      EXPECT_EQ(m.feed_lines[0].cable, "RG-58");
+    }
+  }
+  EXPECT_EQ(with_chain, 1);
+}
+
 }  // namespace
 }  // namespace wirefield
