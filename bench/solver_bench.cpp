@@ -120,6 +120,27 @@ void BM_Pattern200(benchmark::State& state) {
 }
 BENCHMARK(BM_Pattern200)->Unit(benchmark::kMillisecond);
 
+// The sweep: 351 points (1 kHz steps, 14.00-14.35 MHz) of a 100-unknown dipole,
+// mesh included, on all cores (argument: threads, 0 = all).
+void BM_Sweep351Points100Unknowns(benchmark::State& state) {
+  wirefield::Model m = LongWire(101);
+  m.wires[0].to_m = {10.2, 0, 10};
+  wirefield::SimulationOptions o;
+  o.max_frequency_hz = 14.35e6;
+  wirefield::SweepOptions so;
+  so.threads = static_cast<int>(state.range(0));
+  for (auto _ : state) {
+    wirefield::Simulation sim(m, o);
+    benchmark::DoNotOptimize(
+        wirefield::RunSweep(sim, wirefield::FrequencyRange(14.0e6, 14.35e6, 1e3), so));
+  }
+}
+BENCHMARK(BM_Sweep351Points100Unknowns)
+    ->Arg(1)
+    ->Arg(0)
+    ->Unit(benchmark::kMillisecond)
+    ->UseRealTime();
+
 }  // namespace
 
 BENCHMARK_MAIN();

@@ -1,7 +1,6 @@
 // API: the Simulation class, the one place that sees every stage. Model -> geometry::Mesh
 // (once) -> per frequency: fill::Assemble -> solve::SolveDense -> feed, load and segment
 // results.
-#include "wirefield/network.hpp"
 #include "wirefield/simulation.hpp"
 
 #include <fmt/format.h>
@@ -17,6 +16,7 @@
 #include "geometry/mesh.hpp"
 #include "post/network.hpp"
 #include "solve/dense.hpp"
+#include "wirefield/network.hpp"
 
 namespace wirefield {
 namespace {
@@ -51,6 +51,7 @@ struct Simulation::Impl {
   Model model;
   SimulationOptions options;
   geometry::Mesh mesh;
+  fill::NearFieldCache near_field;  // frequency-independent part of the fill
   std::vector<Warning> warnings;
 };
 
@@ -76,6 +77,7 @@ Simulation::Simulation(Model model, SimulationOptions options) : impl_(std::make
   mo.max_matrix_bytes =
       options.max_matrix_bytes ? *options.max_matrix_bytes : DefaultMatrixBudgetBytes();
   impl_->mesh = geometry::BuildMesh(m, mo);
+  impl_->near_field = fill::BuildNearFieldCache(impl_->mesh);
   impl_->warnings = m.warnings;
   impl_->warnings.insert(impl_->warnings.end(), impl_->mesh.warnings.begin(),
                          impl_->mesh.warnings.end());
@@ -108,7 +110,7 @@ SolveResult Simulation::Solve(double frequency_hz) const {
   r.segments = static_cast<int>(mesh.segments.size());
 
   auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz);
+  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field);
   fill::AddLoads(mesh, model, frequency_hz, &z);
   fill::AddConductorLoss(mesh, model, frequency_hz, &z);
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);

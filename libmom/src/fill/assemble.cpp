@@ -9,7 +9,6 @@
 
 #include "core/constants.hpp"
 #include "fill/conductor.hpp"
-#include "fill/kernel.hpp"
 
 namespace wirefield::fill {
 namespace {
@@ -69,7 +68,46 @@ Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
   return 1.0 / y;
 }
 
+const NearFieldCache::Entry* NearFieldCache::Find(int observation, int source, bool image) const {
+  for (const Entry& e : by_observation[observation]) {
+    if (e.source == source && e.image == image) return &e;
+  }
+  return nullptr;
+}
+
+NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh) {
+  const int ns = static_cast<int>(mesh.segments.size());
+  const geometry::Vec3 mirror(1.0, 1.0, -1.0);
+  NearFieldCache cache;
+  cache.by_observation.resize(ns);
+  for (int i = 0; i < ns; ++i) {
+    const geometry::Segment& si = mesh.segments[i];
+    for (int j = i; j < ns; ++j) {
+      const geometry::Segment& sj = mesh.segments[j];
+      const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
+      if (IsNearPair(si.start, si.end, sj.start, sj.end)) {
+        cache.by_observation[i].push_back(
+            {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
+      }
+      if (mesh.ground_images) {
+        const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
+        const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
+        if (IsNearPair(si.start, si.end, img0, img1)) {
+          cache.by_observation[i].push_back(
+              {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
+        }
+      }
+    }
+  }
+  return cache;
+}
+
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz) {
+  return AssembleImpedance(mesh, frequency_hz, BuildNearFieldCache(mesh));
+}
+
+Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
+                                   const NearFieldCache& cache) {
   const int n = static_cast<int>(mesh.bases.size());
   const int ns = static_cast<int>(mesh.segments.size());
   const double omega = 2.0 * core::kPi * frequency_hz;
@@ -107,6 +145,19 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
     }
   };
   auto transpose = [](const PairMoments& m) { return PairMoments{m.m00, m.m01, m.m10, m.m11}; };
+  // Cached static part (near pairs) plus the frequency-dependent part.
+  auto Moments = [&](int i, int j, bool image, const geometry::Vec3& a0, const geometry::Vec3& a1,
+                     const geometry::Vec3& b0, const geometry::Vec3& b1, double radius2) {
+    const NearFieldCache::Entry* near = cache.Find(i, j, image);
+    PairMoments m = FrequencyMoments(a0, a1, b0, b1, radius2, k, near != nullptr);
+    if (near) {
+      m.m00 += near->statics.m00;
+      m.m10 += near->statics.m10;
+      m.m01 += near->statics.m01;
+      m.m11 += near->statics.m11;
+    }
+    return m;
+  };
 
   for (int i = 0; i < ns; ++i) {
     if (on_segment[i].empty()) continue;
@@ -116,7 +167,7 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
       const geometry::Segment& sj = mesh.segments[j];
       const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
       const double cos_ij = unit[i].dot(unit[j]);
-      PairMoments m = SegmentPairMoments(si.start, si.end, sj.start, sj.end, radius2, k);
+      PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
       if (j == i) Symmetrize(&m);
       scatter(i, j, m, cos_ij, 1.0);
       if (j != i) scatter(j, i, transpose(m), cos_ij, 1.0);
@@ -124,7 +175,7 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
         const double cos_img = unit[i].dot(unit[j].cwiseProduct(mirror));
-        PairMoments mi = SegmentPairMoments(si.start, si.end, img0, img1, radius2, k);
+        PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
         if (j == i) Symmetrize(&mi);
         scatter(i, j, mi, cos_img, -1.0);
         if (j != i) scatter(j, i, transpose(mi), cos_img, -1.0);

@@ -7,6 +7,7 @@
 #include <complex>
 #include <vector>
 
+#include "fill/kernel.hpp"
 #include "geometry/mesh.hpp"
 #include "wirefield/model.hpp"
 
@@ -19,7 +20,24 @@ using Complex = std::complex<double>;
 // impedance is then a finite stand-in of 1e12 ohm.
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open);
 
+// The frequency-independent part of the fill: the static (1/R) moments of every near
+// segment pair (i <= j), and of near image pairs over a perfect ground. Built once per mesh
+// and reused at every frequency of a sweep.
+struct NearFieldCache {
+  struct Entry {
+    int source = 0;
+    bool image = false;
+    PairMoments statics;
+  };
+  std::vector<std::vector<Entry>> by_observation;  // indexed by the observation segment
+  const Entry* Find(int observation, int source, bool image) const;
+};
+NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh);
+
 // The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric.
+Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
+                                   const NearFieldCache& cache);
+// Same, building the cache on the way (single solves, tests).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz);
 
 // Adds the loads of `model` to Z at their ports.

@@ -77,8 +77,7 @@ struct Inner {
   Complex i0, i1;  // int G dt', int t' G dt'
 };
 
-Inner InnerNear(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, double radius2,
-                double k) {
+Inner InnerStatic(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, double radius2) {
   const Vec3 r = p - b0;
   const double z0 = r.dot(ub);
   const double d2 = std::max(r.squaredNorm() - z0 * z0, 0.0) + radius2;
@@ -88,20 +87,34 @@ Inner InnerNear(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, double
   const double rl = std::sqrt((lb - z0) * (lb - z0) + d2);
   const double r0 = std::sqrt(z0 * z0 + d2);
   const double s1 = rl - r0 + z0 * s0;
-  Inner in{Complex(s0 / lb, 0.0), Complex(s1 / (lb * lb), 0.0)};
-  // Smooth remainder (exp(-jkR) - 1) / R, bounded by k.
-  const auto& g = Rule<8>();
-  for (int j = 0; j < 8; ++j) {
-    const double s = g.x[j] * lb;
-    const double R = std::sqrt((s - z0) * (s - z0) + d2);
-    const double kr = k * R;
-    // (exp(-j kR) - 1) / R without cancellation for small kR.
-    const Complex f = kr < 1e-3 ? Complex(-0.5 * k * kr, -k * (1.0 - kr * kr / 6.0))
-                                : (std::polar(1.0, -kr) - 1.0) / R;
-    in.i0 += g.w[j] * f;
-    in.i1 += g.w[j] * g.x[j] * f;
+  return {Complex(s0 / lb, 0.0), Complex(s1 / (lb * lb), 0.0)};
+}
+
+// The smooth part (exp(-jkR) - 1) / R of a near pair by a product rule: it is bounded by k
+// and its only roughness, a kink of k^2 R / 2 along t = t', is far below the static part.
+template <int N>
+PairMoments SmoothProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Vec3& db,
+                              double radius2, double k) {
+  const auto& r = Rule<N>();
+  PairMoments m;
+  for (int i = 0; i < N; ++i) {
+    const Vec3 p = a0 + da * r.x[i];
+    Complex s0 = 0.0, s1 = 0.0;
+    for (int j = 0; j < N; ++j) {
+      const double R = std::sqrt((p - b0 - db * r.x[j]).squaredNorm() + radius2);
+      const double kr = k * R;
+      // (exp(-j kR) - 1) / R without cancellation for small kR.
+      const Complex f = kr < 1e-3 ? Complex(-0.5 * k * kr, -k * (1.0 - kr * kr / 6.0))
+                                  : (std::polar(1.0, -kr) - 1.0) / R;
+      s0 += r.w[j] * f;
+      s1 += r.w[j] * r.x[j] * f;
+    }
+    m.m00 += r.w[i] * s0;
+    m.m10 += r.w[i] * r.x[i] * s0;
+    m.m01 += r.w[i] * s1;
+    m.m11 += r.w[i] * r.x[i] * s1;
   }
-  return in;
+  return m;
 }
 
 // Breakpoints of the outer rule on [0, 1], graded geometrically toward touching ends.
@@ -123,8 +136,8 @@ std::vector<double> OuterBreaks(bool grade_start, bool grade_end, double scale) 
   return breaks;
 }
 
-PairMoments NearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1, double radius2,
-                     double k) {
+PairMoments StaticNear(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                       double radius2) {
   const Vec3 da = a1 - a0, db = b1 - b0;
   const double la = da.norm(), lb = db.norm();
   const Vec3 ub = db / lb;
@@ -140,7 +153,7 @@ PairMoments NearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3&
     for (int i = 0; i < 8; ++i) {
       const double t = lo + width * g.x[i];
       const double w = width * g.w[i];
-      const Inner in = InnerNear(a0 + da * t, b0, ub, lb, radius2, k);
+      const Inner in = InnerStatic(a0 + da * t, b0, ub, lb, radius2);
       m.m00 += w * in.i0;
       m.m10 += w * t * in.i0;
       m.m01 += w * in.i1;
@@ -152,17 +165,39 @@ PairMoments NearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3&
 
 }  // namespace
 
-PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
-                               double radius2_m2, double wavenumber_per_m) {
+bool IsNearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1) {
+  const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
+  return geometry::SegmentDistance(a0, a1, b0, b1, nullptr) < kNearFactor * longest;
+}
+
+PairMoments StaticNearMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                              double radius2_m2) {
+  return StaticNear(a0, a1, b0, b1, radius2_m2);
+}
+
+PairMoments FrequencyMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                             double radius2_m2, double wavenumber_per_m, bool near) {
+  if (near) return SmoothProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
   const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
   const double gap = geometry::SegmentDistance(a0, a1, b0, b1, nullptr);
-  if (gap < kNearFactor * longest) {
-    return NearPair(a0, a1, b0, b1, radius2_m2, wavenumber_per_m);
-  }
   if (gap < kMidFactor * longest) {
     return ProductRule<6>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
   }
   return ProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+}
+
+PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                               double radius2_m2, double wavenumber_per_m) {
+  const bool near = IsNearPair(a0, a1, b0, b1);
+  PairMoments m = FrequencyMoments(a0, a1, b0, b1, radius2_m2, wavenumber_per_m, near);
+  if (near) {
+    const PairMoments s = StaticNear(a0, a1, b0, b1, radius2_m2);
+    m.m00 += s.m00;
+    m.m10 += s.m10;
+    m.m01 += s.m01;
+    m.m11 += s.m11;
+  }
+  return m;
 }
 
 PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Vec3& b0,

@@ -22,6 +22,15 @@ struct PairMoments {
 PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
                                double radius2_m2, double wavenumber_per_m);
 
+// The split used by the fill, so that sweeps reuse the frequency-independent part:
+// near pairs = static part (1/R, closed form inner, graded outer; no frequency) + smooth part
+// ((exp(-jkR) - 1)/R by a 4x4 product rule); far pairs = product rule of G.
+bool IsNearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1);
+PairMoments StaticNearMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                              double radius2_m2);
+PairMoments FrequencyMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
+                             double radius2_m2, double wavenumber_per_m, bool near);
+
 // Same moments by brute-force high-order product quadrature (for tests of the fast path).
 PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Vec3& b0,
                                         const Vec3& b1, double radius2_m2, double wavenumber_per_m,
