@@ -50,17 +50,17 @@ constexpr double kNearFactor = 1.0;
 // Far pairs closer than this many times the longer segment get the finer far rule.
 constexpr double kMidFactor = 4.0;
 
-template <int N>
+// Product Gauss-Legendre rule of kernel(R) over both segments.
+template <int N, typename Kernel>
 PairMoments ProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Vec3& db,
-                        double radius2, double k) {
+                        double radius2, Kernel kernel) {
   const auto& r = Rule<N>();
   PairMoments m;
   for (int i = 0; i < N; ++i) {
     const Vec3 p = a0 + da * r.x[i];
     Complex s0 = 0.0, s1 = 0.0;
     for (int j = 0; j < N; ++j) {
-      const double R = std::sqrt((p - b0 - db * r.x[j]).squaredNorm() + radius2);
-      const Complex g = std::polar(r.w[j] / R, -k * R);
+      const Complex g = r.w[j] * kernel(std::sqrt((p - b0 - db * r.x[j]).squaredNorm() + radius2));
       s0 += g;
       s1 += g * r.x[j];
     }
@@ -71,6 +71,24 @@ PairMoments ProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Ve
   }
   return m;
 }
+
+// The full kernel exp(-jkR)/R.
+struct FullKernel {
+  double k;
+  Complex operator()(double R) const { return std::polar(1.0 / R, -k * R); }
+};
+
+// The smooth part (exp(-jkR) - 1) / R of a near pair, without cancellation for small kR. It
+// is bounded by k and its only roughness, a kink of k^2 R / 2 along t = t', is far below the
+// static part, so a product rule serves.
+struct SmoothKernel {
+  double k;
+  Complex operator()(double R) const {
+    const double kr = k * R;
+    return kr < 1e-3 ? Complex(-0.5 * k * kr, -k * (1.0 - kr * kr / 6.0))
+                     : (std::polar(1.0, -kr) - 1.0) / R;
+  }
+};
 
 // Inner integral over the source segment for one observation point: static part closed form.
 struct Inner {
@@ -88,33 +106,6 @@ Inner InnerStatic(const Vec3& p, const Vec3& b0, const Vec3& ub, double lb, doub
   const double r0 = std::sqrt(z0 * z0 + d2);
   const double s1 = rl - r0 + z0 * s0;
   return {Complex(s0 / lb, 0.0), Complex(s1 / (lb * lb), 0.0)};
-}
-
-// The smooth part (exp(-jkR) - 1) / R of a near pair by a product rule: it is bounded by k
-// and its only roughness, a kink of k^2 R / 2 along t = t', is far below the static part.
-template <int N>
-PairMoments SmoothProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Vec3& db,
-                              double radius2, double k) {
-  const auto& r = Rule<N>();
-  PairMoments m;
-  for (int i = 0; i < N; ++i) {
-    const Vec3 p = a0 + da * r.x[i];
-    Complex s0 = 0.0, s1 = 0.0;
-    for (int j = 0; j < N; ++j) {
-      const double R = std::sqrt((p - b0 - db * r.x[j]).squaredNorm() + radius2);
-      const double kr = k * R;
-      // (exp(-j kR) - 1) / R without cancellation for small kR.
-      const Complex f = kr < 1e-3 ? Complex(-0.5 * k * kr, -k * (1.0 - kr * kr / 6.0))
-                                  : (std::polar(1.0, -kr) - 1.0) / R;
-      s0 += r.w[j] * f;
-      s1 += r.w[j] * r.x[j] * f;
-    }
-    m.m00 += r.w[i] * s0;
-    m.m10 += r.w[i] * r.x[i] * s0;
-    m.m01 += r.w[i] * s1;
-    m.m11 += r.w[i] * r.x[i] * s1;
-  }
-  return m;
 }
 
 // Breakpoints of the outer rule on [0, 1], graded geometrically toward touching ends.
@@ -177,13 +168,14 @@ PairMoments StaticNearMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, co
 
 PairMoments FrequencyMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
                              double radius2_m2, double wavenumber_per_m, bool near) {
-  if (near) return SmoothProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+  if (near)
+    return ProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, SmoothKernel{wavenumber_per_m});
   const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
   const double gap = geometry::SegmentDistance(a0, a1, b0, b1, nullptr);
   if (gap < kMidFactor * longest) {
-    return ProductRule<6>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+    return ProductRule<6>(a0, a1 - a0, b0, b1 - b0, radius2_m2, FullKernel{wavenumber_per_m});
   }
-  return ProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, wavenumber_per_m);
+  return ProductRule<4>(a0, a1 - a0, b0, b1 - b0, radius2_m2, FullKernel{wavenumber_per_m});
 }
 
 PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1,
