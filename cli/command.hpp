@@ -52,5 +52,6 @@ void WriteStdout(const std::string& text);
 // The commands, one file each.
 Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);
+Command AddSweepCommand(CLI::App& program);
 
 }  // namespace wirefield::cli

@@ -56,6 +56,7 @@ int Run(int argc, char** argv) {
   std::vector<wirefield::cli::Command> commands;
   commands.push_back(wirefield::cli::AddSolveCommand(program));
   commands.push_back(wirefield::cli::AddPatternCommand(program));
+  commands.push_back(wirefield::cli::AddSweepCommand(program));
 
   try {
     program.parse(argc, argv);

@@ -7,3 +7,4 @@
 #include "wirefield/pattern.hpp"
 #include "wirefield/network.hpp"
 #include "wirefield/sweep.hpp"
+#include "wirefield/sweep_report.hpp"

@@ -1,0 +1,18 @@
+// Report stage: helpers shared by the sweep reports (text, JSON, CSV and Touchstone in
+// sweep_report.cpp, SVG in sweep_svg.cpp). Input: a SweepReport; output: checks and the
+// picture's title words.
+#pragma once
+
+#include <string>
+
+#include "wirefield/sweep_report.hpp"
+
+namespace wirefield::report {
+
+// Throws ComputationError when the sweep has no points or any number it reports is not finite.
+void CheckSweepReport(const SweepReport& report);
+
+// The bands swept ("40m, 20m (ITU Region 1)") or the range ("7.0000-7.3000 MHz").
+std::string SweepTitle(const SweepReport& report);
+
+}  // namespace wirefield::report
