@@ -73,9 +73,10 @@ std::vector<SweepSpan> ChosenSpans(const SweepFlags& flags, int region, std::vec
          "--to F2, not both");
   }
   if (!range && !Given(flags.band_option)) {
-    Fail("sweep",
-         "give the frequencies to sweep: --from F1 --to F2 with --step DF or --points N (e.g. "
-         "--from 7MHz --to 7.3MHz --step 5kHz), or --band NAME (e.g. --band 40m)");
+    throw InputError(
+        SourceLocation{"sweep", 0, 0},
+        "give the frequencies to sweep: --from F1 --to F2 with --step DF or --points N (e.g. "
+        "--from 7MHz --to 7.3MHz --step 5kHz), or --band NAME (e.g. --band 40m)");
   }
   std::vector<SweepSpan> spans;
   if (range) {
