@@ -215,6 +215,14 @@ std::string FormatSweepText(const SweepReport& report) {
         "(measured - predicted)\n",
         m.measured_min_swr, report::Mhz(m.measured_min_swr_frequency_hz), m.predicted_min_swr,
         report::Mhz(m.predicted_min_swr_frequency_hz), m.shift_hz / 1e3);
+    const double first_hz = m.points.front().frequency_hz;
+    const double last_hz = m.points.back().frequency_hz;
+    auto at_edge = [&](double f_hz) { return f_hz <= first_hz || f_hz >= last_hz; };
+    if (at_edge(m.measured_min_swr_frequency_hz) || at_edge(m.predicted_min_swr_frequency_hz)) {
+      out +=
+          "  note: a lowest SWR lies at an end of the compared range, so the real minimum may "
+          "lie\n  outside it and the shift says little; sweep and measure over a wider range\n";
+    }
   }
   if (!report.warnings.empty()) {
     out += "\nWarnings\n";

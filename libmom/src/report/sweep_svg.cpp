@@ -176,7 +176,7 @@ std::string SwrPlot(const SweepReport& report) {
     }
     // Frequency ticks.
     const double span_mhz = (panel.to_hz - panel.from_hz) / 1e6;
-    const int wanted = std::max(2, static_cast<int>((panel.right_px - panel.left_px) / 90.0));
+    const int wanted = std::max(2, static_cast<int>((panel.right_px - panel.left_px) / 70.0));
     if (span_mhz > 0.0) {
       const double step_mhz = NiceStep(span_mhz, wanted);
       const int decimals = Decimals(step_mhz);
@@ -242,6 +242,15 @@ std::string SwrPlot(const SweepReport& report) {
       if (panel.Holds(p.frequency_hz)) xy.emplace_back(panel.X(p.frequency_hz), SwrY(p.swr));
     }
     if (xy.size() == 1) xy.push_back({xy[0].first + 1.0, xy[0].second});
+    bool clipped = false;
+    for (const SweepPoint& p : report.sweep.points) {
+      if (panel.Holds(p.frequency_hz) && p.swr > kMaxSwr) clipped = true;
+    }
+    if (clipped) {
+      out += Text((panel.left_px + panel.right_px) / 2.0, kPlotTop_px + 32.0,
+                  "SWR above 10 drawn on the top edge", 11, "middle", kTraceColour,
+                  " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"");
+    }
     out += fmt::format(
         "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.4\" "
         "stroke-linejoin=\"round\"/>\n",
@@ -406,6 +415,13 @@ std::string SmithChart(const SweepReport& report) {
         dy /= length;
       }
       const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");
+      // Keep the label on the canvas: near the right edge it goes left of the point.
+      constexpr double kLabelWidth_px = 75.0;
+      if (at.first + 12.0 * dx + kLabelWidth_px > kWidth_px - 4.0) {
+        anchor = "end";
+        dx = -std::abs(dx);
+        dy = dy < 0.0 ? -1.0 : 1.0;
+      }
       return Text(at.first + 12.0 * dx, at.second + 12.0 * dy + 4.0,
                   fmt::format("{:.4f} MHz", f_hz / 1e6), 11, anchor, kTraceColour, halo);
     };
