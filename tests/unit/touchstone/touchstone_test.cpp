@@ -8,6 +8,7 @@
 
 #include <cmath>
 #include <complex>
+#include <random>
 #include <string>
 #include <vector>
 
@@ -188,6 +189,30 @@ TEST(TouchstoneErrors, MissingFileIsNamed) {
     EXPECT_STREQ(error.what(),
                  "/nonexistent/folder/m.s1p: error: cannot read the Touchstone file; check the "
                  "path and its permissions");
+  }
+}
+
+TEST(TouchstoneErrors, RandomTextEitherParsesOrGivesAnInputError) {
+  // Never a crash, another exception, or a non-finite value: 3000 random texts drawn from
+  // the characters a .s1p file is made of (fixed seed, so a failure repeats).
+  const std::string alphabet = "0123456789.-+eE \t\n\r!#[]RIMADBSHZKGrimadbshzkg,x";
+  std::mt19937 random(20261202u);
+  std::uniform_int_distribution<std::size_t> pick(0, alphabet.size() - 1);
+  std::uniform_int_distribution<int> length(0, 120);
+  for (int trial = 0; trial < 3000; ++trial) {
+    std::string text = trial % 2 == 0 ? "# MHZ S RI R 50\n" : "";
+    const int n = length(random);
+    for (int i = 0; i < n; ++i) text += alphabet[pick(random)];
+    try {
+      const TouchstoneData data = ParseTouchstone(text, "r.s1p");
+      for (const TouchstonePoint& p : data.points) {
+        ASSERT_TRUE(std::isfinite(p.frequency_hz) && std::isfinite(p.s11.real()) &&
+                    std::isfinite(p.s11.imag()))
+            << text;
+      }
+    } catch (const InputError& error) {
+      ASSERT_EQ(std::string(error.what()).rfind("r.s1p", 0), 0u) << error.what();
+    }
   }
 }
 
