@@ -5,9 +5,59 @@
 
 #include <fmt/format.h>
 
+#include <cerrno>
 #include <cstdio>
+#include <cstring>
+#include <filesystem>
 
 namespace wirefield::cli {
+namespace {
+
+void RemoveQuietly(const std::string& path) {
+  std::error_code ignored;
+  std::filesystem::remove(path, ignored);
+}
+
+[[noreturn]] void FailToWrite(const OutputFile& file, const std::string& reason) {
+  throw InputError(SourceLocation{file.path, 0, 0},
+                   fmt::format("cannot write the {} file: {}; check that its folder exists and "
+                               "is writable, or give another path",
+                               file.what, reason));
+}
+
+}  // namespace
+
+void WriteFilesAtomically(const std::vector<OutputFile>& files) {
+  std::vector<std::string> written;
+  auto clean_up = [&written] {
+    for (const std::string& tmp : written) RemoveQuietly(tmp);
+  };
+  for (const OutputFile& file : files) {
+    const std::string tmp = file.path + ".tmp";
+    std::FILE* out = std::fopen(tmp.c_str(), "wb");
+    if (out == nullptr) {
+      const std::string reason = std::strerror(errno);
+      clean_up();
+      FailToWrite(file, reason);
+    }
+    written.push_back(tmp);
+    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size();
+    const int errno_after_write = errno;
+    const bool closed = std::fclose(out) == 0;
+    if (!ok || !closed) {
+      clean_up();
+      FailToWrite(file, std::strerror(ok ? errno : errno_after_write));
+    }
+  }
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    std::error_code error;
+    std::filesystem::rename(written[i], files[i].path, error);
+    if (error) {
+      clean_up();
+      FailToWrite(files[i], error.message());
+    }
+  }
+}
 
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
   command.add_option("MODEL", flags.model_path, "The model file to read (a .wire text file).")

@@ -54,4 +54,15 @@ Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);
 Command AddSweepCommand(CLI::App& program);
 
+// A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
+struct OutputFile {
+  std::string path;
+  std::string text;
+  std::string what;  // "CSV", "SVG", "Touchstone": named in error messages
+};
+
+// Writes every file or none: on any failure removes the temporary files and throws an
+// InputError naming the file (exit 2). Never leaves a half-written file.
+void WriteFilesAtomically(const std::vector<OutputFile>& files);
+
 }  // namespace wirefield::cli

@@ -93,57 +93,6 @@ PatternOptions ChosenOptions(const PatternFlags& flags, const Model& model) {
   return options;
 }
 
-// A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
-struct OutputFile {
-  std::string path;
-  std::string text;
-  std::string what;  // "CSV" or "SVG"
-};
-
-void RemoveQuietly(const std::string& path) {
-  std::error_code ignored;
-  std::filesystem::remove(path, ignored);
-}
-
-[[noreturn]] void FailToWrite(const OutputFile& file, const std::string& reason) {
-  throw InputError(SourceLocation{file.path, 0, 0},
-                   fmt::format("cannot write the {} file: {}; check that its folder exists and "
-                               "is writable, or give another path",
-                               file.what, reason));
-}
-
-void WriteFilesAtomically(const std::vector<OutputFile>& files) {
-  std::vector<std::string> written;
-  auto clean_up = [&written] {
-    for (const std::string& tmp : written) RemoveQuietly(tmp);
-  };
-  for (const OutputFile& file : files) {
-    const std::string tmp = file.path + ".tmp";
-    std::FILE* out = std::fopen(tmp.c_str(), "wb");
-    if (out == nullptr) {
-      const std::string reason = std::strerror(errno);
-      clean_up();
-      FailToWrite(file, reason);
-    }
-    written.push_back(tmp);
-    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size();
-    const int errno_after_write = errno;
-    const bool closed = std::fclose(out) == 0;
-    if (!ok || !closed) {
-      clean_up();
-      FailToWrite(file, std::strerror(ok ? errno : errno_after_write));
-    }
-  }
-  for (std::size_t i = 0; i < files.size(); ++i) {
-    std::error_code error;
-    std::filesystem::rename(written[i], files[i].path, error);
-    if (error) {
-      clean_up();
-      FailToWrite(files[i], error.message());
-    }
-  }
-}
-
 int RunPattern(const PatternFlags& flags) {
   // Check the flags before the (possibly long) file read, mesh and solve.
   FrequencyFlag(flags.model);

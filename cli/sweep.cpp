@@ -132,55 +132,6 @@ std::vector<SweepSpan> ChosenSpans(const SweepFlags& flags, int region, std::vec
   return spans;
 }
 
-// A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
-struct OutputFile {
-  std::string path;
-  std::string text;
-  std::string what;  // "CSV", "SVG" or "Touchstone"
-};
-
-[[noreturn]] void FailToWrite(const OutputFile& file, const std::string& reason) {
-  throw InputError(SourceLocation{file.path, 0, 0},
-                   fmt::format("cannot write the {} file: {}; check that its folder exists and "
-                               "is writable, or give another path",
-                               file.what, reason));
-}
-
-void WriteFilesAtomically(const std::vector<OutputFile>& files) {
-  std::vector<std::string> written;
-  auto clean_up = [&written] {
-    for (const std::string& tmp : written) {
-      std::error_code ignored;
-      std::filesystem::remove(tmp, ignored);
-    }
-  };
-  for (const OutputFile& file : files) {
-    const std::string tmp = file.path + ".tmp";
-    std::FILE* out = std::fopen(tmp.c_str(), "wb");
-    if (out == nullptr) {
-      const std::string reason = std::strerror(errno);
-      clean_up();
-      FailToWrite(file, reason);
-    }
-    written.push_back(tmp);
-    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size();
-    const int errno_after_write = errno;
-    const bool closed = std::fclose(out) == 0;
-    if (!ok || !closed) {
-      clean_up();
-      FailToWrite(file, std::strerror(ok ? errno : errno_after_write));
-    }
-  }
-  for (std::size_t i = 0; i < files.size(); ++i) {
-    std::error_code error;
-    std::filesystem::rename(written[i], files[i].path, error);
-    if (error) {
-      clean_up();
-      FailToWrite(files[i], error.message());
-    }
-  }
-}
-
 int RunSweepCommand(const SweepFlags& flags) {
   // Check every flag before the (possibly long) file read, mesh and solves.
   const bool region_given = Given(flags.region_option);

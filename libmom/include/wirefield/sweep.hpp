@@ -29,7 +29,7 @@ struct SweepPoint {
 struct SweepResult {
   double z0_ohm = 50.0;
   std::vector<SweepPoint> points;  // in the order of the frequencies given
-  std::vector<double> resonances_hz;  // zero crossings of X at the transmitter, interpolated
+  std::vector<double> resonances_hz;  // zero crossings of the feed's X, interpolated
   double min_swr = 0.0;
   double min_swr_frequency_hz = 0.0;
   int unknowns = 0;

@@ -139,8 +139,9 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
   out.min_swr = best->swr;
   out.min_swr_frequency_hz = best->frequency_hz;
   for (size_t i = 1; i < sorted.size(); ++i) {
-    const double x0 = sorted[i - 1]->transmitter_impedance_ohm.imag();
-    const double x1 = sorted[i]->transmitter_impedance_ohm.imag();
+    // The contract: resonances are zero crossings of the feed's own reactance.
+    const double x0 = sorted[i - 1]->feed_impedance_ohm.imag();
+    const double x1 = sorted[i]->feed_impedance_ohm.imag();
     if ((x0 < 0.0 && x1 >= 0.0) || (x0 > 0.0 && x1 <= 0.0)) {
       // A reactance sign change through a pole (parallel resonance seen through a large |X|)
       // also counts; interpolate linearly either way.
