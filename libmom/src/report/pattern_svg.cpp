@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "report/pattern_format.hpp"
+#include "report/svg_text.hpp"
 #include "wirefield/pattern.hpp"
 
 namespace wirefield {
@@ -39,32 +40,6 @@ const char* const kVerticalColour = "#1d5fa6";
 const char* const kHorizontalColour = "#2f7d3a";
 const char* const kGridColour = "#b8b8b8";
 const char* const kTextColour = "#222222";
-
-std::string Escape(const std::string& text) {
-  std::string out;
-  for (char c : text) {
-    switch (c) {
-      case '&':
-        out += "&amp;";
-        break;
-      case '<':
-        out += "&lt;";
-        break;
-      case '>':
-        out += "&gt;";
-        break;
-      case '"':
-        out += "&quot;";
-        break;
-      default:
-        // Control characters are not allowed in XML 1.0 text.
-        out += (static_cast<unsigned char>(c) < 0x20 && c != '\t') ? '?' : c;
-    }
-  }
-  return out;
-}
-
-std::string Px(double value) { return fmt::format("{:.1f}", value + 0.0); }
 
 struct Polar {
   double centre_x_px;

@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "report/svg_text.hpp"
 #include "report/sweep_format.hpp"
 #include "wirefield/sweep_report.hpp"
 
@@ -43,31 +44,6 @@ const char* const kGridColour = "#cfcfcf";
 const char* const kTextColour = "#222222";
 const char* const kBandFill = "#e8f1e4";
 const char* const kResonanceColour = "#6a3d9a";
-
-std::string Escape(const std::string& text) {
-  std::string out;
-  for (char c : text) {
-    switch (c) {
-      case '&':
-        out += "&amp;";
-        break;
-      case '<':
-        out += "&lt;";
-        break;
-      case '>':
-        out += "&gt;";
-        break;
-      case '"':
-        out += "&quot;";
-        break;
-      default:
-        out += (static_cast<unsigned char>(c) < 0x20 && c != '\t') ? '?' : c;
-    }
-  }
-  return out;
-}
-
-std::string Px(double value) { return fmt::format("{:.1f}", value + 0.0); }
 
 std::string Text(double x, double y, const std::string& text, int size, const char* anchor,
                  const char* colour = kTextColour, const std::string& extra = "") {
