@@ -125,4 +125,14 @@ void WriteStdout(const std::string& text) {
   }
 }
 
+void WriteFilesThenReport(const std::vector<OutputFile>& files, std::string report, bool json) {
+  WriteFilesAtomically(files);
+  if (!json) {
+    for (const OutputFile& file : files) {
+      report += fmt::format("Wrote the {} file {}\n", file.what, file.path);
+    }
+  }
+  WriteStdout(report);
+}
+
 }  // namespace wirefield::cli

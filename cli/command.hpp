@@ -65,4 +65,8 @@ struct OutputFile {
 // InputError naming the file (exit 2). Never leaves a half-written file.
 void WriteFilesAtomically(const std::vector<OutputFile>& files);
 
+// Writes the files atomically, then prints `report` to stdout; a text report (json false)
+// gets one line per file written.
+void WriteFilesThenReport(const std::vector<OutputFile>& files, std::string report, bool json);
+
 }  // namespace wirefield::cli

@@ -117,13 +117,7 @@ int RunPattern(const PatternFlags& flags) {
   }
   std::string output = flags.model.json ? FormatPatternJson(simulation, pattern)
                                         : FormatPatternText(simulation, pattern);
-  WriteFilesAtomically(files);
-  if (!flags.model.json) {
-    for (const OutputFile& file : files) {
-      output += fmt::format("Wrote the {} file {}\n", file.what, file.path);
-    }
-  }
-  WriteStdout(output);
+  WriteFilesThenReport(files, output, flags.model.json);
   return 0;
 }
 
@@ -139,8 +133,9 @@ Command AddPatternCommand(CLI::App& program) {
   AddModelFlags(*app, flags->model, /*with_frequency=*/true);
   flags->step_option = app->add_option(
       "--step", flags->step,
-      "Grid step of the search for the maximum and of both cuts, degrees; must be > 0 and "
-      "<= 10. Smaller is finer and slower (the search costs grow as 1/step^2). Default: 1.");
+      "Grid step of both cuts, degrees; must be > 0 and <= 10. The maximum is searched on a "
+      "grid of this step or 2 deg, whichever is coarser, and refined off the grid. Smaller is "
+      "finer and slower. Default: 1.");
   flags->step_option->type_name("DEG");
   flags->elevation_option = app->add_option(
       "--elevation", flags->elevation,

@@ -203,13 +203,7 @@ int RunSweepCommand(const SweepFlags& flags) {
     files.push_back({flags.s1p_path, FormatSweepTouchstone(report), "Touchstone"});
   }
   std::string output = flags.model.json ? FormatSweepJson(report) : FormatSweepText(report);
-  WriteFilesAtomically(files);
-  if (!flags.model.json) {
-    for (const OutputFile& file : files) {
-      output += fmt::format("Wrote the {} file {}\n", file.what, file.path);
-    }
-  }
-  WriteStdout(output);
+  WriteFilesThenReport(files, output, flags.model.json);
   return 0;
 }
 
