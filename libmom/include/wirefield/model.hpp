@@ -69,9 +69,9 @@ struct WireSpec {
   double radius_m = 0.0;
   int segments = 0;  // 0: the mesher chooses
   // Conductor: empty material and no conductivity = perfect conductor (the default).
-  std::string material;                         // e.g. "copper", as written in the model
-  std::optional<double> conductivity_s_per_m;   // set for any lossy conductor
-  double relative_permeability = 1.0;           // steel > 1
+  std::string material;                        // e.g. "copper", as written in the model
+  std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
+  double relative_permeability = 1.0;          // steel > 1
   SourceLocation location;
 };
 
@@ -101,8 +101,26 @@ struct GroundSpec {
   GroundKind kind = GroundKind::kFree;
   double permittivity = 1.0;          // relative, real ground only
   double conductivity_s_per_m = 0.0;  // real ground only
+  std::string preset;                 // the preset's name when given as preset=NAME
   SourceLocation location;
 };
+
+// A named ground of the kind ITU-R Recommendation P.527 describes (or of common practice),
+// usable as `ground real preset=NAME`. Values are those flat across HF (1.8-30 MHz).
+struct GroundPreset {
+  std::string name;     // as written in a model, e.g. "medium_dry"
+  double permittivity;  // relative
+  double conductivity_s_per_m;
+  std::string description;  // e.g. "medium dry ground (pasture on loam)"
+  std::string source;       // where the values come from
+};
+
+// Every preset, in the order of the ITU-R P.527 classes (wettest first), then the others.
+const std::vector<GroundPreset>& GroundPresets();
+// The preset of that name, or nullptr.
+const GroundPreset* FindGroundPreset(const std::string& name);
+// A GroundSpec of kind kReal from a preset.
+GroundSpec RealGround(const GroundPreset& preset);
 
 // A transformer at a feed (an end-fed wire's step-up transformer, a balun): turns
 // primary:secondary (transmitter side : antenna side), impedance ratio (secondary/primary)^2.
@@ -111,9 +129,9 @@ struct TransformerSpec {
   std::string feed;  // the feed it sits at
   double primary_turns = 1.0;
   double secondary_turns = 1.0;
-  std::optional<double> magnetizing_inductance_h;  // primary side; absent = ideal (infinite)
-  std::optional<double> al_nh_per_turn2;           // core A_L; with primary turns gives L
-  double leakage_inductance_h = 0.0;               // series, primary side
+  std::optional<double> magnetizing_inductance_h;    // primary side; absent = ideal (infinite)
+  std::optional<double> al_nh_per_turn2;             // core A_L; with primary turns gives L
+  double leakage_inductance_h = 0.0;                 // series, primary side
   std::optional<double> compensation_capacitance_f;  // shunt, transmitter side
   std::optional<double> core_loss_resistance_ohm;    // shunt, primary side
   std::optional<double> core_q;                      // alternative: Q of the magnetizing L
@@ -149,10 +167,10 @@ struct Model {
   GroundSpec ground;
   std::optional<double> frequency_hz;
   SourceLocation frequency_location;
-  std::optional<double> z0_ohm;  // reference impedance for SWR; 50 ohm when absent
+  std::optional<double> z0_ohm;               // reference impedance for SWR; 50 ohm when absent
   std::vector<TransformerSpec> transformers;  // at most one per feed
   std::vector<FeedLineSpec> feed_lines;       // at most one per feed
-  std::vector<Warning> warnings;  // raised while parsing
+  std::vector<Warning> warnings;              // raised while parsing
 };
 
 // A --set NAME=VALUE override: VALUE is an expression of the model language.

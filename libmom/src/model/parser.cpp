@@ -1068,6 +1068,12 @@ class Parser {
     }
   }
 
+  static std::string PresetList() {
+    std::string list;
+    for (const GroundPreset& p : GroundPresets()) list += (list.empty() ? "" : ", ") + p.name;
+    return list;
+  }
+
   void Ground(const Token& keyword) {
     if (ground_line_) {
       throw Error(keyword,
@@ -1091,18 +1097,40 @@ class Parser {
     Next();
     if (ground.kind == GroundKind::kReal) {
       std::optional<double> permittivity, conductivity;
+      std::optional<Token> preset_token;
+      const GroundPreset* preset = nullptr;
       while (Peek().kind != TokenKind::kEnd) {
         const Token& setting = Peek();
         const bool is_eps = IsWord("permittivity");
+        if (IsWord("preset")) {
+          if (preset_token) throw Error(setting, "ground real: preset is given twice");
+          preset_token = setting;
+          Next();
+          ExpectPunct("=", "ground real", "'=' after preset");
+          const Token& name = Peek();
+          if (name.kind != TokenKind::kName) {
+            throw Expected("ground real: preset", "a preset name (" + PresetList() + ")");
+          }
+          preset = FindGroundPreset(name.text);
+          if (!preset) {
+            std::vector<std::string> names;
+            for (const GroundPreset& p : GroundPresets()) names.push_back(p.name);
+            throw Error(name, fmt::format("ground real: unknown preset '{}'{}; the presets are {}",
+                                          Shorten(name.text), DidYouMeanAside(name.text, names),
+                                          PresetList()));
+          }
+          Next();
+          continue;
+        }
         if (!is_eps && !IsWord("conductivity")) {
-          throw Error(
-              setting,
-              fmt::format("ground real: unknown setting {}{}; use permittivity= and "
-                          "conductivity=",
-                          Quote(setting),
-                          setting.kind == TokenKind::kName
-                              ? DidYouMeanAside(setting.text, {"permittivity", "conductivity"})
-                              : ""));
+          throw Error(setting,
+                      fmt::format("ground real: unknown setting {}{}; use preset=NAME, or "
+                                  "permittivity= and conductivity=",
+                                  Quote(setting),
+                                  setting.kind == TokenKind::kName
+                                      ? DidYouMeanAside(setting.text,
+                                                        {"preset", "permittivity", "conductivity"})
+                                      : ""));
         }
         Next();
         ExpectPunct("=", "ground real", fmt::format("'=' after {}", setting.text));
@@ -1128,7 +1156,20 @@ class Parser {
           conductivity = sigma;
         }
       }
-      if (!permittivity) throw Expected("ground real", "'permittivity=EPS_R'");
+      if (preset) {
+        if (permittivity || conductivity) {
+          throw Error(*preset_token,
+                      "ground real: give either preset=NAME or permittivity= and "
+                      "conductivity=, not both");
+        }
+        permittivity = preset->permittivity;
+        conductivity = preset->conductivity_s_per_m;
+        ground.preset = preset->name;
+      }
+      if (!permittivity) {
+        throw Expected("ground real",
+                       "'permittivity=EPS_R' (or preset=NAME: " + PresetList() + ")");
+      }
       if (!conductivity) throw Expected("ground real", "'conductivity=SIGMA' (S/m)");
       ground.permittivity = *permittivity;
       ground.conductivity_s_per_m = *conductivity;

@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "report/ground_text.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/report.hpp"
 
@@ -133,19 +134,6 @@ std::string LoadElements(const LoadSpec* load) {
   return text;
 }
 
-std::string GroundText(const GroundSpec& ground) {
-  switch (ground.kind) {
-    case GroundKind::kFree:
-      return "none (free space)";
-    case GroundKind::kPerfect:
-      return "perfectly conducting plane z = 0";
-    case GroundKind::kReal:
-      return fmt::format("real, plane z = 0: relative permittivity {}, conductivity {} S/m",
-                         Number(ground.permittivity), Number(ground.conductivity_s_per_m));
-  }
-  return "?";
-}
-
 nlohmann::json ComplexJson(Complex value) {
   return nlohmann::json::array({value.real(), value.imag()});
 }
@@ -258,6 +246,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   doc["frequency_hz"] = result.frequency_hz;
   doc["unknowns"] = result.unknowns;
   doc["segments"] = result.segments;
+  doc["ground"] = report::GroundJson(simulation.model().ground);
   doc["feeds"] = nlohmann::json::array();
   for (const FeedResult& feed : result.feeds) {
     doc["feeds"].push_back({{"name", feed.name},
