@@ -10,6 +10,8 @@
 #include <string>
 #include <vector>
 
+#include "wirefield/coil.hpp"
+
 namespace wirefield {
 
 // Where a piece of input came from. file is the model path as given (or "<command line>").
@@ -69,9 +71,9 @@ struct WireSpec {
   double radius_m = 0.0;
   int segments = 0;  // 0: the mesher chooses
   // Conductor: empty material and no conductivity = perfect conductor (the default).
-  std::string material;                         // e.g. "copper", as written in the model
-  std::optional<double> conductivity_s_per_m;   // set for any lossy conductor
-  double relative_permeability = 1.0;           // steel > 1
+  std::string material;                        // e.g. "copper", as written in the model
+  std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
+  double relative_permeability = 1.0;          // steel > 1
   SourceLocation location;
 };
 
@@ -84,7 +86,9 @@ struct FeedSpec {
 
 enum class LoadTopology { kSeries, kParallel };
 
-// A lumped load: the present elements of R, L, C in series or in parallel.
+// A lumped load: the present elements of R, L, C in series or in parallel, or a physical
+// coil (then R, L, C are absent and the coil's L, R_ac and self-capacitance are computed at
+// each frequency, wirefield/coil.hpp).
 struct LoadSpec {
   std::string name;
   WirePointSpec at;
@@ -92,6 +96,7 @@ struct LoadSpec {
   std::optional<double> resistance_ohm;
   std::optional<double> inductance_h;
   std::optional<double> capacitance_f;
+  std::optional<CoilSpec> coil;
   SourceLocation location;
 };
 
@@ -111,9 +116,9 @@ struct TransformerSpec {
   std::string feed;  // the feed it sits at
   double primary_turns = 1.0;
   double secondary_turns = 1.0;
-  std::optional<double> magnetizing_inductance_h;  // primary side; absent = ideal (infinite)
-  std::optional<double> al_nh_per_turn2;           // core A_L; with primary turns gives L
-  double leakage_inductance_h = 0.0;               // series, primary side
+  std::optional<double> magnetizing_inductance_h;    // primary side; absent = ideal (infinite)
+  std::optional<double> al_nh_per_turn2;             // core A_L; with primary turns gives L
+  double leakage_inductance_h = 0.0;                 // series, primary side
   std::optional<double> compensation_capacitance_f;  // shunt, transmitter side
   std::optional<double> core_loss_resistance_ohm;    // shunt, primary side
   std::optional<double> core_q;                      // alternative: Q of the magnetizing L
@@ -149,10 +154,10 @@ struct Model {
   GroundSpec ground;
   std::optional<double> frequency_hz;
   SourceLocation frequency_location;
-  std::optional<double> z0_ohm;  // reference impedance for SWR; 50 ohm when absent
+  std::optional<double> z0_ohm;               // reference impedance for SWR; 50 ohm when absent
   std::vector<TransformerSpec> transformers;  // at most one per feed
   std::vector<FeedLineSpec> feed_lines;       // at most one per feed
-  std::vector<Warning> warnings;  // raised while parsing
+  std::vector<Warning> warnings;              // raised while parsing
 };
 
 // A --set NAME=VALUE override: VALUE is an expression of the model language.
@@ -178,5 +183,11 @@ double ParseFrequencyArgument(const std::string& text, const std::string& option
 
 // Parses a command-line resistance such as "50", "50ohm" or "1.2kohm" (bare = ohm); must be > 0.
 double ParseResistanceArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line length such as "28.5mm", "1.1 in" or "0.0285" (bare = metre); must be > 0.
+double ParseLengthArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
+double ParseInductanceArgument(const std::string& text, const std::string& option_name);
 
 }  // namespace wirefield
