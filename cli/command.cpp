@@ -59,6 +59,8 @@ void WriteFilesAtomically(const std::vector<OutputFile>& files) {
   }
 }
 
+bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
+
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
   command.add_option("MODEL", flags.model_path, "The model file to read (a .wire text file).")
       ->required()

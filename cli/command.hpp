@@ -30,6 +30,9 @@ struct ModelFlags {
   CLI::Option* z0_option = nullptr;
 };
 
+// True when the option exists and was given on the command line.
+bool Given(const CLI::Option* option);
+
 // Adds MODEL, --set, --z0 and --json to `command`, and --freq when with_frequency is true.
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency);
 
@@ -53,6 +56,7 @@ void WriteStdout(const std::string& text);
 Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);
 Command AddSweepCommand(CLI::App& program);
+Command AddCoilCommand(CLI::App& program);
 
 // A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
 struct OutputFile {

@@ -44,8 +44,6 @@ struct SweepFlags {
   CLI::Option* measured_option = nullptr;
 };
 
-bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
-
 [[noreturn]] void Fail(const std::string& option, const std::string& message) {
   throw InputError(SourceLocation{option, 1, 1}, message);
 }

@@ -10,6 +10,8 @@
 #include <string>
 #include <vector>
 
+#include "wirefield/coil.hpp"
+
 namespace wirefield {
 
 // Where a piece of input came from. file is the model path as given (or "<command line>").
@@ -84,7 +86,9 @@ struct FeedSpec {
 
 enum class LoadTopology { kSeries, kParallel };
 
-// A lumped load: the present elements of R, L, C in series or in parallel.
+// A lumped load: the present elements of R, L, C in series or in parallel, or a physical
+// coil (then R, L, C are absent and the coil's L, R_ac and self-capacitance are computed at
+// each frequency, wirefield/coil.hpp).
 struct LoadSpec {
   std::string name;
   WirePointSpec at;
@@ -92,6 +96,7 @@ struct LoadSpec {
   std::optional<double> resistance_ohm;
   std::optional<double> inductance_h;
   std::optional<double> capacitance_f;
+  std::optional<CoilSpec> coil;
   SourceLocation location;
 };
 
@@ -196,5 +201,11 @@ double ParseFrequencyArgument(const std::string& text, const std::string& option
 
 // Parses a command-line resistance such as "50", "50ohm" or "1.2kohm" (bare = ohm); must be > 0.
 double ParseResistanceArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line length such as "28.5mm", "1.1 in" or "0.0285" (bare = metre); must be > 0.
+double ParseLengthArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
+double ParseInductanceArgument(const std::string& text, const std::string& option_name);
 
 }  // namespace wirefield

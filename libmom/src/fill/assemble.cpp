@@ -39,6 +39,7 @@ void Symmetrize(PairMoments* m) {
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
   const double w = 2.0 * core::kPi * frequency_hz;
   *open = false;
+  if (load.coil) return CoilImpedance(*load.coil, frequency_hz);
   if (load.topology == LoadTopology::kSeries) {
     Complex z = 0.0;
     if (load.resistance_ohm) z += *load.resistance_ohm;
