@@ -326,6 +326,12 @@ class Parser {
                      "two)");
     }
     CheckWirePath(points, locations, context);
+    WireSpec path;
+    SetWirePath(points, &path);
+    if (!std::isfinite(WireLength(path))) {
+      throw InputError(locations.front(),
+                       fmt::format("{}: the length is not a finite number", context));
+    }
     return points;
   }
 

@@ -14,6 +14,25 @@ namespace {
 
 std::string M(double metres) { return FormatNumber(metres) + " m"; }
 
+// How far a leg of length leg_m that drops drop_m reaches sideways: Pythagoras' theorem,
+// sqrt(l^2 - h^2), written as sqrt((l - h)(l + h)) so that large numbers do not overflow.
+double Reach(double leg_m, double drop_m) { return std::sqrt((leg_m - drop_m) * (leg_m + drop_m)); }
+
+// The corners, or an InputError when numbers too large for double precision made one infinite.
+std::vector<Point> Finite(const ShapeRequest& r, std::vector<Point> corners) {
+  for (const Point& p : corners) {
+    for (double c : p) {
+      if (!std::isfinite(c)) {
+        throw InputError(r.length_m.location,
+                         fmt::format("{}: the corners of the wire are not finite numbers; give "
+                                     "top=, length=, low= and at in metres of a real support",
+                                     r.context));
+      }
+    }
+  }
+  return corners;
+}
+
 }  // namespace
 
 const std::vector<std::string>& ShapeKindNames() {
@@ -50,7 +69,7 @@ std::vector<Point> ShapeCorners(const ShapeRequest& r) {
                                    "wire runs level at top={})",
                                    context, M(top)));
     }
-    return {apex, away(length, top)};
+    return Finite(r, {apex, away(length, top)});
   }
   const double low = r.low_m ? r.low_m->value : 0.0;
   const SourceLocation low_at = r.low_m ? r.low_m->location : r.top_m.location;
@@ -77,8 +96,7 @@ std::vector<Point> ShapeCorners(const ShapeRequest& r) {
                         "drop of {}): give a length of at least {}, or raise low=",
                         context, M(length), M(top), M(low), M(drop), M(drop)));
       }
-      const double run = std::sqrt(length * length - drop * drop);
-      return {away(run, low), apex};
+      return Finite(r, {away(Reach(length, drop), low), apex});
     }
     case ShapeKind::kInvertedL: {
       if (length <= drop) {
@@ -89,7 +107,7 @@ std::vector<Point> ShapeCorners(const ShapeRequest& r) {
                         "above {}, or raise low=",
                         context, M(length), M(low), M(top), M(drop), M(drop)));
       }
-      return {Point{x, y, low}, apex, away(length - drop, top)};
+      return Finite(r, {Point{x, y, low}, apex, away(length - drop, top)});
     }
     case ShapeKind::kInvertedV: {
       const double leg = length / 2.0;
@@ -101,8 +119,8 @@ std::vector<Point> ShapeCorners(const ShapeRequest& r) {
                         "the support: give a length above {}, or raise low=",
                         context, M(length), M(leg), M(top), M(low), M(drop), M(2.0 * drop)));
       }
-      const double run = std::sqrt(leg * leg - drop * drop);
-      return {away(-run, low), apex, away(run, low)};
+      const double run = Reach(leg, drop);
+      return Finite(r, {away(-run, low), apex, away(run, low)});
     }
     case ShapeKind::kHorizontal:
       break;

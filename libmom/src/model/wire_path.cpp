@@ -62,7 +62,7 @@ void CheckWirePath(const std::vector<Point>& points, const std::vector<SourceLoc
                                  points[i + 1][2] - points[i][2]};
   };
   for (size_t i = 0; i + 1 < points.size(); ++i) {
-    const auto d = leg(i);
+    auto d = leg(i);
     const double length_m = std::hypot(d[0], d[1], d[2]);
     if (!std::isfinite(length_m)) {
       throw InputError(locations[i + 1],
@@ -76,12 +76,17 @@ void CheckWirePath(const std::vector<Point>& points, const std::vector<SourceLoc
                                    context, Ordinal(i + 2), Format(points[i + 1]), Ordinal(i + 1)));
     }
     if (i == 0) continue;
-    const auto e = leg(i - 1);
+    // Unit directions of the leg before and this one (no overflow for huge coordinates).
+    auto e = leg(i - 1);
+    const double before_m = std::hypot(e[0], e[1], e[2]);
+    for (size_t k = 0; k < 3; ++k) {
+      e[k] /= before_m;
+      d[k] /= length_m;
+    }
     const double cross =
         std::hypot(e[1] * d[2] - e[2] * d[1], e[2] * d[0] - e[0] * d[2], e[0] * d[1] - e[1] * d[0]);
     const double dot = e[0] * d[0] + e[1] * d[1] + e[2] * d[2];
-    const double lengths = std::hypot(e[0], e[1], e[2]) * length_m;
-    if (dot < 0.0 && cross <= kReversalSine * lengths) {
+    if (dot < 0.0 && cross <= kReversalSine) {
       throw InputError(
           locations[i + 1],
           fmt::format("{}: the {} point {} takes the wire straight back along the leg before "

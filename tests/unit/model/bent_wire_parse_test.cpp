@@ -250,6 +250,16 @@ TEST(ParseShapeError, TowardTakesAnAngleInDegreesWithDeg) {
             "got a length (m)");
 }
 
+TEST(ParseShapeError, NumbersTooLargeForDoublePrecisionAreRefused) {
+  // 1e308 m + 1e308 m overflows double precision (about 1.8e308): no corner may become inf.
+  EXPECT_EQ(ErrorOf("shape kit horizontal top=1 length=1e308 at (1e308, 0) radius 1mm\n" + kFeed),
+            "kit.wire:1:35: error: shape 'kit': the corners of the wire are not finite numbers; "
+            "give top=, length=, low= and at in metres of a real support");
+  EXPECT_EQ(
+      ErrorOf("wire kit through (-1e308, 0, 1), (1e308, 0, 1), (1e308, 1, 1) radius 1mm\n" + kFeed),
+      "kit.wire:1:34: error: wire 'kit': the leg to the 2nd point is not a finite length");
+}
+
 TEST(ParseShapeError, ClausesAreCheckedLikeAWiresClauses) {
   EXPECT_EQ(ErrorOf("shape kit sloper top=6 top=7 length=10 radius 1mm\n" + kFeed),
             "kit.wire:1:24: error: shape 'kit': top is given twice");
