@@ -538,7 +538,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       const WireSpec& spec = model.wires[w];
       const auto& corners = layout[w].corners;
       double zmin = INFINITY;
-      bool too_close = false;
+      bool too_close = false, connected = false;
       for (size_t i = 0; i < corners.size(); ++i) {
         zmin = std::min(zmin, corners[i].z());
         if (i + 1 == corners.size()) break;
@@ -546,6 +546,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
           return (c == 0 || c + 1 == corners.size()) && std::abs(corners[c].z()) <= join_tol_m;
         };
         const bool from_on = on_ground(i), to_on = on_ground(i + 1);
+        connected |= from_on || to_on;
         too_close |=
             (from_on && to_on) ||
             (!from_on && !to_on && std::min(corners[i].z(), corners[i + 1].z()) < spec.radius_m);
@@ -563,7 +564,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                          "the thin-wire model does not hold there; raise it",
                          spec.name, spec.radius_m)});
       } else if (model.ground.kind == GroundKind::kReal) {
-        RealGroundWarning(spec, from_on || to_on, zmin, wavelength_m, options.max_frequency_hz,
+        RealGroundWarning(spec, connected, zmin, wavelength_m, options.max_frequency_hz,
                           &mesh.warnings);
       }
     }
