@@ -30,7 +30,7 @@ TEST(InputErrors, UnknownStatementNamesItsLineAndColumn) {
   ExpectBadInput(RunWirefield({"solve", path}),
                  path +
                      ":5:1: error: unknown statement 'antenna'; statements are units, let, "
-                     "wire, feed, load, ground, frequency, z0, transformer, line\n");
+                     "wire, shape, feed, load, ground, frequency, z0, transformer, line\n");
 }
 
 TEST(InputErrors, MisspelledStatementSuggestsTheKeyword) {

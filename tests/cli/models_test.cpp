@@ -67,8 +67,9 @@ INSTANTIATE_TEST_SUITE_P(Models, BundledModel, testing::ValuesIn(ModelFiles()), 
 
 TEST(BundledModels, TheFolderHoldsTheDocumentedExamples) {
   const std::vector<std::string> files = ModelFiles();
-  for (const char* name : {"hiking_club_dipole.wire", "campsite_vertical.wire",
-                           "inverted_v_trail.wire", "trap_dipole.wire", "end_fed_field_kit.wire"}) {
+  for (const char* name :
+       {"hiking_club_dipole.wire", "campsite_vertical.wire", "inverted_v_trail.wire",
+        "trap_dipole.wire", "end_fed_field_kit.wire", "kit_sloper.wire", "kit_inverted_l.wire"}) {
     EXPECT_TRUE(std::any_of(files.begin(), files.end(), [&](const std::string& f) {
       return std::filesystem::path(f).filename() == name;
     })) << name;

@@ -66,8 +66,11 @@ struct WirePointSpec {
 
 struct WireSpec {
   std::string name;
-  Point from_m{};
-  Point to_m{};
+  Point from_m{};  // the start (the first point of a bent wire)
+  Point to_m{};    // the end (the last point of a bent wire)
+  // The interior corners of a bent wire (`wire NAME through ...`, `shape`), in order from
+  // from_m to to_m; empty for a straight wire. The current runs on through every corner.
+  std::vector<Point> bends_m;
   double radius_m = 0.0;
   int segments = 0;  // 0: the mesher chooses
   // Conductor: empty material and no conductivity = perfect conductor (the default).
@@ -76,6 +79,11 @@ struct WireSpec {
   double relative_permeability = 1.0;          // steel > 1
   SourceLocation location;
 };
+
+// The corners of a wire from its start to its end: from_m, the bends, to_m.
+std::vector<Point> WirePath(const WireSpec& wire);
+// The length of a wire along its path, metres (the sum of its legs).
+double WireLength(const WireSpec& wire);
 
 struct FeedSpec {
   std::string name;

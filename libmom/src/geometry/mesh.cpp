@@ -9,6 +9,8 @@
 #include <cmath>
 #include <map>
 #include <numeric>
+#include <set>
+#include <utility>
 
 #include "core/constants.hpp"
 
@@ -47,9 +49,20 @@ struct EndRef {
 
 struct WireLayout {
   Vec3 from, to;
+  std::vector<Vec3> corners;     // from, the bends, to (two for a straight wire)
+  std::vector<double> corner_m;  // each corner's distance along the wire from its start
   double length_m = 0.0;
   std::vector<double> nodes_m;  // node distances from the start, first 0, last length
   int first_segment = 0;
+
+  // The point at distance s_m along the wire; exactly the corner at a corner's distance.
+  Vec3 PointAt(double s_m) const {
+    size_t leg = 0;
+    while (leg + 2 < corners.size() && s_m >= corner_m[leg + 1]) ++leg;
+    if (s_m == corner_m[leg]) return corners[leg];
+    const Vec3 dir = (corners[leg + 1] - corners[leg]) / (corner_m[leg + 1] - corner_m[leg]);
+    return corners[leg] + dir * (s_m - corner_m[leg]);
+  }
 };
 
 // Positions along a wire where a feed or load asks for a node.
@@ -74,17 +87,28 @@ int FindWire(const Model& model, const std::string& name, const SourceLocation& 
   throw InputError(where, fmt::format("unknown wire '{}'", name));
 }
 
-// Splits [0, length] at the required interior positions into `count` segments, giving each
-// interval a share proportional to its length (at least one segment each).
-std::vector<double> PlaceNodes(double length_m, std::vector<double> required_m, int count,
-                               double merge_tol_m) {
+// Splits [0, length] at the required interior positions and at the bends into `count`
+// segments, giving each interval a share proportional to its length (at least one segment
+// each). A required position within merge_tol_m of a bend is the bend.
+std::vector<double> PlaceNodes(double length_m, std::vector<double> required_m,
+                               const std::vector<double>& bends_m, int count, double merge_tol_m) {
   std::sort(required_m.begin(), required_m.end());
+  auto near_bend = [&](double r) {
+    return std::any_of(bends_m.begin(), bends_m.end(),
+                       [&](double b) { return std::abs(r - b) <= merge_tol_m; });
+  };
   std::vector<double> breaks{0.0};
+  size_t next_bend = 0;
   for (double r : required_m) {
+    if (near_bend(r)) continue;
+    while (next_bend < bends_m.size() && bends_m[next_bend] < r) {
+      breaks.push_back(bends_m[next_bend++]);
+    }
     if (r > merge_tol_m && r < length_m - merge_tol_m && r - breaks.back() > merge_tol_m) {
       breaks.push_back(r);
     }
   }
+  while (next_bend < bends_m.size()) breaks.push_back(bends_m[next_bend++]);
   breaks.push_back(length_m);
   const int intervals = static_cast<int>(breaks.size()) - 1;
   count = std::max(count, intervals);
@@ -105,9 +129,10 @@ std::vector<double> PlaceNodes(double length_m, std::vector<double> required_m, 
   }
   std::vector<double> nodes{0.0};
   for (int i = 0; i < intervals; ++i) {
-    for (int k = 1; k <= share[i]; ++k) {
+    for (int k = 1; k < share[i]; ++k) {
       nodes.push_back(breaks[i] + (breaks[i + 1] - breaks[i]) * k / share[i]);
     }
+    nodes.push_back(breaks[i + 1]);
   }
   nodes.back() = length_m;
   return nodes;
@@ -190,14 +215,26 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   std::vector<WireLayout> layout(wire_count);
   double shortest_m = INFINITY;
   for (int w = 0; w < wire_count; ++w) {
-    layout[w].from = ToVec(model.wires[w].from_m);
-    layout[w].to = ToVec(model.wires[w].to_m);
-    layout[w].length_m = (layout[w].to - layout[w].from).norm();
-    if (!(layout[w].length_m > 0.0)) {
-      throw InputError(model.wires[w].location,
-                       fmt::format("wire '{}' has zero length; give it different end points",
-                                   model.wires[w].name));
+    WireLayout& wl = layout[w];
+    wl.from = ToVec(model.wires[w].from_m);
+    wl.to = ToVec(model.wires[w].to_m);
+    for (const Point& p : WirePath(model.wires[w])) wl.corners.push_back(ToVec(p));
+    wl.corner_m.push_back(0.0);
+    for (size_t i = 0; i + 1 < wl.corners.size(); ++i) {
+      const double leg_m = (wl.corners[i + 1] - wl.corners[i]).norm();
+      if (!(leg_m > 0.0)) {
+        throw InputError(model.wires[w].location,
+                         wl.corners.size() == 2
+                             ? fmt::format("wire '{}' has zero length; give it different end "
+                                           "points",
+                                           model.wires[w].name)
+                             : fmt::format("wire '{}': its leg {} has zero length; give its "
+                                           "corners different points",
+                                           model.wires[w].name, i + 1));
+      }
+      wl.corner_m.push_back(wl.corner_m.back() + leg_m);
     }
+    layout[w].length_m = wl.corner_m.back();
     if (!(model.wires[w].radius_m >= kMinRadiusOfLength * layout[w].length_m)) {
       throw InputError(
           model.wires[w].location,
@@ -256,6 +293,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       if (radii_cap >= 1.0 && chosen > radii_cap) chosen = radii_cap;
       n = static_cast<long long>(chosen);
     }
+    n = std::max<long long>(n, static_cast<long long>(layout[w].corners.size()) - 1);
     if (n > kMaxUnknowns) {
       throw InputError(spec.location,
                        fmt::format("wire '{}' would need {} segments; the matrix would take "
@@ -279,13 +317,13 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   // Nodes and segments.
   for (int w = 0; w < wire_count; ++w) {
     const WireSpec& spec = model.wires[w];
-    layout[w].nodes_m = PlaceNodes(layout[w].length_m, required[w], counts[w], join_tol_m);
+    const std::vector<double> bends(layout[w].corner_m.begin() + 1, layout[w].corner_m.end() - 1);
+    layout[w].nodes_m = PlaceNodes(layout[w].length_m, required[w], bends, counts[w], join_tol_m);
     layout[w].first_segment = static_cast<int>(mesh.segments.size());
-    const Vec3 dir = (layout[w].to - layout[w].from) / layout[w].length_m;
     for (size_t k = 0; k + 1 < layout[w].nodes_m.size(); ++k) {
       Segment s;
-      s.start = layout[w].from + dir * layout[w].nodes_m[k];
-      s.end = layout[w].from + dir * layout[w].nodes_m[k + 1];
+      s.start = layout[w].PointAt(layout[w].nodes_m[k]);
+      s.end = layout[w].PointAt(layout[w].nodes_m[k + 1]);
       if (k + 2 == layout[w].nodes_m.size()) s.end = layout[w].to;
       s.radius_m = spec.radius_m;
       s.wire = w;
@@ -443,20 +481,46 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                        kMaxSegmentWavelengths)});
     }
   }
-  // Wires that cross or touch without a joint.
-  for (int a = 0; a < wire_count; ++a) {
-    for (int b = a + 1; b < wire_count; ++b) {
-      bool share_joint = false;
-      for (int ea = 0; ea < 2; ++ea) {
-        for (int eb = 0; eb < 2; ++eb) {
-          share_joint |= end_joint[2 * a + ea] == end_joint[2 * b + eb];
-        }
+  // Wires that cross or touch without a joint, leg by leg: legs that share an end (a bend of
+  // one wire, or a joint of two) are connected there and are not a crossing.
+  struct Leg {
+    int wire = 0;
+    Vec3 from, to;
+    int from_id = 0, to_id = 0;  // a joint index, or a bend's own id past the joints
+  };
+  std::vector<Leg> legs;
+  int next_bend_id = static_cast<int>(joints.size());
+  for (int w = 0; w < wire_count; ++w) {
+    const auto& corners = layout[w].corners;
+    for (size_t i = 0; i + 1 < corners.size(); ++i) {
+      Leg leg{w, corners[i], corners[i + 1], 0, 0};
+      leg.from_id = i == 0 ? end_joint[2 * w] : next_bend_id - 1;
+      leg.to_id = i + 2 == corners.size() ? end_joint[2 * w + 1] : next_bend_id++;
+      legs.push_back(leg);
+    }
+  }
+  std::set<std::pair<int, int>> warned;  // wire pairs already flagged
+  for (size_t i = 0; i < legs.size(); ++i) {
+    for (size_t j = i + 1; j < legs.size(); ++j) {
+      const Leg& p = legs[i];
+      const Leg& q = legs[j];
+      if (p.from_id == q.from_id || p.from_id == q.to_id || p.to_id == q.from_id ||
+          p.to_id == q.to_id) {
+        continue;
       }
-      if (share_joint) continue;
+      const int a = p.wire, b = q.wire;
+      if (warned.count({a, b}) != 0) continue;
       Vec3 where;
-      const double d =
-          SegmentDistance(layout[a].from, layout[a].to, layout[b].from, layout[b].to, &where);
-      if (d <= model.wires[a].radius_m + model.wires[b].radius_m) {
+      const double d = SegmentDistance(p.from, p.to, q.from, q.to, &where);
+      if (d > model.wires[a].radius_m + model.wires[b].radius_m) continue;
+      warned.insert({a, b});
+      if (a == b) {
+        mesh.warnings.push_back(
+            {model.wires[a].location,
+             fmt::format("wire '{}' crosses or touches itself near ({:.3g}, {:.3g}, {:.3g}) m: "
+                         "no current passes between its legs there; move its corners apart",
+                         model.wires[a].name, where.x(), where.y(), where.z())});
+      } else {
         mesh.warnings.push_back(
             {model.wires[b].location,
              fmt::format("wires '{}' and '{}' cross or touch near ({:.3g}, {:.3g}, {:.3g}) m "
@@ -467,27 +531,40 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       }
     }
   }
-  // Ground clearance.
+  // Ground clearance, leg by leg: a wire end on the ground is connected to it; a leg lying
+  // along the ground, or passing closer to it than the radius elsewhere, is not modelled.
   if (has_ground) {
     for (int w = 0; w < wire_count; ++w) {
       const WireSpec& spec = model.wires[w];
-      const double zmin = std::min(layout[w].from.z(), layout[w].to.z());
-      const bool from_on = std::abs(layout[w].from.z()) <= join_tol_m;
-      const bool to_on = std::abs(layout[w].to.z()) <= join_tol_m;
+      const auto& corners = layout[w].corners;
+      double zmin = INFINITY;
+      bool too_close = false, connected = false;
+      for (size_t i = 0; i < corners.size(); ++i) {
+        zmin = std::min(zmin, corners[i].z());
+        if (i + 1 == corners.size()) break;
+        auto on_ground = [&](size_t c) {
+          return (c == 0 || c + 1 == corners.size()) && std::abs(corners[c].z()) <= join_tol_m;
+        };
+        const bool from_on = on_ground(i), to_on = on_ground(i + 1);
+        connected |= from_on || to_on;
+        too_close |=
+            (from_on && to_on) ||
+            (!from_on && !to_on && std::min(corners[i].z(), corners[i + 1].z()) < spec.radius_m);
+      }
       if (zmin < -join_tol_m) {
         mesh.warnings.push_back(
             {spec.location,
              fmt::format("wire '{}' goes below the ground (z = {:.3g} m): the ground is the "
                          "plane z = 0 and the solver assumes wires above it; raise the wire",
                          spec.name, zmin)});
-      } else if ((from_on && to_on) || (!from_on && !to_on && zmin < spec.radius_m)) {
+      } else if (too_close) {
         mesh.warnings.push_back(
             {spec.location,
              fmt::format("wire '{}' runs closer to the ground than its radius ({:.3g} m): "
                          "the thin-wire model does not hold there; raise it",
                          spec.name, spec.radius_m)});
       } else if (model.ground.kind == GroundKind::kReal) {
-        RealGroundWarning(spec, from_on || to_on, zmin, wavelength_m, options.max_frequency_hz,
+        RealGroundWarning(spec, connected, zmin, wavelength_m, options.max_frequency_hz,
                           &mesh.warnings);
       }
     }

@@ -10,15 +10,19 @@
 #include <cmath>
 #include <cstdio>
 #include <cstring>
+#include <functional>
 #include <map>
 #include <memory>
+#include <numbers>
 #include <string_view>
 #include <tuple>
 
 #include "core/materials.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
+#include "model/shapes.hpp"
 #include "model/units.hpp"
+#include "model/wire_path.hpp"
 #include "network/line.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"
@@ -40,8 +44,9 @@ constexpr double kBytesPerMatrixEntry = 16.0;
 constexpr double kEndSnapFraction = 1e-12;
 
 const std::vector<std::string>& Keywords() {
-  static const std::vector<std::string> kKeywords = {
-      "units", "let", "wire", "feed", "load", "ground", "frequency", "z0", "transformer", "line"};
+  static const std::vector<std::string> kKeywords = {"units", "let",         "wire",   "shape",
+                                                     "feed",  "load",        "ground", "frequency",
+                                                     "z0",    "transformer", "line"};
   return kKeywords;
 }
 
@@ -184,7 +189,8 @@ class Parser {
           keyword,
           fmt::format("expected a statement ({}) at the start of the line; "
                       "got {}",
-                      "units, let, wire, feed, load, ground, frequency, z0, transformer, line",
+                      "units, let, wire, shape, feed, load, ground, frequency, z0, transformer, "
+                      "line",
                       Quote(keyword)));
     }
     Next();
@@ -192,6 +198,7 @@ class Parser {
     if (k == "units") return Units();
     if (k == "let") return Let();
     if (k == "wire") return Wire(keyword);
+    if (k == "shape") return Shape(keyword);
     if (k == "feed") return Feed(keyword);
     if (k == "load") return Load(keyword);
     if (k == "ground") return Ground(keyword);
@@ -202,8 +209,8 @@ class Parser {
     std::string hint = DidYouMean(k, Keywords());
     if (hint.empty())
       hint =
-          "; statements are units, let, wire, feed, load, ground, frequency, z0, transformer, "
-          "line";
+          "; statements are units, let, wire, shape, feed, load, ground, frequency, z0, "
+          "transformer, line";
     throw Error(keyword, fmt::format("unknown statement '{}'{}", Shorten(k), hint));
   }
 
@@ -272,28 +279,60 @@ class Parser {
   }
 
   Point ParsePoint(const std::string& context, const std::string& which) {
-    ExpectPunct("(", context, fmt::format("'(' to open the {} point (X, Y, Z)", which));
     Point p{};
+    Coordinates(context, which, p.size(), p.data());
+    return p;
+  }
+
+  // "(X, Y, Z)" (count 3) or "(X, Y)" (count 2): lengths in the `units` length.
+  void Coordinates(const std::string& context, const std::string& which, size_t count,
+                   double* out) {
     static constexpr const char* kAxis[] = {"X", "Y", "Z"};
-    for (size_t i = 0; i < 3; ++i) {
+    const std::string form = count == 3 ? "(X, Y, Z)" : "(X, Y)";
+    ExpectPunct("(", context, fmt::format("'(' to open the {} point {}", which, form));
+    for (size_t i = 0; i < count; ++i) {
       const Measured m = Expression();
-      p[i] = As(m, LengthQuantity(), length_factor_,
-                fmt::format("{}: the {} coordinate", context, kAxis[i]));
-      if (i < 2) {
+      out[i] = As(m, LengthQuantity(), length_factor_,
+                  fmt::format("{}: the {} coordinate", context, kAxis[i]));
+      if (i + 1 < count) {
         if (IsPunct(")")) {
-          throw Error(Peek(), fmt::format("{}: the {} point needs 3 coordinates (X, Y, Z); got {}",
-                                          context, which, i + 1));
+          throw Error(Peek(), fmt::format("{}: the {} point needs {} coordinates {}; got {}",
+                                          context, which, count, form, i + 1));
         }
         ExpectPunct(",", context, "',' between coordinates");
       }
     }
     if (IsPunct(",")) {
-      throw Error(Peek(), fmt::format("{}: the {} point has more than 3 coordinates; write "
-                                      "(X, Y, Z)",
-                                      context, which));
+      throw Error(Peek(), fmt::format("{}: the {} point has more than {} coordinates; write "
+                                      "{}",
+                                      context, which, count, form));
     }
     ExpectPunct(")", context, fmt::format("')' to close the {} point", which));
-    return p;
+  }
+
+  // `through (X, Y, Z), (X, Y, Z), ...`: the corners of a bent wire, at least two, checked.
+  std::vector<Point> ThroughPoints(const std::string& context) {
+    std::vector<Point> points;
+    std::vector<SourceLocation> locations;
+    while (true) {
+      locations.push_back(Loc(Peek()));
+      points.push_back(ParsePoint(context, Ordinal(points.size() + 1)));
+      if (!IsPunct(",")) break;
+      Next();
+    }
+    if (points.size() < 2) {
+      throw Expected(context,
+                     "', (X, Y, Z)' and a second point (a wire through points needs at least "
+                     "two)");
+    }
+    CheckWirePath(points, locations, context);
+    WireSpec path;
+    SetWirePath(points, &path);
+    if (!std::isfinite(WireLength(path))) {
+      throw InputError(locations.front(),
+                       fmt::format("{}: the length is not a finite number", context));
+    }
+    return points;
   }
 
   void Wire(const Token& keyword) {
@@ -303,7 +342,14 @@ class Parser {
     wire.name = Name("wire", "a wire name (wire NAME from (X, Y, Z) to (X, Y, Z) radius R)");
     CheckNew(wire_lines_, "wire", wire.name, name_token);
     const std::string context = fmt::format("wire '{}'", wire.name);
-    if (!IsWord("from")) throw Expected(context, "'from (X, Y, Z)'");
+    if (IsWord("through")) {
+      Next();
+      SetWirePath(ThroughPoints(context), &wire);
+      const double length_m = WireLength(wire);
+      WireClauses(context, length_m, &wire);
+      return AddWire(std::move(wire));
+    }
+    if (!IsWord("from")) throw Expected(context, "'from (X, Y, Z)' or 'through (X, Y, Z), ...'");
     Next();
     wire.from_m = ParsePoint(context, "from");
     if (!IsWord("to")) throw Expected(context, "'to (X, Y, Z)'");
@@ -321,6 +367,21 @@ class Parser {
     if (!std::isfinite(length_m)) {
       throw Error(name_token, fmt::format("{}: the length is not a finite number", context));
     }
+    WireClauses(context, length_m, &wire);
+    AddWire(std::move(wire));
+  }
+
+  // The radius, segments and conductor clauses of a wire or shape, in any order.
+  // known_length_m: the wire's length when known before its clauses (the radius is then
+  // checked against it at once); else the caller calls CheckRadius afterwards. extra_clause
+  // (when given) reads one clause of its own and returns true, or returns false when the
+  // clause is not one of its own; clause_help ends the message for an unknown clause.
+  void WireClauses(const std::string& context, std::optional<double> known_length_m, WireSpec* wire,
+                   const std::function<bool()>& extra_clause = nullptr,
+                   const std::string& clause_help =
+                       "after the points come 'radius R' and the optional 'segments N', "
+                       "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]'") {
+    radius_start_.reset();
     std::optional<double> radius_m;
     bool have_segments = false;
     ConductorClauses conductor;
@@ -335,14 +396,10 @@ class Parser {
           throw Error(m.start, fmt::format("{}: the radius must be positive; got {} m", context,
                                            FormatNumber(r)));
         }
-        if (r >= length_m / 4.0) {
-          throw Error(m.start,
-                      fmt::format("{}: the radius {} m is not small against the wire length {} m; "
-                                  "the thin-wire model needs the radius well below the length "
-                                  "(under a quarter of it, best under a hundredth)",
-                                  context, FormatNumber(r), FormatNumber(length_m)));
-        }
         radius_m = r;
+        radius_start_ = m.start;
+        wire->radius_m = r;
+        if (known_length_m) CheckRadius(context, *wire, *known_length_m);
       } else if (IsWord("segments")) {
         if (have_segments) throw Error(clause, fmt::format("{}: segments is given twice", context));
         Next();
@@ -358,22 +415,18 @@ class Parser {
                       fmt::format("segments {} on wire '{}' would need {:.0f} GiB for the matrix "
                                   "(16 bytes per entry, N^2 entries); use at most {}, or leave "
                                   "segments out and let the mesher choose",
-                                  FormatNumber(n), wire.name, gib, kMaxSegmentsPerWire));
+                                  FormatNumber(n), wire->name, gib, kMaxSegmentsPerWire));
         }
-        wire.segments = static_cast<int>(n);
+        wire->segments = static_cast<int>(n);
         have_segments = true;
       } else if (IsWord("material") || IsWord("conductivity") || IsWord("permeability")) {
         Conductor(context, &conductor);
-      } else {
+      } else if (!extra_clause || !extra_clause()) {
         throw Error(clause,
-                    fmt::format("{}: unexpected {}; after the points come 'radius R' and the "
-                                "optional 'segments N', 'material NAME' or 'conductivity=SIGMA "
-                                "[permeability=MU_R]'",
-                                context, Quote(clause)));
+                    fmt::format("{}: unexpected {}; {}", context, Quote(clause), clause_help));
       }
     }
     if (!radius_m) throw Expected(context, "'radius R'");
-    wire.radius_m = *radius_m;
     if (conductor.permeability && !conductor.conductivity) {
       throw Error(*conductor.permeability_token,
                   fmt::format("{}: permeability= needs conductivity=SIGMA beside it (a table "
@@ -382,16 +435,116 @@ class Parser {
     }
     if (conductor.material) {
       const core::Material* entry = core::FindMaterial(*conductor.material);
-      wire.material = *conductor.material;
-      wire.conductivity_s_per_m = entry->conductivity_s_per_m;
-      wire.relative_permeability = entry->relative_permeability;
+      wire->material = *conductor.material;
+      wire->conductivity_s_per_m = entry->conductivity_s_per_m;
+      wire->relative_permeability = entry->relative_permeability;
     } else if (conductor.conductivity) {
-      wire.conductivity_s_per_m = *conductor.conductivity;
-      wire.relative_permeability = conductor.permeability.value_or(1.0);
+      wire->conductivity_s_per_m = *conductor.conductivity;
+      wire->relative_permeability = conductor.permeability.value_or(1.0);
     }
+  }
+
+  // The thin-wire model needs the radius (read last by WireClauses) well below the length.
+  void CheckRadius(const std::string& context, const WireSpec& wire, double length_m) const {
+    const double r = wire.radius_m;
+    if (radius_start_ && r >= length_m / 4.0) {
+      throw Error(*radius_start_,
+                  fmt::format("{}: the radius {} m is not small against the wire length {} m; "
+                              "the thin-wire model needs the radius well below the length "
+                              "(under a quarter of it, best under a hundredth)",
+                              context, FormatNumber(r), FormatNumber(length_m)));
+    }
+  }
+
+  void AddWire(WireSpec wire) {
     wire_lines_[wire.name] = wire.location;
     wire_index_[wire.name] = model_.wires.size();
     model_.wires.push_back(std::move(wire));
+  }
+
+  // shape NAME KIND top=H length=L [low=HL] [toward=AZ] [at (X, Y)] radius R [...]: a wire
+  // laid out the way it is put up in the field (model/shapes.hpp), named like any wire.
+  void Shape(const Token& keyword) {
+    const Token& name_token = Peek();
+    WireSpec wire;
+    wire.location = Loc(keyword);
+    wire.name = Name("shape", "a wire name (shape NAME sloper top=H length=L radius R)");
+    CheckNew(wire_lines_, "wire", wire.name, name_token);
+    ShapeRequest request;
+    request.context = fmt::format("shape '{}'", wire.name);
+    const std::string& context = request.context;
+    const std::vector<std::string>& kinds = ShapeKindNames();
+    const std::string kind_list = "sloper, inverted-l, inverted-v or horizontal";
+    const Token kind_token = Peek();
+    if (kind_token.kind != TokenKind::kName)
+      throw Expected(context, "the kind (" + kind_list + ")");
+    std::string kind = Next().text;  // inverted-l is three tokens written without spaces
+    while (IsPunct("-") && !Peek().space_before) {
+      kind += Next().text;
+      if (Peek().kind == TokenKind::kName && !Peek().space_before) kind += Next().text;
+    }
+    const auto found = std::find(kinds.begin(), kinds.end(), kind);
+    if (found == kinds.end()) {
+      throw Error(kind_token, fmt::format("{}: unknown kind '{}'{}; use {}", context, Shorten(kind),
+                                          DidYouMeanAside(kind, kinds), kind_list));
+    }
+    request.kind = static_cast<ShapeKind>(found - kinds.begin());
+    std::optional<ShapeNumber> top, length;
+    std::optional<Token> toward_token, at_token;
+    auto shape_clause = [&]() {
+      const Token clause = Peek();
+      auto twice = [&] {
+        return Error(clause, fmt::format("{}: {} is given twice", context, clause.text));
+      };
+      if (IsWord("at")) {
+        if (at_token) throw twice();
+        Next();
+        double xy[2];
+        Coordinates(context, "at", 2, xy);
+        request.support_x_m = xy[0];
+        request.support_y_m = xy[1];
+        at_token = clause;
+        return true;
+      }
+      if (!IsWord("top") && !IsWord("length") && !IsWord("low") && !IsWord("toward")) return false;
+      Next();
+      ExpectPunct("=", context, fmt::format("'=' after {}", clause.text));
+      const Measured m = Expression();
+      if (clause.text == "toward") {
+        if (toward_token) throw twice();
+        const double az = Plain(m, context + ": toward", "an angle: 90deg");
+        if (!(std::abs(az) <= 2.0 * std::numbers::pi)) {
+          throw Error(m.start,
+                      fmt::format("{}: toward={} is more than a turn; plain numbers are radians "
+                                  "(as in cos()), so write the azimuth in degrees with deg, as "
+                                  "toward={}deg",
+                                  context, FormatNumber(az), FormatNumber(az)));
+        }
+        request.toward_rad = az;
+        toward_token = clause;
+        return true;
+      }
+      const ShapeNumber number{
+          As(m, LengthQuantity(), length_factor_, fmt::format("{}: {}", context, clause.text)),
+          Loc(m.start)};
+      std::optional<ShapeNumber>* slot = clause.text == "top"      ? &top
+                                         : clause.text == "length" ? &length
+                                                                   : &request.low_m;
+      if (*slot) throw twice();
+      *slot = number;
+      return true;
+    };
+    WireClauses(context, std::nullopt, &wire, shape_clause,
+                "after the kind come top=H, length=L, radius R and the optional low=HL, "
+                "toward=AZ, at (X, Y), 'segments N', 'material NAME' or 'conductivity=SIGMA "
+                "[permeability=MU_R]'");
+    if (!top) throw Expected(context, "'top=H' (the height of the support's top)");
+    if (!length) throw Expected(context, "'length=L' (the length of the wire)");
+    request.top_m = *top;
+    request.length_m = *length;
+    SetWirePath(ShapeCorners(request), &wire);
+    CheckRadius(context, wire, WireLength(wire));
+    AddWire(std::move(wire));
   }
 
   // The conductor clauses of a wire, as read; checked against each other as they come.
@@ -520,8 +673,7 @@ class Parser {
       spec.kind = Next().text == "start" ? PointKind::kStart : PointKind::kEnd;
       return spec;
     }
-    const double length_m = std::hypot(wire.to_m[0] - wire.from_m[0], wire.to_m[1] - wire.from_m[1],
-                                       wire.to_m[2] - wire.from_m[2]);
+    const double length_m = WireLength(wire);
     const Measured m = Expression();
     if (IsPunct("%")) {
       Next();
@@ -1315,7 +1467,8 @@ class Parser {
   std::map<std::string, std::pair<std::string, SourceLocation>> feed_transformer_, feed_line_;
   std::map<std::string, size_t> wire_index_;
   std::optional<SourceLocation> ground_line_, frequency_line_, z0_line_;
-  double length_factor_ = 1.0;  // metres per bare length number (the `units` statement)
+  std::optional<Token> radius_start_;  // the radius value of the wire being read
+  double length_factor_ = 1.0;         // metres per bare length number (the `units` statement)
   LineSource source_;
   std::vector<Token> tokens_;
   size_t pos_ = 0;

@@ -21,6 +21,8 @@ const std::string kCampsiteMast =
     "let coil = 2*pi*f*4uH\n"
     "wire mast from (0, 0, 0.2) to (0, 0, h) radius 1.5mm segments 25\n"
     "wire slope from (0, 0, 0.2) to (5, 0, 1) radius 1mm\n"
+    "wire guy through (3, 0, 0.5), (3, 0, 2), (4, 1, 2) radius 1mm segments 6\n"
+    "shape top inverted-l top=h length=12 low=1 toward=45deg at (9, 9) radius 1mm\n"
     "feed src at mast@start voltage 1V\n"
     "load coil at mast@ 40% series R=0.5 L=4uH\n"
     "load trap at slope@2.5 parallel L=8.2uH C=60pF R=20kohm\n"
@@ -37,6 +39,9 @@ Outcome ParseOrRefuse(const std::string& text) {
     for (const WireSpec& w : m.wires) {
       for (double v : w.from_m) EXPECT_TRUE(std::isfinite(v));
       for (double v : w.to_m) EXPECT_TRUE(std::isfinite(v));
+      for (const Point& p : w.bends_m) {
+        for (double v : p) EXPECT_TRUE(std::isfinite(v));
+      }
       EXPECT_GT(w.radius_m, 0.0);
     }
     for (const FeedSpec& f : m.feeds) EXPECT_TRUE(std::isfinite(f.at.value));

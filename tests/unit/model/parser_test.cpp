@@ -463,16 +463,18 @@ TEST(ParseError, UnknownStatementSuggestsTheNearestKeyword) {
             "kit.wire:1:1: error: unknown statement 'wir'; did you mean 'wire'?");
   EXPECT_EQ(ErrorOf("antenna x\n"),
             "kit.wire:1:1: error: unknown statement 'antenna'; statements are units, let, wire, "
-            "feed, load, ground, frequency, z0, transformer, line");
+            "shape, feed, load, ground, frequency, z0, transformer, line");
   EXPECT_EQ(ErrorOf("(1, 2)\n"),
-            "kit.wire:1:1: error: expected a statement (units, let, wire, feed, load, ground, "
-            "frequency, z0, transformer, line) at the start of the line; got '('");
+            "kit.wire:1:1: error: expected a statement (units, let, wire, shape, feed, load, "
+            "ground, frequency, z0, transformer, line) at the start of the line; got '('");
 }
 
 TEST(ParseError, MissingArgumentsAreNamed) {
   EXPECT_EQ(ErrorOf("wire top from (0,0,0) to (0,0,5)\n"),
             "kit.wire:1:33: error: wire 'top': missing 'radius R'");
-  EXPECT_EQ(ErrorOf("wire top\n"), "kit.wire:1:9: error: wire 'top': missing 'from (X, Y, Z)'");
+  EXPECT_EQ(ErrorOf("wire top\n"),
+            "kit.wire:1:9: error: wire 'top': missing 'from (X, Y, Z)' or 'through "
+            "(X, Y, Z), ...'");
   EXPECT_EQ(ErrorOf("wire top from (0,0,0) radius 1mm\n"),
             "kit.wire:1:23: error: wire 'top': expected 'to (X, Y, Z)'; got 'radius'");
   EXPECT_EQ(ErrorOf("wire\n"),
