@@ -69,9 +69,9 @@ struct WireSpec {
   double radius_m = 0.0;
   int segments = 0;  // 0: the mesher chooses
   // Conductor: empty material and no conductivity = perfect conductor (the default).
-  std::string material;                         // e.g. "copper", as written in the model
-  std::optional<double> conductivity_s_per_m;   // set for any lossy conductor
-  double relative_permeability = 1.0;           // steel > 1
+  std::string material;                        // e.g. "copper", as written in the model
+  std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
+  double relative_permeability = 1.0;          // steel > 1
   SourceLocation location;
 };
 
@@ -111,9 +111,9 @@ struct TransformerSpec {
   std::string feed;  // the feed it sits at
   double primary_turns = 1.0;
   double secondary_turns = 1.0;
-  std::optional<double> magnetizing_inductance_h;  // primary side; absent = ideal (infinite)
-  std::optional<double> al_nh_per_turn2;           // core A_L; with primary turns gives L
-  double leakage_inductance_h = 0.0;               // series, primary side
+  std::optional<double> magnetizing_inductance_h;    // primary side; absent = ideal (infinite)
+  std::optional<double> al_nh_per_turn2;             // core A_L; with primary turns gives L
+  double leakage_inductance_h = 0.0;                 // series, primary side
   std::optional<double> compensation_capacitance_f;  // shunt, transmitter side
   std::optional<double> core_loss_resistance_ohm;    // shunt, primary side
   std::optional<double> core_q;                      // alternative: Q of the magnetizing L
@@ -149,10 +149,11 @@ struct Model {
   GroundSpec ground;
   std::optional<double> frequency_hz;
   SourceLocation frequency_location;
-  std::optional<double> z0_ohm;  // reference impedance for SWR; 50 ohm when absent
+  std::optional<double> z0_ohm;               // reference impedance for SWR; 50 ohm when absent
   std::vector<TransformerSpec> transformers;  // at most one per feed
   std::vector<FeedLineSpec> feed_lines;       // at most one per feed
-  std::vector<Warning> warnings;  // raised while parsing
+  std::vector<Warning> warnings;              // raised while parsing
+  std::vector<std::string> variables;         // the names of its `let` statements, in order
 };
 
 // A --set NAME=VALUE override: VALUE is an expression of the model language.
@@ -163,6 +164,10 @@ struct Override {
 
 // Reads and parses a model file. Throws InputError for any defect of the input.
 Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides = {});
+
+// Reads a model file's text whole (at most a few MiB). Throws InputError naming the file when
+// it cannot be read or is too large to be a model.
+std::string ReadModelFileText(const std::string& path);
 
 // Parses model text; file_name is used in diagnostics only.
 Model ParseModelText(const std::string& text, const std::string& file_name,

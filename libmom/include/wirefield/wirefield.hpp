@@ -1,10 +1,11 @@
 // wirefield public API: include this one header.
 #pragma once
 
+#include "wirefield/batch.hpp"
 #include "wirefield/model.hpp"
-#include "wirefield/simulation.hpp"
-#include "wirefield/report.hpp"
-#include "wirefield/pattern.hpp"
 #include "wirefield/network.hpp"
+#include "wirefield/pattern.hpp"
+#include "wirefield/report.hpp"
+#include "wirefield/simulation.hpp"
 #include "wirefield/sweep.hpp"
 #include "wirefield/sweep_report.hpp"
