@@ -64,7 +64,7 @@ void WriteFilesAtomically(const std::vector<OutputFile>& files) {
 
 bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
 
-void Fail(const std::string& option, const std::string& message) {
+void FailOption(const std::string& option, const std::string& message) {
   throw InputError(SourceLocation{option, 1, 1}, message);
 }
 
@@ -76,7 +76,7 @@ int WholeNumber(const std::string& text, const std::string& option, long low, lo
   const long value = std::strtol(begin, &end, 10);
   if (text.empty() || end == begin || *end != '\0' || errno == ERANGE || value < low ||
       value > high) {
-    Fail(option, fmt::format("{} needs {}; got '{}'", option, what, text));
+    FailOption(option, fmt::format("{} needs {}; got '{}'", option, what, text));
   }
   return static_cast<int>(value);
 }
@@ -146,9 +146,9 @@ std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::strin
                                    int region, std::vector<Band>& bands) {
   const bool range = Given(flags.from_option) || Given(flags.to_option);
   if (range && Given(flags.band_option)) {
-    Fail("--band",
-         "--band and --from/--to both choose the frequencies; give --band NAME or --from F1 "
-         "--to F2, not both");
+    FailOption("--band",
+               "--band and --from/--to both choose the frequencies; give --band NAME or --from F1 "
+               "--to F2, not both");
   }
   if (!range && !Given(flags.band_option)) {
     throw InputError(
@@ -159,19 +159,19 @@ std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::strin
   std::vector<SweepSpan> spans;
   if (range) {
     if (!Given(flags.from_option) || !Given(flags.to_option)) {
-      Fail(Given(flags.from_option) ? "--to" : "--from",
-           "a range sweep needs both --from and --to, e.g. --from 7MHz --to 7.3MHz");
+      FailOption(Given(flags.from_option) ? "--to" : "--from",
+                 "a range sweep needs both --from and --to, e.g. --from 7MHz --to 7.3MHz");
     }
     const double from_hz = ParseFrequencyArgument(flags.from, "--from");
     const double to_hz = ParseFrequencyArgument(flags.to, "--to");
     if (!(to_hz > from_hz)) {
-      Fail("--to", fmt::format("--to ({:.6g} MHz) must be above --from ({:.6g} MHz)", to_hz / 1e6,
-                               from_hz / 1e6));
+      FailOption("--to", fmt::format("--to ({:.6g} MHz) must be above --from ({:.6g} MHz)",
+                                     to_hz / 1e6, from_hz / 1e6));
     }
     if (Given(flags.step_option) == Given(flags.points_option)) {
-      Fail("--step",
-           "a range sweep needs one of --step DF (e.g. --step 5kHz) or --points N "
-           "(e.g. --points 101), not both and not neither");
+      FailOption("--step",
+                 "a range sweep needs one of --step DF (e.g. --step 5kHz) or --points N "
+                 "(e.g. --points 101), not both and not neither");
     }
     SweepSpan span;
     span.name = "range";
@@ -191,16 +191,17 @@ std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::strin
     return spans;
   }
   if (Given(flags.step_option) || Given(flags.points_option)) {
-    Fail(Given(flags.step_option) ? "--step" : "--points",
-         fmt::format("{} applies to --from/--to; a band sweep uses 1 kHz steps, or {} points "
-                     "on a band wider than {} kHz",
-                     Given(flags.step_option) ? "--step" : "--points", kMaxBandPoints,
-                     kMaxBandPoints - 1));
+    FailOption(Given(flags.step_option) ? "--step" : "--points",
+               fmt::format("{} applies to --from/--to; a band sweep uses 1 kHz steps, or {} points "
+                           "on a band wider than {} kHz",
+                           Given(flags.step_option) ? "--step" : "--points", kMaxBandPoints,
+                           kMaxBandPoints - 1));
   }
   for (const std::string& name : flags.bands) {
     const Band band = FindBand(name, region);
     for (const Band& known : bands) {
-      if (known.name == band.name) Fail("--band", fmt::format("--band {} is given twice", name));
+      if (known.name == band.name)
+        FailOption("--band", fmt::format("--band {} is given twice", name));
     }
     bands.push_back(band);
   }

@@ -31,6 +31,9 @@ struct ModelFlags {
   CLI::Option* z0_option = nullptr;
 };
 
+// True when the option exists and was given on the command line.
+bool Given(const CLI::Option* option);
+
 // Adds MODEL, --set, --z0 and --json to `command`, and --freq when with_frequency is true.
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency);
 
@@ -50,11 +53,8 @@ void PrintWarnings(const std::vector<Warning>& warnings);
 // Writes text to stdout in full and flushes; ComputationError when stdout cannot take it.
 void WriteStdout(const std::string& text);
 
-// True when the option exists and was given on the command line.
-bool Given(const CLI::Option* option);
-
 // Throws InputError about `option` (as the file, at 1:1) with `message`.
-[[noreturn]] void Fail(const std::string& option, const std::string& message);
+[[noreturn]] void FailOption(const std::string& option, const std::string& message);
 
 // A whole number of the whole text, within [low, high]; else InputError naming the option.
 int WholeNumber(const std::string& text, const std::string& option, long low, long high,
@@ -98,6 +98,7 @@ Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);
 Command AddSweepCommand(CLI::App& program);
 Command AddBatchCommand(CLI::App& program);
+Command AddCoilCommand(CLI::App& program);
 
 // A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
 struct OutputFile {

@@ -77,6 +77,7 @@ int RunSweepCommand(const SweepFlags& flags) {
 
   SweepReport report;
   report.model_file = simulation.model().file;
+  report.ground = simulation.model().ground;
   report.feed_name = feed_name;
   report.sweep = RunSpans(simulation, spans, options, progress);
   report.spans = spans;

@@ -192,6 +192,18 @@ TEST(BatchCommand, UnknownVariableIsExit2BeforeAnyRow) {
             "total, height, wire_diameter)\n");
 }
 
+TEST(BatchCommand, BadGroundNameListsThePresets) {
+  const std::string err = RunBadInput(Args({"batch", Dipole(), "--grounds", "medium_dry,swamp"}));
+  EXPECT_EQ(err.rfind("--grounds:1:1: error: unknown ground 'swamp'; use all, or a "
+                      "comma-separated list of ",
+                      0),
+            0u)
+      << err;
+  for (const char* name : {"sea_water", "medium_dry", "very_dry", "free", "perfect"}) {
+    EXPECT_NE(err.find(name), std::string::npos) << name;
+  }
+}
+
 TEST(BatchCommand, LargeGridNeedsYesLarge) {
   const std::string err = RunBadInput(
       Args({"batch", Dipole(), "--vary", "total=5m:15m:0.1m", "--vary", "height=1m:20m:1m"}));

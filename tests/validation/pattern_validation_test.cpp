@@ -14,19 +14,9 @@ namespace {
 using testing::Dipole;
 using testing::HorizontalDipole;
 using testing::kUnitWavelengthHz;
+using testing::Solved;
+using testing::SolveModel;
 
-struct Solved {
-  Simulation sim;
-  SolveResult result;
-};
-
-Solved SolveModel(const Model& m) {
-  SimulationOptions o;
-  o.max_frequency_hz = kUnitWavelengthHz;
-  Simulation sim(m, o);
-  SolveResult r = sim.Solve(kUnitWavelengthHz);
-  return {std::move(sim), std::move(r)};
-}
 
 TEST(HalfWaveDipole, GainIsTheTextbookDirectivity) {
   // D = 4 / Cin(2 pi) = 1.6409 -> 2.151 dBi (Balanis, 3rd ed., eq. 4-91, from memory;

@@ -59,4 +59,19 @@ inline Complex SolveFeedImpedance(const Model& m, double frequency_hz = kUnitWav
   return Simulation(m, o).Solve(frequency_hz).feeds.at(0).impedance_ohm;
 }
 
+// A model meshed and solved at one frequency (default: wavelength 1 m), kept together so that
+// far-field calls can use both.
+struct Solved {
+  Simulation sim;
+  SolveResult result;
+};
+
+inline Solved SolveModel(const Model& m, double frequency_hz = kUnitWavelengthHz) {
+  SimulationOptions o;
+  o.max_frequency_hz = frequency_hz;
+  Simulation sim(m, o);
+  SolveResult r = sim.Solve(frequency_hz);
+  return {std::move(sim), std::move(r)};
+}
+
 }  // namespace wirefield::testing

@@ -10,6 +10,8 @@
 #include <string>
 #include <vector>
 
+#include "wirefield/coil.hpp"
+
 namespace wirefield {
 
 // Where a piece of input came from. file is the model path as given (or "<command line>").
@@ -84,7 +86,9 @@ struct FeedSpec {
 
 enum class LoadTopology { kSeries, kParallel };
 
-// A lumped load: the present elements of R, L, C in series or in parallel.
+// A lumped load: the present elements of R, L, C in series or in parallel, or a physical
+// coil (then R, L, C are absent and the coil's L, R_ac and self-capacitance are computed at
+// each frequency, wirefield/coil.hpp).
 struct LoadSpec {
   std::string name;
   WirePointSpec at;
@@ -92,6 +96,7 @@ struct LoadSpec {
   std::optional<double> resistance_ohm;
   std::optional<double> inductance_h;
   std::optional<double> capacitance_f;
+  std::optional<CoilSpec> coil;
   SourceLocation location;
 };
 
@@ -101,8 +106,26 @@ struct GroundSpec {
   GroundKind kind = GroundKind::kFree;
   double permittivity = 1.0;          // relative, real ground only
   double conductivity_s_per_m = 0.0;  // real ground only
+  std::string preset;                 // the preset's name when given as preset=NAME
   SourceLocation location;
 };
+
+// A named ground of the kind ITU-R Recommendation P.527 describes (or of common practice),
+// usable as `ground real preset=NAME`. Values are those flat across HF (1.8-30 MHz).
+struct GroundPreset {
+  std::string name;     // as written in a model, e.g. "medium_dry"
+  double permittivity;  // relative
+  double conductivity_s_per_m;
+  std::string description;  // e.g. "medium dry ground (pasture on loam)"
+  std::string source;       // where the values come from
+};
+
+// Every preset, in the order of the ITU-R P.527 classes (wettest first), then the others.
+const std::vector<GroundPreset>& GroundPresets();
+// The preset of that name, or nullptr.
+const GroundPreset* FindGroundPreset(const std::string& name);
+// A GroundSpec of kind kReal from a preset.
+GroundSpec RealGround(const GroundPreset& preset);
 
 // A transformer at a feed (an end-fed wire's step-up transformer, a balun): turns
 // primary:secondary (transmitter side : antenna side), impedance ratio (secondary/primary)^2.
@@ -183,5 +206,11 @@ double ParseFrequencyArgument(const std::string& text, const std::string& option
 
 // Parses a command-line resistance such as "50", "50ohm" or "1.2kohm" (bare = ohm); must be > 0.
 double ParseResistanceArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line length such as "28.5mm", "1.1 in" or "0.0285" (bare = metre); must be > 0.
+double ParseLengthArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
+double ParseInductanceArgument(const std::string& text, const std::string& option_name);
 
 }  // namespace wirefield

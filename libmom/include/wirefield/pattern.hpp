@@ -1,5 +1,5 @@
 // wirefield public API, part 4: the far field, gain, radiation pattern and power budget of a
-// solved model (free space, or the upper half-space over a perfect ground).
+// solved model (free space, or the upper half-space over a perfect or real ground).
 // Angles: elevation up from the horizon (90 = zenith), azimuth from +x toward +y, degrees.
 #pragma once
 
@@ -36,8 +36,8 @@ struct PatternOptions {
 // One cut: gain against angle (elevation 0..180 through the azimuth of the maximum and its
 // back, or azimuth 0..360 at a fixed elevation).
 struct PatternCut {
-  std::string plane;        // "elevation" or "azimuth"
-  double fixed_angle_deg;   // the azimuth (elevation cut) or elevation (azimuth cut) held fixed
+  std::string plane;       // "elevation" or "azimuth"
+  double fixed_angle_deg;  // the azimuth (elevation cut) or elevation (azimuth cut) held fixed
   std::vector<double> angle_deg;
   std::vector<double> gain_dbi;
   std::vector<double> gain_vertical_dbi;
@@ -51,8 +51,11 @@ struct PowerBudget {
   double radiated_w = 0.0;  // integrated over the sphere (free) or the upper half-space
   double loads_w = 0.0;
   double wires_w = 0.0;
-  double efficiency = 0.0;        // radiated / input
-  double balance_error = 0.0;     // (radiated + loads + wires - input) / input
+  // Over a real ground: the power the ground absorbs, input - radiated - loads - wires (the
+  // balance cannot be checked then, and balance_error is 0). 0 otherwise.
+  double ground_w = 0.0;
+  double efficiency = 0.0;     // radiated / input
+  double balance_error = 0.0;  // (radiated + loads + wires - input) / input
 };
 
 struct PatternResult {

@@ -18,6 +18,7 @@ namespace wirefield {
 struct SweepReport {
   std::string model_file;
   std::string feed_name;  // the first feed, whose points these are
+  GroundSpec ground;      // the model's ground, stated in the report
   SweepResult sweep;
   std::vector<SweepSpan> spans;      // how the frequencies were chosen, in order
   std::vector<BandSummary> bands;    // one per --band, in the order given (empty for a range)

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "wirefield/batch.hpp"
+#include "wirefield/coil.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"
 #include "wirefield/pattern.hpp"

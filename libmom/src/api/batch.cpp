@@ -107,7 +107,10 @@ const char* KindName(GroundKind kind) {
 }
 
 // The name a model's own ground is shown under: its preset, or its kind.
-std::string OwnGroundName(const GroundSpec& ground) { return KindName(ground.kind); }
+std::string OwnGroundName(const GroundSpec& ground) {
+  if (!ground.preset.empty()) return ground.preset;
+  return KindName(ground.kind);
+}
 
 std::string ListNames(const std::vector<std::string>& names) {
   std::string out;
@@ -259,10 +262,17 @@ void CheckOptions(const BatchOptions& options, const Model& base) {
 
 std::vector<BatchGround> ParseGroundList(const std::string& text) {
   std::vector<std::string> known;
+  for (const GroundPreset& preset : GroundPresets()) known.push_back(preset.name);
   known.push_back("free");
   known.push_back("perfect");
   const std::string trimmed = Trim(text);
   std::vector<BatchGround> grounds;
+  if (trimmed == "all") {
+    for (const GroundPreset& preset : GroundPresets()) {
+      grounds.push_back(BatchGround{preset.name, RealGround(preset)});
+    }
+    return grounds;
+  }
   for (const std::string& name : Split(trimmed, ',')) {
     BatchGround ground{name, std::nullopt};
     if (name == "free") {
@@ -271,6 +281,8 @@ std::vector<BatchGround> ParseGroundList(const std::string& text) {
     } else if (name == "perfect") {
       ground.spec = GroundSpec{};
       ground.spec->kind = GroundKind::kPerfect;
+    } else if (const GroundPreset* preset = FindGroundPreset(name)) {
+      ground.spec = RealGround(*preset);
     } else {
       throw InputError(
           {"--grounds", 1, 1},

@@ -83,8 +83,7 @@ Evaluator MakeEvaluator(const Simulation& simulation, const SolveResult& solved)
         "the feeds deliver no power to the antenna, so gain is undefined; give a feed a "
         "non-zero voltage");
   }
-  return {post::FarFieldSource(solved.currents, solved.frequency_hz,
-                               simulation.model().ground.kind == GroundKind::kPerfect),
+  return {post::FarFieldSource(solved.currents, solved.frequency_hz, simulation.model().ground),
           input_w};
 }
 
@@ -142,7 +141,7 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
                                  options.step_deg));
   }
   const Evaluator eval = MakeEvaluator(simulation, solved);
-  const bool over_ground = simulation.model().ground.kind == GroundKind::kPerfect;
+  const bool over_ground = simulation.model().ground.kind != GroundKind::kFree;
   PatternResult r;
   r.frequency_hz = solved.frequency_hz;
   // A whole number of steps per 90 degrees, no coarser than asked.
@@ -286,8 +285,23 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   for (const LoadResult& l : solved.loads) r.power.loads_w += l.power_w;
   r.power.wires_w = solved.wire_loss_w;
   r.power.efficiency = r.power.radiated_w / r.power.input_w;
-  r.power.balance_error =
-      (r.power.radiated_w + r.power.loads_w + r.power.wires_w - r.power.input_w) / r.power.input_w;
+  const double accounted = r.power.radiated_w + r.power.loads_w + r.power.wires_w;
+  if (simulation.model().ground.kind == GroundKind::kReal) {
+    // The ground takes what is neither radiated nor dissipated in the antenna.
+    r.power.ground_w = r.power.input_w - accounted;
+    if (r.power.ground_w < -kBalanceTolerance * r.power.input_w) {
+      Warning w;
+      w.location = simulation.model().ground.location;
+      w.message = fmt::format(
+          "the ground loss comes out negative ({:.1f}% of the input): the antenna is too close "
+          "to the real ground for the reflection-coefficient approximation; the gain and "
+          "efficiency here are not reliable",
+          100.0 * r.power.ground_w / r.power.input_w);
+      r.warnings.push_back(std::move(w));
+    }
+    return r;
+  }
+  r.power.balance_error = (accounted - r.power.input_w) / r.power.input_w;
   if (std::abs(r.power.balance_error) > kBalanceTolerance) {
     Warning w;
     w.location.file = simulation.model().file;

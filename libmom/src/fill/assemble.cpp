@@ -1,4 +1,7 @@
 // Fill stage: assembly of the Galerkin matrix from segment-pair kernel moments.
+// Over a ground each source segment also acts through its mirror image, weighted by the
+// ground's image weights (exact for a perfect ground, the reflection-coefficient approximation
+// for a real one: ground/reflection.hpp).
 // Z_mn = j omega mu/(4 pi) int int f_m . f_n G + 1/(j omega eps 4 pi) int int (div f_m)(div f_n) G
 // with triangle bases f (docs/numerics.md). Each segment pair's moments are computed once and
 // scattered to the bases whose pieces lie on the two segments; Z is symmetric, so only pairs
@@ -9,6 +12,7 @@
 
 #include "core/constants.hpp"
 #include "fill/conductor.hpp"
+#include "ground/reflection.hpp"
 
 namespace wirefield::fill {
 namespace {
@@ -35,6 +39,7 @@ void Symmetrize(PairMoments* m) {
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
   const double w = 2.0 * core::kPi * frequency_hz;
   *open = false;
+  if (load.coil) return CoilImpedance(*load.coil, frequency_hz);
   if (load.topology == LoadTopology::kSeries) {
     Complex z = 0.0;
     if (load.resistance_ohm) z += *load.resistance_ohm;
@@ -130,12 +135,16 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
     unit[s] = (mesh.segments[s].end - mesh.segments[s].start) / length[s];
   }
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
+  const ground::Ground ground(mesh.ground, frequency_hz);
 
   Eigen::MatrixXcd z = Eigen::MatrixXcd::Zero(n, n);
-  // Scatters the moments of (observation i, source j) into Z; `sign` -1 for an image source.
-  auto scatter = [&](int i, int j, const PairMoments& m, double cos_ij, double sign) {
-    const Complex a_part = sign * c_vector * (length[i] * length[j] * cos_ij);
-    const Complex s_part = sign * c_scalar;
+  // Scatters the moments of (observation i, source j) into Z. vector_weight multiplies the
+  // vector-potential part (u_i . u_j for a direct pair, u_i . M u_j for an image), charge_weight
+  // the scalar-potential part (1 direct, s for an image); see ground/reflection.hpp.
+  auto scatter = [&](int i, int j, const PairMoments& m, Complex vector_weight,
+                     Complex charge_weight) {
+    const Complex a_part = c_vector * (length[i] * length[j]) * vector_weight;
+    const Complex s_part = c_scalar * charge_weight;
     for (const PieceRef& pm : on_segment[i]) {
       for (const PieceRef& pn : on_segment[j]) {
         const Complex vec = pm.alpha * pn.alpha * m.m00 + pm.alpha * pn.beta * m.m01 +
@@ -174,11 +183,23 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
       if (mesh.ground_images) {
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-        const double cos_img = unit[i].dot(unit[j].cwiseProduct(mirror));
         PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
         if (j == i) Symmetrize(&mi);
-        scatter(i, j, mi, cos_img, -1.0);
-        if (j != i) scatter(j, i, transpose(mi), cos_img, -1.0);
+        Complex vector_weight, charge_weight;
+        if (ground.perfect()) {
+          // The exact image: M = diag(-1, -1, 1), s = -1.
+          vector_weight = -unit[i].dot(unit[j].cwiseProduct(mirror));
+          charge_weight = -1.0;
+        } else {
+          // Reflection-coefficient approximation at the specular angle of the two centres.
+          const ground::ImageWeights w =
+              ground.WeightsBetween(0.5 * (si.start + si.end), 0.5 * (sj.start + sj.end));
+          vector_weight = unit[i].cast<Complex>().dot(w.vector_dyadic * unit[j].cast<Complex>());
+          charge_weight = w.charge_factor;
+        }
+        // M is symmetric and the specular angle is the same both ways: Z stays symmetric.
+        scatter(i, j, mi, vector_weight, charge_weight);
+        if (j != i) scatter(j, i, transpose(mi), vector_weight, charge_weight);
       }
     }
   }

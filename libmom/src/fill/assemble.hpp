@@ -15,7 +15,8 @@ namespace wirefield::fill {
 
 using Complex = std::complex<double>;
 
-// Impedance of a lumped load at a frequency. *open is set when the element is an ideal open
+// Impedance of a lumped load at a frequency (a coil load: its (R_ac + j omega L) in parallel
+// with its self-capacitance, wirefield/coil.hpp). *open is set when the element is an ideal open
 // circuit there (parallel L and C at exact resonance, nothing else in parallel); the returned
 // impedance is then a finite stand-in of 1e12 ohm.
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open);

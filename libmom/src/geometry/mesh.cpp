@@ -141,6 +141,38 @@ double SegmentDistance(const Vec3& p0, const Vec3& p1, const Vec3& q0, const Vec
   return (cp - cq).norm();
 }
 
+namespace {
+
+// Below this height in wavelengths the reflection-coefficient approximation of a real ground
+// errs by more than a few percent in the self-interaction of a wire (docs/numerics.md).
+constexpr double kRealGroundWarnHeightWavelengths = 0.2;
+
+// A wire low over a real ground, or connected to it: say what the approximation misses.
+void RealGroundWarning(const WireSpec& spec, bool connected, double zmin_m, double wavelength_m,
+                       double frequency_hz, std::vector<Warning>* warnings) {
+  if (connected) {
+    warnings->push_back(
+        {spec.location,
+         fmt::format("wire '{}' connects to the real ground: the connection is an ideal ground "
+                     "stake (no stake or radial loss), and the reflection-coefficient "
+                     "approximation is weak for wires this close to the ground; treat the "
+                     "impedance and the ground loss as estimates",
+                     spec.name)});
+    return;
+  }
+  const double h = zmin_m / wavelength_m;
+  if (h >= kRealGroundWarnHeightWavelengths) return;
+  warnings->push_back(
+      {spec.location,
+       fmt::format("wire '{}' comes down to {:.3g} wavelength ({:.3g} m at {:.4g} MHz) above the "
+                   "real ground, where the reflection-coefficient approximation is weak (its "
+                   "self-interaction error is a few percent at 0.2 wavelength and tens of percent "
+                   "at 0.1 wavelength); treat the impedance and the ground loss as estimates",
+                   spec.name, h, zmin_m, frequency_hz / 1e6)});
+}
+
+}  // namespace
+
 Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   Mesh mesh;
   const SourceLocation file_location{model.file, 0, 0};
@@ -149,13 +181,9 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                      "the model has no wire; add 'wire NAME from (X, Y, Z) to (X, Y, Z) radius R'");
   if (model.feeds.empty())
     throw InputError(file_location, "the model has no feed; add 'feed NAME at WIRE@POS'");
-  if (model.ground.kind == GroundKind::kReal) {
-    throw InputError(model.ground.location,
-                     "this version's solver handles 'ground free' and 'ground perfect' only; "
-                     "real ground is not available yet: use 'ground perfect' for a first estimate");
-  }
   const bool has_ground = model.ground.kind != GroundKind::kFree;
-  mesh.ground_images = model.ground.kind == GroundKind::kPerfect;
+  mesh.ground_images = has_ground;
+  mesh.ground = model.ground;
   const double wavelength_m = core::kSpeedOfLight_m_per_s / options.max_frequency_hz;
 
   const int wire_count = static_cast<int>(model.wires.size());
@@ -458,6 +486,9 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
              fmt::format("wire '{}' runs closer to the ground than its radius ({:.3g} m): "
                          "the thin-wire model does not hold there; raise it",
                          spec.name, spec.radius_m)});
+      } else if (model.ground.kind == GroundKind::kReal) {
+        RealGroundWarning(spec, from_on || to_on, zmin, wavelength_m, options.max_frequency_hz,
+                          &mesh.warnings);
       }
     }
   }

@@ -58,7 +58,8 @@ struct Mesh {
   std::vector<Port> load_ports;  // one per Model::loads, same order
   std::vector<WireMeshInfo> wires;
   std::vector<Warning> warnings;
-  bool ground_images = false;  // true for a perfect ground: add image contributions
+  bool ground_images = false;  // true over a perfect or real ground: add image contributions
+  GroundSpec ground;           // the model's ground
 };
 
 struct MeshOptions {

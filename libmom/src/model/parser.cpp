@@ -606,6 +606,13 @@ class Parser {
     if (!IsWord("at")) throw Expected(context, "'at WIRE@POS'");
     Next();
     load.at = WirePoint(context);
+    if (IsWord("coil")) {
+      Next();
+      load.coil = CoilClauses(context);
+      load_lines_[load.name] = load.location;
+      model_.loads.push_back(std::move(load));
+      return;
+    }
     if (IsWord("series")) {
       load.topology = LoadTopology::kSeries;
     } else if (IsWord("parallel")) {
@@ -663,6 +670,87 @@ class Parser {
     LoadWarnings(load);
     load_lines_[load.name] = load.location;
     model_.loads.push_back(std::move(load));
+  }
+
+  // The clauses of a coil load: turns=N diameter=D (length=L | pitch=P) wire=d
+  // [insulation=T] [material=NAME]; sizes are lengths (bare numbers in the `units` length).
+  CoilSpec CoilClauses(const std::string& context) {
+    CoilSpec coil;
+    std::map<std::string, Token> given;
+    static const std::vector<std::string> kClauses = {"turns", "diameter",   "length",  "pitch",
+                                                      "wire",  "insulation", "material"};
+    const std::string usage =
+        "turns=N diameter=D length=L|pitch=P wire=d [insulation=T] [material=NAME]";
+    while (Peek().kind != TokenKind::kEnd) {
+      const Token clause = Peek();
+      if (clause.kind != TokenKind::kName ||
+          std::find(kClauses.begin(), kClauses.end(), clause.text) == kClauses.end()) {
+        throw Error(clause, fmt::format("{}: unexpected {} in the coil; write {}", context,
+                                        Quote(clause), usage));
+      }
+      Next();
+      if (given.count(clause.text) != 0) {
+        throw Error(clause, fmt::format("{}: {} is given twice", context, clause.text));
+      }
+      given.emplace(clause.text, clause);
+      ExpectPunct("=", context, fmt::format("'=' after {}", clause.text));
+      if (clause.text == "material") {
+        const Token& name = Peek();
+        if (name.kind != TokenKind::kName || core::FindMaterial(name.text) == nullptr) {
+          throw Error(name, fmt::format("{}: unknown coil wire material {}; the materials are {}",
+                                        context, Quote(name), MaterialList()));
+        }
+        Next();
+        const core::Material* entry = core::FindMaterial(name.text);
+        coil.material = entry->name;
+        coil.conductivity_s_per_m = entry->conductivity_s_per_m;
+        coil.relative_permeability = entry->relative_permeability;
+        continue;
+      }
+      const Measured m = Expression();
+      const std::string what = fmt::format("{}: coil {}", context, clause.text);
+      if (clause.text == "turns") {
+        coil.turns = Plain(m, what, "a number of turns");
+        if (!(coil.turns >= 1.0)) {
+          throw Error(m.start, fmt::format("{}: the coil needs at least 1 turn; got {}", context,
+                                           FormatNumber(coil.turns)));
+        }
+        continue;
+      }
+      const double size_m = As(m, LengthQuantity(), length_factor_, what);
+      const bool may_be_zero = clause.text == "insulation";
+      if (size_m < 0.0 || (size_m == 0.0 && !may_be_zero)) {
+        throw Error(m.start,
+                    fmt::format("{}: the coil {} must be {}; got {} m", context, clause.text,
+                                may_be_zero ? "zero or more" : "positive", FormatNumber(size_m)));
+      }
+      if (clause.text == "diameter") coil.former_diameter_m = size_m;
+      if (clause.text == "length") coil.length_m = size_m;
+      if (clause.text == "pitch") coil.pitch_m = size_m;
+      if (clause.text == "wire") coil.wire_diameter_m = size_m;
+      if (clause.text == "insulation") coil.insulation_m = size_m;
+    }
+    if (given.count("length") != 0 && given.count("pitch") != 0) {
+      throw Error(given.at("pitch"), fmt::format("{}: give the coil's length or its pitch "
+                                                 "(length = turns x pitch), not both",
+                                                 context));
+    }
+    for (const char* required : {"turns", "diameter", "wire"}) {
+      if (given.count(required) == 0) {
+        throw Error(Peek(),
+                    fmt::format("{}: the coil needs {}=; write {}", context, required, usage));
+      }
+    }
+    if (given.count("length") == 0 && given.count("pitch") == 0) {
+      throw Error(Peek(),
+                  fmt::format("{}: the coil needs length=L or pitch=P; write {}", context, usage));
+    }
+    const std::string problem = CoilProblem(coil);
+    if (!problem.empty()) {
+      const Token& at = given.count("pitch") != 0 ? given.at("pitch") : given.at("length");
+      throw Error(at, fmt::format("{}: {}", context, problem));
+    }
+    return coil;
   }
 
   void LoadWarnings(const LoadSpec& load) {
@@ -1069,6 +1157,12 @@ class Parser {
     }
   }
 
+  static std::string PresetList() {
+    std::string list;
+    for (const GroundPreset& p : GroundPresets()) list += (list.empty() ? "" : ", ") + p.name;
+    return list;
+  }
+
   void Ground(const Token& keyword) {
     if (ground_line_) {
       throw Error(keyword,
@@ -1092,18 +1186,40 @@ class Parser {
     Next();
     if (ground.kind == GroundKind::kReal) {
       std::optional<double> permittivity, conductivity;
+      std::optional<Token> preset_token;
+      const GroundPreset* preset = nullptr;
       while (Peek().kind != TokenKind::kEnd) {
         const Token& setting = Peek();
         const bool is_eps = IsWord("permittivity");
+        if (IsWord("preset")) {
+          if (preset_token) throw Error(setting, "ground real: preset is given twice");
+          preset_token = setting;
+          Next();
+          ExpectPunct("=", "ground real", "'=' after preset");
+          const Token& name = Peek();
+          if (name.kind != TokenKind::kName) {
+            throw Expected("ground real: preset", "a preset name (" + PresetList() + ")");
+          }
+          preset = FindGroundPreset(name.text);
+          if (!preset) {
+            std::vector<std::string> names;
+            for (const GroundPreset& p : GroundPresets()) names.push_back(p.name);
+            throw Error(name, fmt::format("ground real: unknown preset '{}'{}; the presets are {}",
+                                          Shorten(name.text), DidYouMeanAside(name.text, names),
+                                          PresetList()));
+          }
+          Next();
+          continue;
+        }
         if (!is_eps && !IsWord("conductivity")) {
-          throw Error(
-              setting,
-              fmt::format("ground real: unknown setting {}{}; use permittivity= and "
-                          "conductivity=",
-                          Quote(setting),
-                          setting.kind == TokenKind::kName
-                              ? DidYouMeanAside(setting.text, {"permittivity", "conductivity"})
-                              : ""));
+          throw Error(setting,
+                      fmt::format("ground real: unknown setting {}{}; use preset=NAME, or "
+                                  "permittivity= and conductivity=",
+                                  Quote(setting),
+                                  setting.kind == TokenKind::kName
+                                      ? DidYouMeanAside(setting.text,
+                                                        {"preset", "permittivity", "conductivity"})
+                                      : ""));
         }
         Next();
         ExpectPunct("=", "ground real", fmt::format("'=' after {}", setting.text));
@@ -1129,7 +1245,20 @@ class Parser {
           conductivity = sigma;
         }
       }
-      if (!permittivity) throw Expected("ground real", "'permittivity=EPS_R'");
+      if (preset) {
+        if (permittivity || conductivity) {
+          throw Error(*preset_token,
+                      "ground real: give either preset=NAME or permittivity= and "
+                      "conductivity=, not both");
+        }
+        permittivity = preset->permittivity;
+        conductivity = preset->conductivity_s_per_m;
+        ground.preset = preset->name;
+      }
+      if (!permittivity) {
+        throw Expected("ground real",
+                       "'permittivity=EPS_R' (or preset=NAME: " + PresetList() + ")");
+      }
       if (!conductivity) throw Expected("ground real", "'conductivity=SIGMA' (S/m)");
       ground.permittivity = *permittivity;
       ground.conductivity_s_per_m = *conductivity;
@@ -1292,6 +1421,14 @@ double ParseFrequencyArgument(const std::string& text, const std::string& option
 
 double ParseResistanceArgument(const std::string& text, const std::string& option_name) {
   return model::ParseArgument(text, option_name, model::ResistanceQuantity(), "50 or 50ohm");
+}
+
+double ParseLengthArgument(const std::string& text, const std::string& option_name) {
+  return model::ParseArgument(text, option_name, model::LengthQuantity(), "28.5mm");
+}
+
+double ParseInductanceArgument(const std::string& text, const std::string& option_name) {
+  return model::ParseArgument(text, option_name, model::InductanceQuantity(), "20uH");
 }
 
 }  // namespace wirefield

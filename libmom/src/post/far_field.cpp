@@ -1,4 +1,5 @@
-// Post stage: far field, radiation intensity and radiated power of segment currents.
+// Post stage: far field, radiation intensity and radiated power of segment currents, with the
+// wave reflected by the ground when there is one.
 // Integration over the sphere: composite 8-point Gauss-Legendre in cos(theta) and the
 // trapezoid rule in phi (exact for the band-limited periodic integrand), both with a number of
 // points that grows with the electrical size k * extent of the antenna and its image.
@@ -31,20 +32,16 @@ void LinearPhaseIntegrals(double psi, Complex e_s, Complex e_e, Complex* a0, Com
 }  // namespace
 
 FarFieldSource::FarFieldSource(const std::vector<SegmentCurrent>& currents, double frequency_hz,
-                               bool perfect_ground)
+                               const GroundSpec& ground)
     : k_(2.0 * core::kPi * frequency_hz / core::kSpeedOfLight_m_per_s),
-      upper_half_only_(perfect_ground) {
+      upper_half_only_(ground.kind != GroundKind::kFree),
+      ground_(ground, frequency_hz) {
   for (const SegmentCurrent& c : currents) {
     const Vec3 a(c.start_m[0], c.start_m[1], c.start_m[2]);
     const Vec3 b(c.end_m[0], c.end_m[1], c.end_m[2]);
     elements_.push_back({PointIndex(a), PointIndex(b), b - a, c.current_start_a, c.current_end_a});
+    // The image doubles the extent of the source for the band limit of the pattern.
     extent_m_ = std::max({extent_m_, a.norm(), b.norm()});
-    if (perfect_ground) {
-      // Image: mirrored in z = 0, current (-Ix, -Iy, Iz): the mirrored segment carries -I.
-      const Vec3 m(1.0, 1.0, -1.0);
-      elements_.push_back({PointIndex(a.cwiseProduct(m)), PointIndex(b.cwiseProduct(m)),
-                           (b - a).cwiseProduct(m), -c.current_start_a, -c.current_end_a});
-    }
   }
 }
 
@@ -58,18 +55,38 @@ int FarFieldSource::PointIndex(const Vec3& p) {
   return n;
 }
 
-CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {
+void FarFieldSource::RadiationVectors(const Vec3& rhat, CVec3* direct, CVec3* mirrored) const {
   thread_local std::vector<Complex> phase;
   phase.resize(points_.size());
   for (size_t i = 0; i < points_.size(); ++i) phase[i] = std::polar(1.0, k_ * rhat.dot(points_[i]));
-  CVec3 n = CVec3::Zero();
+  *direct = CVec3::Zero();
   for (const Element& e : elements_) {
     Complex a0, a1;
     LinearPhaseIntegrals(k_ * rhat.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
     // int_0^1 (i0 + (i1 - i0) t) exp(jk rhat.(start + delta t)) dt, times the length vector.
-    n += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
+    *direct += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
   }
-  return n;
+  if (!mirrored) return;
+  // Mirrored points: rhat . (x, y, -z) = (rhat_x, rhat_y, -rhat_z) . (x, y, z).
+  const Vec3 rm(rhat.x(), rhat.y(), -rhat.z());
+  for (size_t i = 0; i < points_.size(); ++i) phase[i] = std::polar(1.0, k_ * rm.dot(points_[i]));
+  *mirrored = CVec3::Zero();
+  for (const Element& e : elements_) {
+    Complex a0, a1;
+    LinearPhaseIntegrals(k_ * rm.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
+    *mirrored += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
+  }
+}
+
+CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {
+  CVec3 direct, mirrored;
+  if (!ground_.reflects()) {
+    RadiationVectors(rhat, &direct, nullptr);
+    return direct;
+  }
+  RadiationVectors(rhat, &direct, &mirrored);
+  // Below the horizon there is no field over a ground (the caller integrates z >= 0 only).
+  return direct + ground_.WeightsToward(rhat).vector_dyadic * mirrored;
 }
 
 std::pair<Complex, Complex> FarFieldSource::Field(double theta_rad, double phi_rad) const {

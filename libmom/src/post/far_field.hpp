@@ -1,6 +1,9 @@
 // Post stage: the far field of solved segment currents. The radiation vector
-// N(rhat) = sum over segments of int I(l) u exp(jk rhat.r(l)) dl (plus the images over a
-// perfect ground) gives E = -j k eta / (4 pi) [N - (N.rhat) rhat] exp(-jkr) / r.
+// N(rhat) = sum over segments of int I(l) u exp(jk rhat.r(l)) dl gives
+// E = -j k eta / (4 pi) [N - (N.rhat) rhat] exp(-jkr) / r. Over a ground the wave reflected by
+// the ground adds M(rhat) N_image(rhat), N_image being the same sum over the mirrored positions
+// and M the reflection dyadic of the Fresnel coefficients at the elevation of rhat
+// (ground/reflection.hpp): exact for the far field of a flat ground, without the surface wave.
 // Each segment's integral of its linear current is taken in closed form.
 #pragma once
 
@@ -8,6 +11,7 @@
 #include <complex>
 #include <vector>
 
+#include "ground/reflection.hpp"
 #include "wirefield/simulation.hpp"
 
 namespace wirefield::post {
@@ -19,7 +23,7 @@ using CVec3 = Eigen::Vector3cd;
 class FarFieldSource {
  public:
   FarFieldSource(const std::vector<SegmentCurrent>& currents, double frequency_hz,
-                 bool perfect_ground);
+                 const GroundSpec& ground);
 
   // r e^{jkr} (E_theta, E_phi) in volts in the direction (theta, phi), radians
   // (theta from the zenith).
@@ -42,12 +46,15 @@ class FarFieldSource {
   };
   int PointIndex(const Vec3& p);
   CVec3 RadiationVector(const Vec3& rhat) const;
+  // The direct sum, and the same currents at the mirrored points (directions not mirrored).
+  void RadiationVectors(const Vec3& rhat, CVec3* direct, CVec3* mirrored) const;
 
   std::vector<Element> elements_;
   std::vector<Vec3> points_;  // segment ends, shared by neighbours (one phase each)
   double k_ = 0.0;
   double extent_m_ = 0.0;  // largest distance of any element end from the origin
   bool upper_half_only_ = false;
+  ground::Ground ground_;
 };
 
 }  // namespace wirefield::post

@@ -5,6 +5,7 @@
 
 #include <string>
 
+#include "report/ground_text.hpp"
 #include "wirefield/pattern.hpp"
 
 namespace wirefield::report {
@@ -26,7 +27,6 @@ double GainValue(double gain_dbi);
 std::string AngleText(double angle_deg);
 
 // The ground in a few words ("free space", "perfect ground plane z = 0", ...).
-std::string GroundWords(const GroundSpec& ground);
 
 // The model's file name without its folders (the plot title).
 std::string ModelFileName(const std::string& path);

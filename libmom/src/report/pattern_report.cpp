@@ -65,6 +65,7 @@ void CheckPattern(const PatternResult& pattern) {
   CheckNumber(pattern.power.wires_w, "power in wires");
   CheckNumber(pattern.power.efficiency, "efficiency");
   CheckNumber(pattern.power.balance_error, "power balance error");
+  CheckNumber(pattern.power.ground_w, "power in the ground");
 }
 
 bool IsNoGain(double gain_dbi) { return gain_dbi <= kNoGainDbi; }
@@ -86,19 +87,6 @@ std::string AngleText(double angle_deg) {
     }
   }
   return fmt::format("{:.1f}", angle_deg + 0.0);  // + 0.0: no "-0"
-}
-
-std::string GroundWords(const GroundSpec& ground) {
-  switch (ground.kind) {
-    case GroundKind::kFree:
-      return "free space (no ground)";
-    case GroundKind::kPerfect:
-      return "perfect ground plane z = 0";
-    case GroundKind::kReal:
-      return fmt::format("real ground z = 0, relative permittivity {:.6g}, {:.6g} S/m",
-                         ground.permittivity, ground.conductivity_s_per_m);
-  }
-  return "?";
 }
 
 std::string ModelFileName(const std::string& path) {
@@ -200,7 +188,7 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   std::string out;
   out += fmt::format("wirefield pattern: {}\n", model.file);
   out += fmt::format("  frequency        {:.6f} MHz\n", pattern.frequency_hz / 1e6);
-  out += fmt::format("  ground           {}\n", report::GroundWords(model.ground));
+  out += fmt::format("  ground           {}\n", report::GroundText(model.ground));
   out += fmt::format(
       "  grid step        {} deg for both cuts; the maximum is searched on a grid of at most 2 deg "
       "and refined off it\n",
@@ -275,16 +263,29 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
                  report::Percent(power.loads_w, power.input_w)});
   budget.AddRow({"lost in wires", report::Watts(power.wires_w),
                  report::Percent(power.wires_w, power.input_w)});
+  const bool real_ground = model.ground.kind == GroundKind::kReal;
+  if (real_ground) {
+    budget.AddRow({"lost in the ground", report::Watts(power.ground_w),
+                   report::Percent(power.ground_w, power.input_w)});
+  }
   out += budget.Render(2);
   out += fmt::format("  efficiency       {:.2f} % (radiated / into the feeds)\n",
                      100.0 * power.efficiency);
-  out += fmt::format("  balance error    {:+.3f} % ((radiated + loads + wires - input) / input)\n",
-                     100.0 * power.balance_error);
+  if (real_ground) {
+    out += "  ground loss      input - radiated - loads - wires (not checked independently)\n";
+  } else {
+    out +=
+        fmt::format("  balance error    {:+.3f} % ((radiated + loads + wires - input) / input)\n",
+                    100.0 * power.balance_error);
+  }
   if (power.input_w > 0.0) {
     const double scale = report::kScaledPower_w / power.input_w;
     out += fmt::format("  at {:.0f} W into the feeds: {} radiated, {} in loads, {} in wires\n",
                        report::kScaledPower_w, report::Watts(power.radiated_w * scale),
                        report::Watts(power.loads_w * scale), report::Watts(power.wires_w * scale));
+    if (real_ground) {
+      out += fmt::format("  and {} in the ground\n", report::Watts(power.ground_w * scale));
+    }
   }
 
   if (!pattern.warnings.empty()) {
@@ -319,7 +320,9 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["step_deg"] = pattern.step_deg;
   doc["loads_power_w"] = pattern.power.loads_w;
   doc["wires_power_w"] = pattern.power.wires_w;
+  doc["ground_power_w"] = pattern.power.ground_w;
   doc["power_balance_error"] = pattern.power.balance_error;
+  doc["ground"] = report::GroundJson(simulation.model().ground);
   doc["front_to_back_db"] = report::OptionalJson(pattern.front_to_back_db);
   doc["front_to_side_db"] = report::OptionalJson(pattern.front_to_side_db);
   doc["elevation_cut"] = report::CutJson(pattern.elevation_cut);

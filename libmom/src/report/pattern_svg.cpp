@@ -269,7 +269,7 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
       "<text x=\"{}\" y=\"52\" font-size=\"13\" fill=\"#444444\" text-anchor=\"middle\">"
       "ground: {}; maximum {} dBi at elevation {}&#176;, azimuth {}&#176;; grid step {}&#176;"
       "</text>\n",
-      Px(report::kWidth_px / 2), report::Escape(report::GroundWords(model.ground)),
+      Px(report::kWidth_px / 2), report::Escape(report::GroundText(model.ground)),
       report::GainText(pattern.max_gain_dbi), AngleText(pattern.max_gain_elevation_deg),
       AngleText(pattern.max_gain_azimuth_deg), AngleText(pattern.step_deg));
 

@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "report/ground_text.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/report.hpp"
 
@@ -119,8 +120,14 @@ const LoadSpec* FindLoad(const Model& model, const std::string& name) {
   return nullptr;
 }
 
-std::string LoadElements(const LoadSpec* load) {
+std::string LoadElements(const LoadSpec* load, double frequency_hz) {
   if (load == nullptr) return "?";
+  if (load->coil) {
+    const CoilAnalysis coil = AnalyzeCoil(*load->coil, frequency_hz);
+    return fmt::format("coil {:.6g} turns: L={:.6g}uH R_ac={:.4g}ohm C={:.4g}pF Q={:.4g}",
+                       load->coil->turns, coil.inductance_h * 1e6, coil.ac_resistance_ohm,
+                       coil.self_capacitance_f * 1e12, coil.q);
+  }
   std::vector<std::string> parts;
   if (load->resistance_ohm) parts.push_back(fmt::format("R={:.6g}ohm", *load->resistance_ohm));
   if (load->inductance_h) parts.push_back(fmt::format("L={:.6g}uH", *load->inductance_h * 1e6));
@@ -131,19 +138,6 @@ std::string LoadElements(const LoadSpec* load) {
   std::string text = load->topology == LoadTopology::kSeries ? "series " : "parallel ";
   for (std::size_t i = 0; i < parts.size(); ++i) text += (i ? joint : "") + parts[i];
   return text;
-}
-
-std::string GroundText(const GroundSpec& ground) {
-  switch (ground.kind) {
-    case GroundKind::kFree:
-      return "none (free space)";
-    case GroundKind::kPerfect:
-      return "perfectly conducting plane z = 0";
-    case GroundKind::kReal:
-      return fmt::format("real, plane z = 0: relative permittivity {}, conductivity {} S/m",
-                         Number(ground.permittivity), Number(ground.conductivity_s_per_m));
-  }
-  return "?";
 }
 
 nlohmann::json ComplexJson(Complex value) {
@@ -201,7 +195,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
     loads.AddColumn("P (W)", Align::kRight);
     for (const LoadResult& load : result.loads) {
       const LoadSpec* spec = report::FindLoad(model, load.name);
-      loads.AddRow({load.name, report::LoadElements(spec),
+      loads.AddRow({load.name, report::LoadElements(spec, result.frequency_hz),
                     load.open ? "open" : Number(load.impedance_ohm.real()),
                     load.open ? "open" : report::Signed(load.impedance_ohm.imag()),
                     Number(std::abs(load.current_a)), Number(std::abs(load.voltage_v)),
@@ -258,6 +252,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   doc["frequency_hz"] = result.frequency_hz;
   doc["unknowns"] = result.unknowns;
   doc["segments"] = result.segments;
+  doc["ground"] = report::GroundJson(simulation.model().ground);
   doc["feeds"] = nlohmann::json::array();
   for (const FeedResult& feed : result.feeds) {
     doc["feeds"].push_back({{"name", feed.name},
@@ -277,6 +272,15 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
          {"current_a", report::ComplexJson(load.current_a)},
          {"voltage_v", report::ComplexJson(load.voltage_v)},
          {"power_w", load.power_w}});
+    const LoadSpec* spec = report::FindLoad(simulation.model(), load.name);
+    if (spec != nullptr && spec->coil) {
+      const CoilAnalysis coil = AnalyzeCoil(*spec->coil, result.frequency_hz);
+      doc["loads"].back()["coil"] = {{"inductance_h", coil.inductance_h},
+                                     {"ac_resistance_ohm", coil.ac_resistance_ohm},
+                                     {"self_capacitance_f", coil.self_capacitance_f},
+                                     {"self_resonance_hz", coil.self_resonance_hz},
+                                     {"q", coil.q}};
+    }
   }
   doc["warnings"] = nlohmann::json::array();
   for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));

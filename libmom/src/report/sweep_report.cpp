@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "report/ground_text.hpp"
 #include "report/notes.hpp"
 #include "report/sweep_format.hpp"
 #include "report/text_table.hpp"
@@ -167,6 +168,7 @@ std::string FormatSweepText(const SweepReport& report) {
       "  feed {} (the first feed); impedance and SWR at the transmitter, SWR "
       "against {} ohm\n",
       report.feed_name, report.sweep.z0_ohm);
+  out += fmt::format("  ground: {}\n", report::GroundText(report.ground));
   if (!report.bands.empty()) {
     out += fmt::format("  bands: {}", report::SweepTitle(report));
     out += report.region_given
@@ -258,6 +260,7 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["model"] = report.model_file;
   doc["feed"] = report.feed_name;
   doc["z0_ohm"] = sweep.z0_ohm;
+  doc["ground"] = report::GroundJson(report.ground);
   nlohmann::json points = nlohmann::json::array();
   for (const SweepPoint& p : sweep.points) {
     nlohmann::json point;

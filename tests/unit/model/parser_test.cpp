@@ -197,6 +197,29 @@ TEST(ParseGround, FreePerfectAndRealAreRecognised) {
   EXPECT_EQ(m.ground.location.line, 3);
 }
 
+TEST(ParseGround, PresetGivesTheTableValues) {
+  // ITU-R P.527-3 Fig. 1, medium dry ground: 15, 1e-3 S/m (from memory).
+  const Model m = Parse(kKit + "ground real preset=medium_dry\n");
+  EXPECT_EQ(m.ground.kind, GroundKind::kReal);
+  EXPECT_DOUBLE_EQ(m.ground.permittivity, 15.0);
+  EXPECT_DOUBLE_EQ(m.ground.conductivity_s_per_m, 1e-3);
+  EXPECT_EQ(m.ground.preset, "medium_dry");
+  // ITU-R P.527-3 Fig. 1, sea water of average salinity: 70, 5 S/m (from memory).
+  const Model sea = Parse(kKit + "ground real preset=sea_water\n");
+  EXPECT_DOUBLE_EQ(sea.ground.permittivity, 70.0);
+  EXPECT_DOUBLE_EQ(sea.ground.conductivity_s_per_m, 5.0);
+}
+
+TEST(ParseGround, PresetErrorsSayWhatToWrite) {
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=medum_dry\n"),
+            "kit.wire:3:20: error: ground real: unknown preset 'medum_dry' (did you mean "
+            "'medium_dry'?); the presets are sea_water, fresh_water, wet_ground, medium_dry, "
+            "very_dry, ice_warm, ice_cold, average");
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=average permittivity=13\n"),
+            "kit.wire:3:13: error: ground real: give either preset=NAME or permittivity= and "
+            "conductivity=, not both");
+}
+
 TEST(ParseFrequency, BareFrequencyIsHertzAndLocationIsKept) {
   const Model a = Parse(kKit + "frequency 7100000\n");
   EXPECT_DOUBLE_EQ(*a.frequency_hz, 7.1e6);
@@ -714,12 +737,14 @@ TEST(ParseError, GroundConstantsOutOfRangeAreRefused) {
 
 TEST(ParseError, RealGroundNeedsBothConstants) {
   EXPECT_EQ(ErrorOf(kKit + "ground real conductivity=0.005\n"),
-            "kit.wire:3:31: error: ground real: missing 'permittivity=EPS_R'");
+            "kit.wire:3:31: error: ground real: missing 'permittivity=EPS_R' (or preset=NAME: "
+            "sea_water, fresh_water, wet_ground, medium_dry, very_dry, ice_warm, ice_cold, "
+            "average)");
   EXPECT_EQ(ErrorOf(kKit + "ground real permittivity=13\n"),
             "kit.wire:3:28: error: ground real: missing 'conductivity=SIGMA' (S/m)");
   EXPECT_EQ(ErrorOf(kKit + "ground real permitivity=13\n"),
             "kit.wire:3:13: error: ground real: unknown setting 'permitivity' (did you mean "
-            "'permittivity'?); use permittivity= and conductivity=");
+            "'permittivity'?); use preset=NAME, or permittivity= and conductivity=");
   EXPECT_EQ(ErrorOf(kKit + "ground wet\n"),
             "kit.wire:3:8: error: ground: unknown kind 'wet'; use free, perfect or real");
   EXPECT_EQ(ErrorOf(kKit + "ground perfekt\n"),

@@ -1,0 +1,18 @@
+// Report stage: how every report states the ground and the method used for it.
+#pragma once
+
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "wirefield/model.hpp"
+
+namespace wirefield::report {
+
+// One line, e.g. "real, plane z = 0: medium_dry, relative permittivity 15, 0.001 S/m
+// (reflection-coefficient approximation)".
+std::string GroundText(const GroundSpec& ground);
+// {"kind": "real", "preset": .., "permittivity": .., "conductivity_s_per_m": ..,
+//  "method": "reflection_coefficient"} (method "image" for a perfect ground, "none" in free space).
+nlohmann::json GroundJson(const GroundSpec& ground);
+
+}  // namespace wirefield::report
