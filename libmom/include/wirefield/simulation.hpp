@@ -30,6 +30,9 @@ struct SimulationOptions {
   // Largest matrix (bytes) the solver may allocate before refusing the model. Default: half of
   // the memory the system reports available (or 4 GiB when unknown).
   std::optional<double> max_matrix_bytes;
+  // Threads that fill the matrix in Solve(frequency). Default 0: one per core. The result is
+  // the same to rounding for any count.
+  int fill_threads = 0;
 };
 
 struct FeedResult {
@@ -99,6 +102,9 @@ class Simulation {
 
   // Solves at frequency_hz (> 0). Throws ComputationError when the solve fails.
   SolveResult Solve(double frequency_hz) const;
+  // Same, with the matrix filled by fill_threads threads (0: one per core). Callers that run
+  // several solves at once on their own threads (sweeps, batches) pass 1.
+  SolveResult Solve(double frequency_hz, int fill_threads) const;
 
   // The model's frequency, or InputError naming the file when it has none.
   double DefaultFrequency() const;

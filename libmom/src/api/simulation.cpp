@@ -9,6 +9,7 @@
 #include <cmath>
 #include <fstream>
 #include <sstream>
+#include <thread>
 
 #include "core/constants.hpp"
 #include "fill/assemble.hpp"
@@ -98,6 +99,12 @@ double Simulation::DefaultFrequency() const {
 }
 
 SolveResult Simulation::Solve(double frequency_hz) const {
+  return Solve(frequency_hz, impl_->options.fill_threads);
+}
+
+SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
+  if (fill_threads <= 0)
+    fill_threads = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
   const Model& model = impl_->model;
   const geometry::Mesh& mesh = impl_->mesh;
   if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz)) {
@@ -110,7 +117,7 @@ SolveResult Simulation::Solve(double frequency_hz) const {
   r.segments = static_cast<int>(mesh.segments.size());
 
   auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field);
+  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field, fill_threads);
   fill::AddLoads(mesh, model, frequency_hz, &z);
   fill::AddConductorLoss(mesh, model, frequency_hz, &z);
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);

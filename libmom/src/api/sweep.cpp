@@ -76,7 +76,8 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       const size_t i = next++;
       if (i >= frequencies_hz.size()) return;
       try {
-        const SolveResult r = simulation.Solve(frequencies_hz[i]);
+        // One fill thread per worker when the workers share the cores.
+        const SolveResult r = simulation.Solve(frequencies_hz[i], threads > 1 ? 1 : 0);
         const FeedResult& feed = r.feeds.at(0);
         SweepPoint& p = out.points[i];
         p.frequency_hz = frequencies_hz[i];

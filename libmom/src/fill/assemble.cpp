@@ -8,7 +8,9 @@
 // i <= j are integrated.
 #include "fill/assemble.hpp"
 
+#include <algorithm>
 #include <cmath>
+#include <thread>
 
 #include "core/constants.hpp"
 #include "fill/conductor.hpp"
@@ -112,7 +114,7 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
 }
 
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
-                                   const NearFieldCache& cache) {
+                                   const NearFieldCache& cache, int fill_threads) {
   const int n = static_cast<int>(mesh.bases.size());
   const int ns = static_cast<int>(mesh.segments.size());
   const double omega = 2.0 * core::kPi * frequency_hz;
@@ -137,23 +139,31 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   const ground::Ground ground(mesh.ground, frequency_hz);
 
-  Eigen::MatrixXcd z = Eigen::MatrixXcd::Zero(n, n);
-  // Scatters the moments of (observation i, source j) into Z. vector_weight multiplies the
-  // vector-potential part (u_i . u_j for a direct pair, u_i . M u_j for an image), charge_weight
-  // the scalar-potential part (1 direct, s for an image); see ground/reflection.hpp.
-  auto scatter = [&](int i, int j, const PairMoments& m, Complex vector_weight,
-                     Complex charge_weight) {
-    const Complex a_part = c_vector * (length[i] * length[j]) * vector_weight;
-    const Complex s_part = c_scalar * charge_weight;
-    for (const PieceRef& pm : on_segment[i]) {
-      for (const PieceRef& pn : on_segment[j]) {
-        const Complex vec = pm.alpha * pn.alpha * m.m00 + pm.alpha * pn.beta * m.m01 +
-                            pm.beta * pn.alpha * m.m10 + pm.beta * pn.beta * m.m11;
-        z(pm.basis, pn.basis) += a_part * vec + s_part * (pm.beta * pn.beta) * m.m00;
-      }
+  // Parallel fill. Z = sum over ordered segment pairs (i, j) of their contributions F_ij, and
+  // F_ji = F_ij^T, so Z = W + W^T with W = sum over i < j of F_ij plus half of each F_ii: only
+  // pairs i <= j are integrated. Thread t takes the observation segments of block t (blocks of
+  // equal triangle area) and writes the rows of the bases on them; a basis with pieces in two
+  // blocks (block edges, junctions) has its row kept aside by each thread and added after.
+  const int threads = std::clamp(fill_threads, 1, std::max(1, ns));
+  std::vector<int> block_start(threads + 1);
+  for (int t = 0; t <= threads; ++t) {
+    block_start[t] = static_cast<int>(
+        std::lround(ns * (1.0 - std::sqrt(std::max(0.0, 1.0 - static_cast<double>(t) / threads)))));
+  }
+  block_start[threads] = ns;
+  std::vector<int> block_of(ns);
+  for (int t = 0; t < threads; ++t) {
+    for (int s = block_start[t]; s < block_start[t + 1]; ++s) block_of[s] = t;
+  }
+  std::vector<int> owner(n, -1);  // the block that writes the row directly, or -1 (kept aside)
+  for (int b = 0; b < n; ++b) {
+    const geometry::Basis& basis = mesh.bases[b];
+    owner[b] = block_of[basis.pieces[0].segment];
+    for (int p = 1; p < basis.piece_count; ++p) {
+      if (block_of[basis.pieces[p].segment] != owner[b]) owner[b] = -1;
     }
-  };
-  auto transpose = [](const PairMoments& m) { return PairMoments{m.m00, m.m01, m.m10, m.m11}; };
+  }
+
   // Cached static part (near pairs) plus the frequency-dependent part.
   auto Moments = [&](int i, int j, bool image, const geometry::Vec3& a0, const geometry::Vec3& a1,
                      const geometry::Vec3& b0, const geometry::Vec3& b1, double radius2) {
@@ -168,19 +178,51 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
     return m;
   };
 
-  for (int i = 0; i < ns; ++i) {
-    if (on_segment[i].empty()) continue;
-    const geometry::Segment& si = mesh.segments[i];
-    for (int j = i; j < ns; ++j) {
-      if (on_segment[j].empty()) continue;
-      const geometry::Segment& sj = mesh.segments[j];
-      const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
-      const double cos_ij = unit[i].dot(unit[j]);
-      PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
-      if (j == i) Symmetrize(&m);
-      scatter(i, j, m, cos_ij, 1.0);
-      if (j != i) scatter(j, i, transpose(m), cos_ij, 1.0);
-      if (mesh.ground_images) {
+  Eigen::MatrixXcd z = Eigen::MatrixXcd::Zero(n, n);
+  using SpillRows = std::vector<std::pair<int, Eigen::VectorXcd>>;
+  auto work = [&](int t, SpillRows* spill) {
+    auto row_of = [&](int basis) -> Complex* {
+      if (owner[basis] == t) return nullptr;
+      for (auto& [b, row] : *spill) {
+        if (b == basis) return row.data();
+      }
+      spill->emplace_back(basis, Eigen::VectorXcd::Zero(n));
+      return spill->back().second.data();
+    };
+    // Adds the moments of (observation i, source j) to W. vector_weight multiplies the
+    // vector-potential part (u_i . u_j for a direct pair, u_i . M u_j for an image),
+    // charge_weight the scalar-potential part (1 direct, s for an image); see
+    // ground/reflection.hpp.
+    auto scatter = [&](int i, int j, const PairMoments& m, Complex vector_weight,
+                       Complex charge_weight) {
+      const Complex a_part = c_vector * (length[i] * length[j]) * vector_weight;
+      const Complex s_part = c_scalar * charge_weight;
+      for (const PieceRef& pm : on_segment[i]) {
+        Complex* aside = row_of(pm.basis);
+        for (const PieceRef& pn : on_segment[j]) {
+          const Complex vec = pm.alpha * pn.alpha * m.m00 + pm.alpha * pn.beta * m.m01 +
+                              pm.beta * pn.alpha * m.m10 + pm.beta * pn.beta * m.m11;
+          const Complex value = a_part * vec + s_part * (pm.beta * pn.beta) * m.m00;
+          if (aside) {
+            aside[pn.basis] += value;
+          } else {
+            z(pm.basis, pn.basis) += value;
+          }
+        }
+      }
+    };
+    for (int i = block_start[t]; i < block_start[t + 1]; ++i) {
+      if (on_segment[i].empty()) continue;
+      const geometry::Segment& si = mesh.segments[i];
+      for (int j = i; j < ns; ++j) {
+        if (on_segment[j].empty()) continue;
+        const geometry::Segment& sj = mesh.segments[j];
+        const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
+        const double share = j == i ? 0.5 : 1.0;  // F_ii is counted twice by W + W^T
+        PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
+        if (j == i) Symmetrize(&m);
+        scatter(i, j, m, share * unit[i].dot(unit[j]), share);
+        if (!mesh.ground_images) continue;
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
         PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
@@ -198,10 +240,30 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
           charge_weight = w.charge_factor;
         }
         // M is symmetric and the specular angle is the same both ways: Z stays symmetric.
-        scatter(i, j, mi, vector_weight, charge_weight);
-        if (j != i) scatter(j, i, transpose(mi), vector_weight, charge_weight);
+        scatter(i, j, mi, share * vector_weight, share * charge_weight);
       }
     }
+  };
+  std::vector<SpillRows> spills(threads);
+  if (threads == 1) {
+    work(0, &spills[0]);
+  } else {
+    std::vector<std::thread> pool;
+    for (int t = 1; t < threads; ++t) pool.emplace_back(work, t, &spills[t]);
+    work(0, &spills[0]);
+    for (std::thread& th : pool) th.join();
+  }
+  for (const SpillRows& spill : spills) {
+    for (const auto& [b, row] : spill) z.row(b) += row.transpose();
+  }
+  // Z = W + W^T, in place.
+  for (int c = 0; c < n; ++c) {
+    for (int r = 0; r < c; ++r) {
+      const Complex sum = z(r, c) + z(c, r);
+      z(r, c) = sum;
+      z(c, r) = sum;
+    }
+    z(c, c) *= 2.0;
   }
   return z;
 }

@@ -35,9 +35,10 @@ struct NearFieldCache {
 };
 NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh);
 
-// The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric.
+// The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric, filled by
+// fill_threads threads (the result is the same to rounding for any count).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
-                                   const NearFieldCache& cache);
+                                   const NearFieldCache& cache, int fill_threads = 1);
 // Same, building the cache on the way (single solves, tests).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz);
 
