@@ -126,7 +126,8 @@ struct RowPlan {
 };
 
 BatchRow RunRow(const std::string& text, const std::string& file, const BatchOptions& options,
-                const RowPlan& plan, double mesh_frequency_hz, int sweep_threads) {
+                const RowPlan& plan, double mesh_frequency_hz, int sweep_threads,
+                int fill_threads) {
   BatchRow row;
   row.index = plan.index;
   row.values = plan.values;
@@ -141,6 +142,7 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
 
   SimulationOptions sweep_mesh;
   sweep_mesh.max_frequency_hz = mesh_frequency_hz;
+  sweep_mesh.fill_threads = fill_threads;
   const Simulation simulation(model, sweep_mesh);
   SweepOptions sweep_options;
   sweep_options.threads = sweep_threads;
@@ -158,6 +160,7 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
   row.pattern_frequency_hz = options.pattern_frequency_hz.value_or(sweep.min_swr_frequency_hz);
   SimulationOptions pattern_mesh;
   pattern_mesh.max_frequency_hz = row.pattern_frequency_hz;
+  pattern_mesh.fill_threads = fill_threads;
   const Simulation at_pattern(std::move(model), pattern_mesh);
   const SolveResult solved = at_pattern.Solve(row.pattern_frequency_hz);
   PatternOptions pattern_options;
@@ -433,6 +436,9 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
   const int threads = options.threads > 0 ? options.threads : hardware;
   const int workers = std::clamp(threads, 1, total);
   const int sweep_threads = std::max(1, threads / workers);
+  // Rows in parallel share the cores: each fills its matrices on one thread. A lone row fills
+  // on `threads` threads.
+  const int fill_threads = workers > 1 ? 1 : threads;
 
   BatchResult result;
   result.model_file = file_name;
@@ -464,7 +470,8 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
       BatchRow& row = result.rows[i];
       try {
         try {
-          row = RunRow(model_text, file_name, options, plans[i], mesh_frequency_hz, sweep_threads);
+          row = RunRow(model_text, file_name, options, plans[i], mesh_frequency_hz, sweep_threads,
+                       fill_threads);
         } catch (const InputError& error) {
           row_errors[i] = std::current_exception();
           row.error = error.what();

@@ -76,8 +76,10 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       const size_t i = next++;
       if (i >= frequencies_hz.size()) return;
       try {
-        // One fill thread per worker when the workers share the cores.
-        const SolveResult r = simulation.Solve(frequencies_hz[i], threads > 1 ? 1 : 0);
+        // One fill thread per worker when the workers share the cores; a single worker fills
+        // as the Simulation's options say (a batch running rows in parallel asks for one).
+        const SolveResult r = threads > 1 ? simulation.Solve(frequencies_hz[i], 1)
+                                          : simulation.Solve(frequencies_hz[i]);
         const FeedResult& feed = r.feeds.at(0);
         SweepPoint& p = out.points[i];
         p.frequency_hz = frequencies_hz[i];
