@@ -5,8 +5,11 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cerrno>
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <cstring>
 #include <filesystem>
 
@@ -60,6 +63,153 @@ void WriteFilesAtomically(const std::vector<OutputFile>& files) {
 }
 
 bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
+
+void FailOption(const std::string& option, const std::string& message) {
+  throw InputError(SourceLocation{option, 1, 1}, message);
+}
+
+int WholeNumber(const std::string& text, const std::string& option, long low, long high,
+                const std::string& what) {
+  const char* begin = text.c_str();
+  char* end = nullptr;
+  errno = 0;
+  const long value = std::strtol(begin, &end, 10);
+  if (text.empty() || end == begin || *end != '\0' || errno == ERANGE || value < low ||
+      value > high) {
+    FailOption(option, fmt::format("{} needs {}; got '{}'", option, what, text));
+  }
+  return static_cast<int>(value);
+}
+
+double ParseDegrees(const std::string& text, const std::string& option,
+                    const std::string& example) {
+  const SourceLocation where{option, 1, 1};
+  std::string body = text;
+  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
+  if (body.size() >= 3 && body.compare(body.size() - 3, 3, "deg") == 0) {
+    body.resize(body.size() - 3);
+  }
+  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
+  const char* begin = body.c_str();
+  while (*begin == ' ' || *begin == '\t') ++begin;
+  char* end = nullptr;
+  errno = 0;
+  const double value = std::strtod(begin, &end);
+  if (*begin == '\0' || end == begin || *end != '\0' || errno == ERANGE || !std::isfinite(value)) {
+    throw InputError(where, fmt::format("{} needs an angle in degrees such as {}; got '{}'", option,
+                                        example, text));
+  }
+  return value;
+}
+
+CLI::Option* AddTextOption(CLI::App& command, const std::string& name, std::string& target,
+                           const std::string& type, const std::string& help) {
+  CLI::Option* option = command.add_option(name, target, help);
+  option->type_name(type);
+  return option;
+}
+
+void AddFrequencyFlags(CLI::App& command, FrequencyFlags& flags) {
+  flags.from_option = AddTextOption(command, "--from", flags.from, "F",
+                                    "Lowest frequency of a range sweep (with --to and --step or "
+                                    "--points), e.g. 7MHz; a bare number is in Hz. Default: none.");
+  flags.to_option =
+      AddTextOption(command, "--to", flags.to, "F",
+                    "Highest frequency of a range sweep, included; must be above --from. "
+                    "Default: none.");
+  flags.step_option = AddTextOption(command, "--step", flags.step, "DF",
+                                    "Step of a range sweep, e.g. 5kHz; more points cost time in "
+                                    "proportion. Default: none (give --step or --points).");
+  flags.points_option = AddTextOption(command, "--points", flags.points, "N",
+                                      "Points of a range sweep, spread evenly from --from to --to "
+                                      "(2..100000). Default: none.");
+  flags.band_option =
+      command.add_option("--band", flags.bands,
+                         "An amateur band to sweep: 160m, 80m, 60m, 40m, 30m, 20m, 17m, 15m, "
+                         "12m or 10m; repeatable. 1 kHz steps, or 401 points on a band wider "
+                         "than 400 kHz. Default: none.");
+  flags.band_option->type_name("NAME")->allow_extra_args(false);
+  flags.region_option =
+      AddTextOption(command, "--region", flags.region, "1|2|3",
+                    "ITU region of the band edges: 1 Europe, Africa, Middle East; 2 the "
+                    "Americas; 3 Asia-Pacific. Default: 1 (the report says so).");
+}
+
+int ChosenRegion(const FrequencyFlags& flags) {
+  if (!Given(flags.region_option)) return 1;
+  return WholeNumber(flags.region, "--region", 1, 3,
+                     "an ITU region: 1 (Europe, Africa, Middle East), 2 (the Americas) or 3 "
+                     "(Asia-Pacific)");
+}
+
+std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::string& command,
+                                   int region, std::vector<Band>& bands) {
+  const bool range = Given(flags.from_option) || Given(flags.to_option);
+  if (range && Given(flags.band_option)) {
+    FailOption("--band",
+               "--band and --from/--to both choose the frequencies; give --band NAME or --from F1 "
+               "--to F2, not both");
+  }
+  if (!range && !Given(flags.band_option)) {
+    throw InputError(
+        SourceLocation{command, 0, 0},
+        "give the frequencies to sweep: --from F1 --to F2 with --step DF or --points N (e.g. "
+        "--from 7MHz --to 7.3MHz --step 5kHz), or --band NAME (e.g. --band 40m)");
+  }
+  std::vector<SweepSpan> spans;
+  if (range) {
+    if (!Given(flags.from_option) || !Given(flags.to_option)) {
+      FailOption(Given(flags.from_option) ? "--to" : "--from",
+                 "a range sweep needs both --from and --to, e.g. --from 7MHz --to 7.3MHz");
+    }
+    const double from_hz = ParseFrequencyArgument(flags.from, "--from");
+    const double to_hz = ParseFrequencyArgument(flags.to, "--to");
+    if (!(to_hz > from_hz)) {
+      FailOption("--to", fmt::format("--to ({:.6g} MHz) must be above --from ({:.6g} MHz)",
+                                     to_hz / 1e6, from_hz / 1e6));
+    }
+    if (Given(flags.step_option) == Given(flags.points_option)) {
+      FailOption("--step",
+                 "a range sweep needs one of --step DF (e.g. --step 5kHz) or --points N "
+                 "(e.g. --points 101), not both and not neither");
+    }
+    SweepSpan span;
+    span.name = "range";
+    if (Given(flags.step_option)) {
+      const double step_hz = ParseFrequencyArgument(flags.step, "--step");
+      span.frequencies_hz = FrequencyRange(from_hz, to_hz, step_hz);
+      span.how =
+          fmt::format("{:g} kHz steps, {} points", step_hz / 1e3, span.frequencies_hz.size());
+    } else {
+      const int points = WholeNumber(flags.points, "--points", 2, 100000,
+                                     "a whole number of points from 2 to 100000");
+      span.frequencies_hz = FrequencyPoints(from_hz, to_hz, points);
+      span.how = fmt::format("{} points, {:.6g} kHz apart", points,
+                             (to_hz - from_hz) / (points - 1) / 1e3);
+    }
+    spans.push_back(span);
+    return spans;
+  }
+  if (Given(flags.step_option) || Given(flags.points_option)) {
+    FailOption(Given(flags.step_option) ? "--step" : "--points",
+               fmt::format("{} applies to --from/--to; a band sweep uses 1 kHz steps, or {} points "
+                           "on a band wider than {} kHz",
+                           Given(flags.step_option) ? "--step" : "--points", kMaxBandPoints,
+                           kMaxBandPoints - 1));
+  }
+  for (const std::string& name : flags.bands) {
+    const Band band = FindBand(name, region);
+    for (const Band& known : bands) {
+      if (known.name == band.name)
+        FailOption("--band", fmt::format("--band {} is given twice", name));
+    }
+    bands.push_back(band);
+  }
+  std::sort(bands.begin(), bands.end(),
+            [](const Band& a, const Band& b) { return a.from_hz < b.from_hz; });
+  for (const Band& band : bands) spans.push_back(BandSpan(band));
+  return spans;
+}
 
 void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
   command.add_option("MODEL", flags.model_path, "The model file to read (a .wire text file).")

@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "wirefield/bands.hpp"
 #include "wirefield/wirefield.hpp"
 
 namespace wirefield::cli {
@@ -52,10 +53,51 @@ void PrintWarnings(const std::vector<Warning>& warnings);
 // Writes text to stdout in full and flushes; ComputationError when stdout cannot take it.
 void WriteStdout(const std::string& text);
 
+// Throws InputError about `option` (as the file, at 1:1) with `message`.
+[[noreturn]] void FailOption(const std::string& option, const std::string& message);
+
+// A whole number of the whole text, within [low, high]; else InputError naming the option.
+int WholeNumber(const std::string& text, const std::string& option, long low, long high,
+                const std::string& what);
+
+// An angle option: a plain number of degrees, optionally followed by `deg` ("2", "2.5deg");
+// InputError naming the option, with `example`, otherwise.
+double ParseDegrees(const std::string& text, const std::string& option, const std::string& example);
+
+// Adds an option taking one value, kept as typed in `target`, with its type name and help.
+CLI::Option* AddTextOption(CLI::App& command, const std::string& name, std::string& target,
+                           const std::string& type, const std::string& help);
+
+// The flags that choose a sweep's frequencies: a --from/--to range with --step or --points,
+// or --band (repeatable), and the ITU --region of the band edges.
+struct FrequencyFlags {
+  std::string from, to, step, points, region;
+  std::vector<std::string> bands;
+  CLI::Option* from_option = nullptr;
+  CLI::Option* to_option = nullptr;
+  CLI::Option* step_option = nullptr;
+  CLI::Option* points_option = nullptr;
+  CLI::Option* band_option = nullptr;
+  CLI::Option* region_option = nullptr;
+};
+
+// Adds --from, --to, --step, --points, --band and --region to `command`.
+void AddFrequencyFlags(CLI::App& command, FrequencyFlags& flags);
+
+// The ITU region of --region (1 when not given); InputError for anything but 1, 2 or 3.
+int ChosenRegion(const FrequencyFlags& flags);
+
+// The spans to sweep, from --from/--to/--step/--points or from --band (sorted by frequency;
+// `bands` receives the bands). `command` names the command in the error given when neither
+// is present. Throws InputError for any defect of the flags.
+std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::string& command,
+                                   int region, std::vector<Band>& bands);
+
 // The commands, one file each.
 Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);
 Command AddSweepCommand(CLI::App& program);
+Command AddBatchCommand(CLI::App& program);
 Command AddCoilCommand(CLI::App& program);
 
 // A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.

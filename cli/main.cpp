@@ -57,6 +57,7 @@ int Run(int argc, char** argv) {
   commands.push_back(wirefield::cli::AddSolveCommand(program));
   commands.push_back(wirefield::cli::AddPatternCommand(program));
   commands.push_back(wirefield::cli::AddSweepCommand(program));
+  commands.push_back(wirefield::cli::AddBatchCommand(program));
   commands.push_back(wirefield::cli::AddCoilCommand(program));
 
   try {

@@ -42,28 +42,6 @@ struct PatternFlags {
   CLI::Option* svg_option = nullptr;
 };
 
-// An angle option: a plain number of degrees, optionally followed by `deg` ("2", "2.5deg").
-double ParseDegrees(const std::string& text, const std::string& option,
-                    const std::string& example) {
-  const SourceLocation where{option, 1, 1};
-  std::string body = text;
-  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
-  if (body.size() >= 3 && body.compare(body.size() - 3, 3, "deg") == 0) {
-    body.resize(body.size() - 3);
-  }
-  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
-  const char* begin = body.c_str();
-  while (*begin == ' ' || *begin == '\t') ++begin;
-  char* end = nullptr;
-  errno = 0;
-  const double value = std::strtod(begin, &end);
-  if (*begin == '\0' || end == begin || *end != '\0' || errno == ERANGE || !std::isfinite(value)) {
-    throw InputError(where, fmt::format("{} needs an angle in degrees such as {}; got '{}'", option,
-                                        example, text));
-  }
-  return value;
-}
-
 PatternOptions ChosenOptions(const PatternFlags& flags, const Model& model) {
   PatternOptions options;
   if (flags.step_option->count() > 0) {

@@ -6,10 +6,7 @@
 #include <unistd.h>
 
 #include <algorithm>
-#include <cerrno>
 #include <cstdio>
-#include <cstdlib>
-#include <cstring>
 #include <filesystem>
 #include <memory>
 #include <optional>
@@ -28,15 +25,9 @@ namespace {
 
 struct SweepFlags {
   ModelFlags model;
-  std::string from, to, step, points, region, threads;
-  std::vector<std::string> bands;
+  FrequencyFlags frequencies;
+  std::string threads;
   std::string csv_path, svg_path, s1p_path, measured_path;
-  CLI::Option* from_option = nullptr;
-  CLI::Option* to_option = nullptr;
-  CLI::Option* step_option = nullptr;
-  CLI::Option* points_option = nullptr;
-  CLI::Option* band_option = nullptr;
-  CLI::Option* region_option = nullptr;
   CLI::Option* threads_option = nullptr;
   CLI::Option* csv_option = nullptr;
   CLI::Option* svg_option = nullptr;
@@ -44,100 +35,10 @@ struct SweepFlags {
   CLI::Option* measured_option = nullptr;
 };
 
-[[noreturn]] void Fail(const std::string& option, const std::string& message) {
-  throw InputError(SourceLocation{option, 1, 1}, message);
-}
-
-// A whole number of the whole text, within [low, high]; else InputError naming the option.
-int WholeNumber(const std::string& text, const std::string& option, long low, long high,
-                const std::string& what) {
-  const char* begin = text.c_str();
-  char* end = nullptr;
-  errno = 0;
-  const long value = std::strtol(begin, &end, 10);
-  if (text.empty() || end == begin || *end != '\0' || errno == ERANGE || value < low ||
-      value > high) {
-    Fail(option, fmt::format("{} needs {}; got '{}'", option, what, text));
-  }
-  return static_cast<int>(value);
-}
-
-// The spans to sweep, from --from/--to/--step/--points or from --band (sorted by frequency).
-std::vector<SweepSpan> ChosenSpans(const SweepFlags& flags, int region, std::vector<Band>& bands) {
-  const bool range = Given(flags.from_option) || Given(flags.to_option);
-  if (range && Given(flags.band_option)) {
-    Fail("--band",
-         "--band and --from/--to both choose the frequencies; give --band NAME or --from F1 "
-         "--to F2, not both");
-  }
-  if (!range && !Given(flags.band_option)) {
-    throw InputError(
-        SourceLocation{"sweep", 0, 0},
-        "give the frequencies to sweep: --from F1 --to F2 with --step DF or --points N (e.g. "
-        "--from 7MHz --to 7.3MHz --step 5kHz), or --band NAME (e.g. --band 40m)");
-  }
-  std::vector<SweepSpan> spans;
-  if (range) {
-    if (!Given(flags.from_option) || !Given(flags.to_option)) {
-      Fail(Given(flags.from_option) ? "--to" : "--from",
-           "a range sweep needs both --from and --to, e.g. --from 7MHz --to 7.3MHz");
-    }
-    const double from_hz = ParseFrequencyArgument(flags.from, "--from");
-    const double to_hz = ParseFrequencyArgument(flags.to, "--to");
-    if (!(to_hz > from_hz)) {
-      Fail("--to", fmt::format("--to ({:.6g} MHz) must be above --from ({:.6g} MHz)", to_hz / 1e6,
-                               from_hz / 1e6));
-    }
-    if (Given(flags.step_option) == Given(flags.points_option)) {
-      Fail("--step",
-           "a range sweep needs one of --step DF (e.g. --step 5kHz) or --points N "
-           "(e.g. --points 101), not both and not neither");
-    }
-    SweepSpan span;
-    span.name = "range";
-    if (Given(flags.step_option)) {
-      const double step_hz = ParseFrequencyArgument(flags.step, "--step");
-      span.frequencies_hz = FrequencyRange(from_hz, to_hz, step_hz);
-      span.how =
-          fmt::format("{:g} kHz steps, {} points", step_hz / 1e3, span.frequencies_hz.size());
-    } else {
-      const int points = WholeNumber(flags.points, "--points", 2, 100000,
-                                     "a whole number of points from 2 to 100000");
-      span.frequencies_hz = FrequencyPoints(from_hz, to_hz, points);
-      span.how = fmt::format("{} points, {:.6g} kHz apart", points,
-                             (to_hz - from_hz) / (points - 1) / 1e3);
-    }
-    spans.push_back(span);
-    return spans;
-  }
-  if (Given(flags.step_option) || Given(flags.points_option)) {
-    Fail(Given(flags.step_option) ? "--step" : "--points",
-         fmt::format("{} applies to --from/--to; a band sweep uses 1 kHz steps, or {} points "
-                     "on a band wider than {} kHz",
-                     Given(flags.step_option) ? "--step" : "--points", kMaxBandPoints,
-                     kMaxBandPoints - 1));
-  }
-  for (const std::string& name : flags.bands) {
-    const Band band = FindBand(name, region);
-    for (const Band& known : bands) {
-      if (known.name == band.name) Fail("--band", fmt::format("--band {} is given twice", name));
-    }
-    bands.push_back(band);
-  }
-  std::sort(bands.begin(), bands.end(),
-            [](const Band& a, const Band& b) { return a.from_hz < b.from_hz; });
-  for (const Band& band : bands) spans.push_back(BandSpan(band));
-  return spans;
-}
-
 int RunSweepCommand(const SweepFlags& flags) {
   // Check every flag before the (possibly long) file read, mesh and solves.
-  const bool region_given = Given(flags.region_option);
-  const int region = region_given
-                         ? WholeNumber(flags.region, "--region", 1, 3,
-                                       "an ITU region: 1 (Europe, Africa, Middle East), 2 (the "
-                                       "Americas) or 3 (Asia-Pacific)")
-                         : 1;
+  const bool region_given = Given(flags.frequencies.region_option);
+  const int region = ChosenRegion(flags.frequencies);
   SweepOptions options;
   if (Given(flags.threads_option)) {
     options.threads = WholeNumber(flags.threads, "--threads", 0, 1024,
@@ -145,7 +46,7 @@ int RunSweepCommand(const SweepFlags& flags) {
                                   "1024");
   }
   std::vector<Band> bands;
-  const std::vector<SweepSpan> spans = ChosenSpans(flags, region, bands);
+  const std::vector<SweepSpan> spans = ChosenSpans(flags.frequencies, "sweep", region, bands);
   std::optional<TouchstoneData> measured;
   if (Given(flags.measured_option)) measured = ReadTouchstone(flags.measured_path);
 
@@ -216,48 +117,27 @@ Command AddSweepCommand(CLI::App& program) {
       "transmitter at each point, resonances, the lowest SWR, and per band the 2:1 and 1.5:1 "
       "SWR bandwidths and whether the band is covered.");
   AddModelFlags(*app, flags->model, /*with_frequency=*/false);
-  auto add = [&](const char* name, std::string& target, const char* type, const char* help) {
-    CLI::Option* option = app->add_option(name, target, help);
-    option->type_name(type);
-    return option;
-  };
-  flags->from_option = add("--from", flags->from, "F",
-                           "Lowest frequency of a range sweep (with --to and --step or "
-                           "--points), e.g. 7MHz; a bare number is in Hz. Default: none.");
-  flags->to_option = add("--to", flags->to, "F",
-                         "Highest frequency of a range sweep, included; must be above --from. "
-                         "Default: none.");
-  flags->step_option = add("--step", flags->step, "DF",
-                           "Step of a range sweep, e.g. 5kHz; more points cost time in "
-                           "proportion. Default: none (give --step or --points).");
-  flags->points_option = add("--points", flags->points, "N",
-                             "Points of a range sweep, spread evenly from --from to --to "
-                             "(2..100000). Default: none.");
-  flags->band_option =
-      app->add_option("--band", flags->bands,
-                      "An amateur band to sweep: 160m, 80m, 60m, 40m, 30m, 20m, 17m, 15m, 12m "
-                      "or 10m; repeatable. 1 kHz steps, or 401 points on a band wider than "
-                      "400 kHz. Default: none.");
-  flags->band_option->type_name("NAME")->allow_extra_args(false);
-  flags->region_option = add("--region", flags->region, "1|2|3",
-                             "ITU region of the band edges: 1 Europe, Africa, Middle East; 2 the "
-                             "Americas; 3 Asia-Pacific. Default: 1 (the report says so).");
-  flags->threads_option = add("--threads", flags->threads, "N",
-                              "Worker threads; each holds one matrix in memory. Default: 0, one "
-                              "per core.");
-  flags->csv_option = add("--csv", flags->csv_path, "FILE",
-                          "Also write the points to FILE as CSV (columns in docs/commands.md). "
-                          "Default: none.");
-  flags->svg_option = add("--svg", flags->svg_path, "FILE",
-                          "Also write an SVG picture: SWR against frequency and a Smith chart. "
-                          "Default: none.");
-  flags->s1p_option = add("--s1p", flags->s1p_path, "FILE",
-                          "Also write S11 at the transmitter to FILE as a Touchstone 1.1 "
-                          "one-port file (MHz, RI, R = z0). Default: none.");
-  flags->measured_option = add("--measured", flags->measured_path, "FILE.s1p",
-                               "A measured one-port Touchstone file to compare: measured SWR "
-                               "beside the predicted, and the shift of the lowest SWR. "
-                               "Default: none.");
+  AddFrequencyFlags(*app, flags->frequencies);
+  flags->threads_option =
+      AddTextOption(*app, "--threads", flags->threads, "N",
+                    "Worker threads; each holds one matrix in memory. Default: 0, one "
+                    "per core.");
+  flags->csv_option =
+      AddTextOption(*app, "--csv", flags->csv_path, "FILE",
+                    "Also write the points to FILE as CSV (columns in docs/commands.md). "
+                    "Default: none.");
+  flags->svg_option =
+      AddTextOption(*app, "--svg", flags->svg_path, "FILE",
+                    "Also write an SVG picture: SWR against frequency and a Smith chart. "
+                    "Default: none.");
+  flags->s1p_option = AddTextOption(*app, "--s1p", flags->s1p_path, "FILE",
+                                    "Also write S11 at the transmitter to FILE as a Touchstone 1.1 "
+                                    "one-port file (MHz, RI, R = z0). Default: none.");
+  flags->measured_option =
+      AddTextOption(*app, "--measured", flags->measured_path, "FILE.s1p",
+                    "A measured one-port Touchstone file to compare: measured SWR "
+                    "beside the predicted, and the shift of the lowest SWR. "
+                    "Default: none.");
   app->footer(
       "Examples:\n"
       "  wirefield sweep models/hiking_club_dipole.wire --band 20m\n"

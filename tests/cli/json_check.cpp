@@ -7,6 +7,8 @@
 
 #include <cmath>
 
+#include "cli/program_runner.hpp"
+
 namespace wirefield::cli_test {
 
 namespace {
@@ -58,6 +60,14 @@ void ExpectSolveJsonContract(const nlohmann::json& doc, const std::string& conte
     ASSERT_TRUE(feed.contains("z0_ohm") && feed["z0_ohm"].is_number()) << context;
   }
   ExpectAllNumbersFinite(doc, context);
+}
+
+nlohmann::json RunForJson(const std::vector<std::string>& args) {
+  const ProgramRun run = RunWirefield(args);
+  EXPECT_TRUE(run.exited && run.exit_code == 0) << Describe(run) << "\n" << run.err;
+  nlohmann::json doc;
+  EXPECT_NO_THROW(doc = nlohmann::json::parse(run.out)) << run.out;
+  return doc;
 }
 
 }  // namespace wirefield::cli_test

@@ -4,6 +4,7 @@
 
 #include <nlohmann/json.hpp>
 #include <string>
+#include <vector>
 
 namespace wirefield::cli_test {
 
@@ -14,5 +15,9 @@ void ExpectSolveJsonContract(const nlohmann::json& doc, const std::string& conte
 // Adds a gtest failure for each null or non-finite number anywhere in `value`, except the
 // z_ohm of a load marked "open": true.
 void ExpectAllNumbersFinite(const nlohmann::json& value, const std::string& path);
+
+// Runs wirefield with `args`, adds a gtest failure unless it exits 0 with one JSON document
+// on stdout, and returns the document (null when it does not parse).
+nlohmann::json RunForJson(const std::vector<std::string>& args);
 
 }  // namespace wirefield::cli_test

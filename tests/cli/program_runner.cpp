@@ -5,6 +5,7 @@
 #include "cli/program_runner.hpp"
 
 #include <fcntl.h>
+#include <gtest/gtest.h>
 #include <signal.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
@@ -117,6 +118,14 @@ std::string Describe(const ProgramRun& run) {
       run.exited ? "exit " + std::to_string(run.exit_code) : "signal " + std::to_string(run.signal);
   return text + "; stdout: [" + run.out.substr(0, 400) + "] stderr: [" + run.err.substr(0, 400) +
          "]";
+}
+
+std::string RunBadInput(const std::vector<std::string>& args) {
+  const ProgramRun run = RunWirefield(args);
+  EXPECT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2) << run.err;
+  EXPECT_EQ(run.out, "");
+  return run.err;
 }
 
 }  // namespace wirefield::cli_test

@@ -42,6 +42,10 @@ std::string ModelsDir();
 // Reads a whole file (empty when it cannot be read).
 std::string ReadFile(const std::string& path);
 
+// Runs wirefield with `args`, adds a gtest failure unless it exits 2 with nothing on stdout,
+// and returns its stderr.
+std::string RunBadInput(const std::vector<std::string>& args);
+
 // "exit 2" or "signal 11", for failure messages.
 std::string Describe(const ProgramRun& run);
 

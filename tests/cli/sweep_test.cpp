@@ -14,6 +14,7 @@
 #include <string>
 #include <vector>
 
+#include "cli/json_check.hpp"
 #include "cli/program_runner.hpp"
 
 namespace wirefield::cli_test {
@@ -43,22 +44,9 @@ std::string DipolePath() {
   return path;
 }
 
-nlohmann::json SweepJson(const std::vector<std::string>& args) {
-  const ProgramRun run = RunWirefield(args);
-  EXPECT_TRUE(run.exited && run.exit_code == 0) << Describe(run) << "\n" << run.err;
-  nlohmann::json doc;
-  EXPECT_NO_THROW(doc = nlohmann::json::parse(run.out)) << run.out;
-  return doc;
-}
+nlohmann::json SweepJson(const std::vector<std::string>& args) { return RunForJson(args); }
 
-// The run's stderr when it exited 2 with nothing on stdout.
-std::string BadInput(const std::vector<std::string>& args) {
-  const ProgramRun run = RunWirefield(args);
-  EXPECT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2) << run.err;
-  EXPECT_EQ(run.out, "");
-  return run.err;
-}
+std::string BadInput(const std::vector<std::string>& args) { return RunBadInput(args); }
 
 double SwrOf(std::complex<double> z_ohm, double z0_ohm) {
   // REFERENCES.md section 5: Gamma = (Z - Z0)/(Z + Z0); SWR = (1 + |Gamma|)/(1 - |Gamma|).

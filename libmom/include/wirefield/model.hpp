@@ -184,6 +184,7 @@ struct Model {
   std::vector<TransformerSpec> transformers;  // at most one per feed
   std::vector<FeedLineSpec> feed_lines;       // at most one per feed
   std::vector<Warning> warnings;              // raised while parsing
+  std::vector<std::string> variables;         // the names of its `let` statements, in order
 };
 
 // A --set NAME=VALUE override: VALUE is an expression of the model language.
@@ -194,6 +195,10 @@ struct Override {
 
 // Reads and parses a model file. Throws InputError for any defect of the input.
 Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides = {});
+
+// Reads a model file's text whole (at most a few MiB). Throws InputError naming the file when
+// it cannot be read or is too large to be a model.
+std::string ReadModelFileText(const std::string& path);
 
 // Parses model text; file_name is used in diagnostics only.
 Model ParseModelText(const std::string& text, const std::string& file_name,

@@ -1,6 +1,7 @@
 // wirefield public API: include this one header.
 #pragma once
 
+#include "wirefield/batch.hpp"
 #include "wirefield/coil.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"

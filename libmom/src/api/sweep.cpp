@@ -13,34 +13,9 @@
 #include <mutex>
 #include <thread>
 
-// OpenBLAS's own threads fight the sweep's workers over small matrices (measured: a quarter
-// of a 100-unknown sweep spent in its thread hand-off); the sweep sets it to one thread while
-// it runs. Weak symbols: with another LAPACK these are null and nothing is changed.
-extern "C" void openblas_set_num_threads(int) __attribute__((weak));
-extern "C" int openblas_get_num_threads() __attribute__((weak));
+#include "solve/blas_threads.hpp"
 
 namespace wirefield {
-namespace {
-
-class SingleThreadedBlas {
- public:
-  SingleThreadedBlas() {
-    if (openblas_set_num_threads && openblas_get_num_threads) {
-      saved_ = openblas_get_num_threads();
-      openblas_set_num_threads(1);
-    }
-  }
-  ~SingleThreadedBlas() {
-    if (saved_ > 0) openblas_set_num_threads(saved_);
-  }
-  SingleThreadedBlas(const SingleThreadedBlas&) = delete;
-  SingleThreadedBlas& operator=(const SingleThreadedBlas&) = delete;
-
- private:
-  int saved_ = 0;
-};
-
-}  // namespace
 
 std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz) {
   if (!(from_hz > 0.0) || !(to_hz >= from_hz) || !(step_hz > 0.0) || !std::isfinite(to_hz)) {
@@ -101,8 +76,10 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       const size_t i = next++;
       if (i >= frequencies_hz.size()) return;
       try {
-        // One fill thread per worker when the workers share the cores.
-        const SolveResult r = simulation.Solve(frequencies_hz[i], threads > 1 ? 1 : 0);
+        // One fill thread per worker when the workers share the cores; a single worker fills
+        // as the Simulation's options say (a batch running rows in parallel asks for one).
+        const SolveResult r = threads > 1 ? simulation.Solve(frequencies_hz[i], 1)
+                                          : simulation.Solve(frequencies_hz[i]);
         const FeedResult& feed = r.feeds.at(0);
         SweepPoint& p = out.points[i];
         p.frequency_hz = frequencies_hz[i];
@@ -120,7 +97,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       }
     }
   };
-  const SingleThreadedBlas blas_guard;
+  const solve::SingleThreadedBlas blas_guard;
   std::vector<std::thread> pool;
   for (int t = 1; t < threads; ++t) pool.emplace_back(work);
   work();

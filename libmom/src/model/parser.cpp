@@ -276,6 +276,7 @@ class Parser {
                       name, name, name, name)});
     }
     scope_.Define(Scope::Variable{name, value, Loc(name_token), false});
+    model_.variables.push_back(name);
   }
 
   Point ParsePoint(const std::string& context, const std::string& which) {
@@ -1514,7 +1515,7 @@ Model ParseModelText(const std::string& text, const std::string& file_name,
   return parser.Parse(text);
 }
 
-Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides) {
+std::string ReadModelFileText(const std::string& path) {
   const SourceLocation where{path, 0, 0};
   errno = 0;
   std::unique_ptr<std::FILE, int (*)(std::FILE*)> file(std::fopen(path.c_str(), "rb"),
@@ -1541,7 +1542,11 @@ Model ParseModelFile(const std::string& path, const std::vector<Override>& overr
       break;
     }
   }
-  return ParseModelText(text, path, overrides);
+  return text;
+}
+
+Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides) {
+  return ParseModelText(ReadModelFileText(path), path, overrides);
 }
 
 Override ParseOverride(const std::string& text) {

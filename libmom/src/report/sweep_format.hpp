@@ -3,7 +3,9 @@
 // picture's title words.
 #pragma once
 
+#include <nlohmann/json.hpp>
 #include <string>
+#include <vector>
 
 #include "wirefield/sweep_report.hpp"
 
@@ -14,5 +16,11 @@ void CheckSweepReport(const SweepReport& report);
 
 // The bands swept ("40m, 20m (ITU Region 1)") or the range ("7.0000-7.3000 MHz").
 std::string SweepTitle(const SweepReport& report);
+
+// The spans of a sweep as JSON: [{"name", "from_hz", "to_hz", "points", "how"}, ...].
+nlohmann::json SpansJson(const std::vector<SweepSpan>& spans);
+
+// Warnings as a JSON array of their text ("FILE:LINE:COLUMN: warning: ...").
+nlohmann::json WarningsJson(const std::vector<Warning>& warnings);
 
 }  // namespace wirefield::report

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "report/ground_text.hpp"
+#include "report/notes.hpp"
 #include "report/sweep_format.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/simulation.hpp"
@@ -127,6 +128,24 @@ void CheckSweepReport(const SweepReport& report) {
   CheckFinite(sweep.min_swr, "minimum SWR");
 }
 
+nlohmann::json SpansJson(const std::vector<SweepSpan>& spans) {
+  nlohmann::json out = nlohmann::json::array();
+  for (const SweepSpan& span : spans) {
+    out.push_back({{"name", span.name},
+                   {"from_hz", span.frequencies_hz.front()},
+                   {"to_hz", span.frequencies_hz.back()},
+                   {"points", span.frequencies_hz.size()},
+                   {"how", span.how}});
+  }
+  return out;
+}
+
+nlohmann::json WarningsJson(const std::vector<Warning>& warnings) {
+  nlohmann::json out = nlohmann::json::array();
+  for (const Warning& warning : warnings) out.push_back(ToString(warning));
+  return out;
+}
+
 std::string SweepTitle(const SweepReport& report) {
   std::string bands;
   for (const BandSummary& summary : report.bands) {
@@ -226,17 +245,11 @@ std::string FormatSweepText(const SweepReport& report) {
           "lie\n  outside it and the shift says little; sweep and measure over a wider range\n";
     }
   }
-  if (!report.warnings.empty()) {
-    out += "\nWarnings\n";
-    for (const Warning& warning : report.warnings) out += "  " + ToString(warning) + "\n";
-  }
+  out += report::WarningsSection(report.warnings);
   out +=
       "\nBand edges are the ITU Radio Regulations' allocations (Article 5, Edition of 2020); "
-      "national\nrules are often narrower: transmit only where your licence allows.\n"
-      "Caution: at transmitting power the wire ends, loads and matching parts carry high RF "
-      "voltage,\nand the field near the antenna can exceed exposure limits. Keep people clear, "
-      "keep masts\nand wires well away from power lines, and follow local rules and licensed "
-      "practice.\n";
+      "national\nrules are often narrower: transmit only where your licence allows.\n";
+  out += report::TransmitCaution();
   return out;
 }
 
@@ -265,15 +278,7 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["min_swr"] = {{"frequency_hz", sweep.min_swr_frequency_hz}, {"swr", sweep.min_swr}};
   doc["region"] = report.region;
   doc["region_assumed"] = !report.region_given;
-  nlohmann::json spans = nlohmann::json::array();
-  for (const SweepSpan& span : report.spans) {
-    spans.push_back({{"name", span.name},
-                     {"from_hz", span.frequencies_hz.front()},
-                     {"to_hz", span.frequencies_hz.back()},
-                     {"points", span.frequencies_hz.size()},
-                     {"how", span.how}});
-  }
-  doc["spans"] = spans;
+  doc["spans"] = report::SpansJson(report.spans);
   nlohmann::json bands = nlohmann::json::array();
   for (const BandSummary& summary : report.bands) bands.push_back(report::SummaryJson(summary));
   doc["bands"] = bands;
@@ -304,9 +309,7 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["unknowns"] = sweep.unknowns;
   doc["threads_used"] = sweep.threads_used;
   doc["elapsed_s"] = sweep.elapsed_s;
-  nlohmann::json warnings = nlohmann::json::array();
-  for (const Warning& warning : report.warnings) warnings.push_back(ToString(warning));
-  doc["warnings"] = warnings;
+  doc["warnings"] = report::WarningsJson(report.warnings);
   return doc.dump(2) + "\n";
 }
 

@@ -1,0 +1,156 @@
+// Command-line program: `wirefield batch MODEL`: one model over a grid of grounds (--grounds),
+// `let` values (--vary) and a sweep's frequencies (--band or --from/--to), one row per grid
+// point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
+// Flags -> BatchOptions -> RunBatchFile -> FormatBatch* -> stdout and --csv (written whole).
+#include "wirefield/batch.hpp"
+
+#include <fmt/format.h>
+#include <unistd.h>
+
+#include <cstdio>
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "command.hpp"
+
+namespace wirefield::cli {
+
+namespace {
+
+struct BatchFlags {
+  ModelFlags model;
+  FrequencyFlags frequencies;
+  std::string grounds, elevation, pattern_freq, pattern_step, threads, csv_path;
+  std::vector<std::string> vary, at;
+  bool yes_large = false;
+  CLI::Option* grounds_option = nullptr;
+  CLI::Option* elevation_option = nullptr;
+  CLI::Option* pattern_freq_option = nullptr;
+  CLI::Option* pattern_step_option = nullptr;
+  CLI::Option* threads_option = nullptr;
+  CLI::Option* csv_option = nullptr;
+};
+
+// Progress on a terminal only: "batch: [#######.............] 12/40 rows", rewritten in place.
+void ShowProgress(int done, int total) {
+  constexpr int kWidth = 30;
+  const int filled = total > 0 ? done * kWidth / total : kWidth;
+  fmt::print(stderr, "\rbatch: [{}{}] {}/{} rows", std::string(filled, '#'),
+             std::string(kWidth - filled, '.'), done, total);
+  if (done == total) fmt::print(stderr, "\n");
+  std::fflush(stderr);
+}
+
+int RunBatchCommand(const BatchFlags& flags) {
+  // Check every flag before the file read and the rows.
+  BatchOptions options;
+  std::vector<Band> bands;
+  options.spans = ChosenSpans(flags.frequencies, "batch", ChosenRegion(flags.frequencies), bands);
+  if (Given(flags.grounds_option)) options.grounds = ParseGroundList(flags.grounds);
+  for (const std::string& text : flags.vary) options.variables.push_back(ParseVary(text));
+  for (const std::string& text : flags.model.overrides) {
+    options.fixed_overrides.push_back(ParseOverride(text));
+  }
+  if (Given(flags.model.z0_option)) {
+    options.z0_ohm = ParseResistanceArgument(flags.model.z0, "--z0");
+  }
+  for (const std::string& text : flags.at)
+    options.at_hz.push_back(ParseFrequencyArgument(text, "--at"));
+  if (Given(flags.pattern_freq_option)) {
+    options.pattern_frequency_hz = ParseFrequencyArgument(flags.pattern_freq, "--pattern-freq");
+  }
+  if (Given(flags.elevation_option)) {
+    options.elevation_deg = ParseDegrees(flags.elevation, "--elevation", "10 or 15deg");
+  }
+  if (Given(flags.pattern_step_option)) {
+    options.pattern_step_deg = ParseDegrees(flags.pattern_step, "--pattern-step", "2 or 2.5deg");
+  }
+  if (Given(flags.threads_option)) {
+    options.threads = WholeNumber(flags.threads, "--threads", 0, 1024,
+                                  "a whole number of worker threads from 0 (one per core) to "
+                                  "1024");
+  }
+  options.allow_large = flags.yes_large;
+
+  const bool show_progress = ::isatty(STDERR_FILENO) == 1;
+  const BatchResult result =
+      RunBatchFile(flags.model.model_path, options, [show_progress](int done, int total) {
+        if (show_progress) ShowProgress(done, total);
+      });
+  PrintWarnings(result.warnings);
+
+  // Format everything before writing anything, so a failure never leaves half a result.
+  std::vector<OutputFile> files;
+  if (Given(flags.csv_option)) files.push_back({flags.csv_path, FormatBatchCsv(result), "CSV"});
+  std::string output = flags.model.json ? FormatBatchJson(result) : FormatBatchText(result);
+  WriteFilesThenReport(files, output, flags.model.json);
+  return 0;
+}
+
+}  // namespace
+
+Command AddBatchCommand(CLI::App& program) {
+  auto flags = std::make_shared<BatchFlags>();
+  CLI::App* app = program.add_subcommand(
+      "batch",
+      "Run one model over a grid of grounds, `let` values and frequencies: one row per grid "
+      "point with its resonances, lowest SWR, SWR at chosen frequencies, maximum gain and "
+      "take-off angle, gain at a low elevation and efficiency; then the best row and how much "
+      "the ground matters.");
+  AddModelFlags(*app, flags->model, /*with_frequency=*/false);
+  AddFrequencyFlags(*app, flags->frequencies);
+  flags->grounds_option = AddTextOption(
+      *app, "--grounds", flags->grounds, "LIST",
+      "Grounds to run, each a row of its own: all (every ground preset), or a comma-"
+      "separated list of preset names, free and perfect, e.g. medium_dry,wet_ground,free. "
+      "Default: the model's own ground.");
+  app->add_option("--vary", flags->vary,
+                  "Vary a `let` of the model: NAME=A:B:STEP (A to B inclusive, e.g. "
+                  "length=19.5m:20.5m:0.25m) or NAME=V1,V2,... (e.g. height=6m,8m,10m); each "
+                  "value is applied as --set NAME=VALUE. Repeatable: the grid is the product, "
+                  "the first --vary varying slowest. Default: none.")
+      ->type_name("NAME=VALUES")
+      ->allow_extra_args(false);
+  app->add_option("--at", flags->at,
+                  "Add a column with the SWR solved at this frequency, e.g. 14.2MHz; "
+                  "repeatable. Default: none.")
+      ->type_name("F")
+      ->allow_extra_args(false);
+  flags->elevation_option =
+      AddTextOption(*app, "--elevation", flags->elevation, "DEG",
+                    "Elevation of the low-angle gain column, degrees above the "
+                    "horizon (0..90 over a ground, -90..90 in free space), taken "
+                    "toward the azimuth of the maximum. Default: 10.");
+  flags->pattern_freq_option =
+      AddTextOption(*app, "--pattern-freq", flags->pattern_freq, "F",
+                    "Frequency of every row's pattern (gain, take-off, efficiency), e.g. 14.2MHz. "
+                    "Default: each row's own lowest-SWR frequency.");
+  flags->pattern_step_option =
+      AddTextOption(*app, "--pattern-step", flags->pattern_step, "DEG",
+                    "Grid step of each row's pattern, degrees (> 0, <= 10); "
+                    "smaller is finer and slower. Default: 2.");
+  flags->threads_option =
+      AddTextOption(*app, "--threads", flags->threads, "N",
+                    "Worker threads: rows run in parallel, each holding one matrix. "
+                    "Default: 0, one per core.");
+  flags->csv_option =
+      AddTextOption(*app, "--csv", flags->csv_path, "FILE",
+                    "Also write the rows to FILE as CSV (columns in docs/commands.md). "
+                    "Default: none.");
+  app->add_flag("--yes-large", flags->yes_large,
+                fmt::format("Run a grid of more than {} rows (each row is a sweep and a "
+                            "pattern). Default: off, such a grid is refused.",
+                            kMaxBatchRows));
+  app->footer(
+      "Examples:\n"
+      "  wirefield batch models/hiking_club_dipole.wire --band 20m --vary "
+      "total=9.8m:10.4m:0.2m\n"
+      "  wirefield batch models/campsite_mast_dipole.wire --band 20m --grounds all --at "
+      "14.2MHz\n"
+      "  wirefield batch models/hiking_club_dipole.wire --from 13.5MHz --to 15MHz --points 31 "
+      "--vary height=2m,5m,8m --grounds perfect,free --json");
+  return Command{app, [flags] { return RunBatchCommand(*flags); }};
+}
+
+}  // namespace wirefield::cli

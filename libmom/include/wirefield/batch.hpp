@@ -1,0 +1,174 @@
+// wirefield public API, part 10: one model over a grid of grounds, `let` values and
+// frequencies (the `batch` command). Each grid point (row) re-parses the model with its
+// values as --set overrides, sweeps it and computes one pattern; rows run on worker threads
+// and come back in grid order. Implemented in libmom/src/api/batch.cpp (reports in
+// libmom/src/report/batch_report.cpp).
+#pragma once
+
+#include <functional>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "wirefield/bands.hpp"
+#include "wirefield/model.hpp"
+#include "wirefield/sweep.hpp"
+
+namespace wirefield {
+
+// One ground of the grid: the name shown and what it sets (empty: the model's own ground).
+struct BatchGround {
+  std::string name;
+  std::optional<GroundSpec> spec;
+};
+
+// Parses a --grounds list: "all" (every ground preset) or comma-separated names, each a ground
+// preset, "free" or "perfect". Throws InputError (file "--grounds") listing the names for an
+// unknown or repeated name.
+std::vector<BatchGround> ParseGroundList(const std::string& text);
+
+// One value of a varied `let`.
+struct BatchValue {
+  double si = 0.0;         // SI number (m, Hz, ohm, H, F, V, or a plain number)
+  std::string label;       // as shown in reports: "19.75m", "7.1MHz", "2.5"
+  std::string shown;       // the number of the label alone: "19.75", "7.1", "2.5"
+  std::string expression;  // the --set VALUE applied to the model (exact, SI unit)
+};
+
+// A varied `let` and its values, in the order they are run.
+struct BatchVariable {
+  std::string name;
+  std::string unit;        // SI unit of `si` ("m", "Hz", ...), empty for a plain number
+  std::string shown_unit;  // unit of the labels ("m", "MHz", "uH", "pF", ...)
+  std::vector<BatchValue> values;
+};
+
+// The most values one --vary may give (a range finer than this is surely a typing slip).
+inline constexpr int kMaxVaryValues = 10000;
+
+// Parses --vary NAME=A:B:STEP (A, A+STEP, ... up to B inclusive within 1e-9 of a step; A <= B,
+// STEP > 0, all of one quantity) or NAME=V1,V2,... . Each value is a constant of the model
+// language with its unit (19.5m, 7.1MHz, 2.5). Throws InputError (file "--vary" or
+// "--vary NAME") saying what to change.
+BatchVariable ParseVary(const std::string& text);
+
+// Grids larger than this need BatchOptions::allow_large (the CLI's --yes-large).
+inline constexpr int kMaxBatchRows = 2000;
+
+struct BatchOptions {
+  // Grounds to run; empty: the model's own ground only. Cost: one row per ground per setting.
+  std::vector<BatchGround> grounds;
+  // Varied `let`s; the grid is the product of all, the first varying slowest (after the
+  // ground, which varies slowest of all).
+  std::vector<BatchVariable> variables;
+  // --set overrides applied to every row (a variable may not be both set and varied).
+  std::vector<Override> fixed_overrides;
+  // Reference impedance of the SWR; default the model's z0, else 50 ohm.
+  std::optional<double> z0_ohm;
+  // The frequencies of each row's sweep (bands or a range, see bands.hpp). Required; the
+  // rows' cost grows in proportion to the points.
+  std::vector<SweepSpan> spans;
+  // Extra columns: the SWR solved at each of these frequencies (not interpolated).
+  std::vector<double> at_hz;
+  // Frequency of each row's pattern; default the row's own minimum-SWR frequency.
+  std::optional<double> pattern_frequency_hz;
+  // Elevation of the low-angle gain column, degrees (0..90 over a ground, -90..90 in free
+  // space). Default 10.
+  double elevation_deg = 10.0;
+  // Grid step of each row's pattern, degrees (0 < step <= 10). Default 2: the maximum is
+  // searched on a 2-degree grid and refined anyway, and the cuts cost 1/step.
+  double pattern_step_deg = 2.0;
+  // Worker threads; 0 = one per hardware core. Rows run in parallel (one matrix per worker);
+  // with fewer rows than threads each row's sweep gets the spare threads.
+  int threads = 0;
+  // Run grids of more than kMaxBatchRows rows (otherwise InputError before any row).
+  bool allow_large = false;
+};
+
+// One grid point. When error is set the numbers are unset (zero) and only the ground,
+// variables and error mean anything.
+struct BatchRow {
+  int index = 0;                      // 0-based, in grid order
+  std::string ground;                 // the BatchGround's name
+  std::vector<BatchValue> values;     // one per BatchOptions::variables, in that order
+  std::optional<std::string> error;   // why the row failed (the error's full text)
+  bool input_error = false;           // the failure was an InputError (else a ComputationError)
+  std::vector<double> resonances_hz;  // zero crossings of the feed reactance in the sweep
+  double min_swr = 0.0;
+  double min_swr_frequency_hz = 0.0;
+  std::vector<std::pair<double, double>> swr_at;  // (frequency_hz, swr) per BatchOptions::at_hz
+  double pattern_frequency_hz = 0.0;
+  double max_gain_dbi = 0.0;
+  double max_gain_azimuth_deg = 0.0;
+  double takeoff_deg = 0.0;            // elevation of the maximum (PatternResult's take-off)
+  double gain_at_elevation_dbi = 0.0;  // at BatchOptions::elevation_deg, azimuth of the max
+  double efficiency = 0.0;             // radiated / input power (ground loss included)
+  int unknowns = 0;                    // of the sweep's mesh
+  std::vector<Warning> warnings;       // of the model, meshes and pattern of this row
+};
+
+struct BatchResult {
+  std::string model_file;
+  std::vector<std::string> grounds;      // in grid order
+  std::vector<BatchVariable> variables;  // as run
+  std::vector<SweepSpan> spans;
+  std::vector<double> at_hz;
+  std::optional<double> pattern_frequency_hz;  // as asked (empty: per row's minimum SWR)
+  double elevation_deg = 10.0;
+  double pattern_step_deg = 2.0;
+  double z0_ohm = 50.0;
+  std::vector<BatchRow> rows;  // in grid order, whatever the thread count
+  int rows_failed = 0;
+  int threads_used = 1;
+  double elapsed_s = 0.0;
+  std::vector<Warning> warnings;  // every distinct warning of every row, in row order
+};
+
+// The grid size BatchOptions asks for (grounds times the product of the variables' values).
+double BatchRowCount(const BatchOptions& options);
+
+// Runs the grid over the model text (file_name is for diagnostics). Checks everything it can
+// before any row: the model parses with the --set overrides, every varied name is a `let` of
+// the model, the grid size, the angles; those throw InputError. A row that fails (InputError
+// or ComputationError from parsing, meshing or solving) keeps its reason and the rest go on.
+// When every row fails, throws the first row's error. progress(done, total) is called after
+// each row from the worker threads, one call at a time.
+BatchResult RunBatch(const std::string& model_text, const std::string& file_name,
+                     const BatchOptions& options,
+                     const std::function<void(int, int)>& progress = {});
+// The same for a model file (read once).
+BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
+                         const std::function<void(int, int)>& progress = {});
+
+// What a user acts on: the best row, and with several grounds how much the ground matters.
+struct BatchSetting {
+  std::vector<std::string> labels;  // the variables' values (empty without --vary)
+  int rows_ok = 0;                  // rows of this setting that succeeded (one per ground)
+  double worst_gain_dbi = 0.0;      // lowest gain at the elevation over the grounds
+  std::string worst_ground;
+  double best_gain_dbi = 0.0;  // highest over the grounds
+  std::string best_ground;
+  std::optional<double> resonance_spread_hz;  // first resonance, highest - lowest (2+ rows)
+  double min_swr_low = 0.0;                   // the minimum SWR's range over the grounds
+  double min_swr_high = 0.0;
+};
+struct BatchSummary {
+  std::optional<int> best_row;         // highest gain at the elevation among the rows that ran
+  std::vector<BatchSetting> settings;  // one per setting of the variables, in grid order
+  // The setting whose worst ground still gives the highest gain at the elevation, among the
+  // settings that ran over every ground (only with more than one ground).
+  std::optional<int> robust_setting;
+  double largest_gain_spread_db = 0.0;  // best - worst over the grounds, largest of settings
+};
+BatchSummary SummarizeBatch(const BatchResult& result);
+
+// Reports. Every number is checked to be finite first (ComputationError otherwise).
+// A table with units in its headers, the failed rows with their reasons, the summary and a
+// safety note.
+std::string FormatBatchText(const BatchResult& result);
+// One JSON document: {"model", "rows": [...], "summary", ...} (keys in docs/commands.md).
+std::string FormatBatchJson(const BatchResult& result);
+// One CSV row per grid row (failed rows too, with their error), header row with units.
+std::string FormatBatchCsv(const BatchResult& result);
+
+}  // namespace wirefield

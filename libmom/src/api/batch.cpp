@@ -1,0 +1,584 @@
+// API: one model over a grid of grounds and `let` values (`wirefield batch`). Parses the
+// --grounds and --vary lists, checks the whole grid before any work, then runs each row on a
+// worker thread: re-parse the model with the row's overrides, sweep it (RunSpans), solve the
+// SWR columns, and compute one pattern exactly as `pattern --freq F` would. Output: rows in
+// grid order and a summary (best row, spread over the grounds).
+#include "wirefield/batch.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <atomic>
+#include <chrono>
+#include <cmath>
+#include <exception>
+#include <map>
+#include <mutex>
+#include <set>
+#include <thread>
+
+#include "model/expression.hpp"
+#include "model/lexer.hpp"
+#include "model/units.hpp"
+#include "solve/blas_threads.hpp"
+#include "wirefield/pattern.hpp"
+
+namespace wirefield {
+namespace {
+
+std::string Trim(const std::string& text) {
+  const size_t first = text.find_first_not_of(" \t");
+  if (first == std::string::npos) return "";
+  const size_t last = text.find_last_not_of(" \t");
+  return text.substr(first, last - first + 1);
+}
+
+std::vector<std::string> Split(const std::string& text, char separator) {
+  std::vector<std::string> parts;
+  size_t start = 0;
+  while (true) {
+    const size_t at = text.find(separator, start);
+    parts.push_back(Trim(text.substr(start, at == std::string::npos ? at : at - start)));
+    if (at == std::string::npos) return parts;
+    start = at + 1;
+  }
+}
+
+// The unit a value of `dimension` is written in: the SI unit (exact, for the override) and
+// the unit shown (MHz, uH, pF read better than Hz, H, F).
+struct ValueUnit {
+  std::string si_unit;
+  std::string shown_unit;
+  double shown_factor = 1.0;  // SI per shown unit
+};
+
+std::optional<ValueUnit> UnitOf(const model::Dimension& dimension) {
+  if (dimension.IsNone()) return ValueUnit{"", "", 1.0};
+  if (dimension == model::kFrequency) return ValueUnit{"Hz", "MHz", 1e6};
+  if (dimension == model::kInductance) return ValueUnit{"H", "uH", 1e-6};
+  if (dimension == model::kCapacitance) return ValueUnit{"F", "pF", 1e-12};
+  for (const model::Quantity* q :
+       {&model::LengthQuantity(), &model::ResistanceQuantity(), &model::VoltageQuantity()}) {
+    if (dimension == q->dimension)
+      return ValueUnit{std::string(q->si_unit), std::string(q->si_unit), 1.0};
+  }
+  return std::nullopt;
+}
+
+// A constant of the model language ("19.5m", "7.1MHz", "-2.5"), evaluated without variables.
+model::Value Constant(const std::string& text, const std::string& where) {
+  const model::LineSource source{where, 1, 0};
+  const std::vector<model::Token> tokens = model::LexLine(text, source);
+  if (tokens.front().kind == model::TokenKind::kEnd) {
+    throw InputError(model::At(source, 1),
+                     "a value is empty; write --vary NAME=A:B:STEP or --vary NAME=V1,V2");
+  }
+  model::Scope no_variables;
+  size_t pos = 0;
+  const model::Value value = model::EvaluateExpression(tokens, &pos, no_variables, source);
+  if (tokens[pos].kind != model::TokenKind::kEnd) {
+    throw InputError(model::At(source, tokens[pos].column),
+                     fmt::format("unexpected {} after the value", model::Quote(tokens[pos])));
+  }
+  return value;
+}
+
+BatchValue MakeValue(double si, const ValueUnit& unit) {
+  if (si == 0.0) si = 0.0;  // no -0
+  BatchValue value;
+  value.si = si;
+  // fmt's shortest form reads back to the same double, so the override is exact.
+  value.expression = fmt::format("{}{}", si, unit.si_unit);
+  value.shown = fmt::format("{:.6g}", si / unit.shown_factor);
+  value.label = value.shown + unit.shown_unit;
+  return value;
+}
+
+const char* KindName(GroundKind kind) {
+  switch (kind) {
+    case GroundKind::kFree:
+      return "free";
+    case GroundKind::kPerfect:
+      return "perfect";
+    case GroundKind::kReal:
+      return "real";
+  }
+  return "real";
+}
+
+// The name a model's own ground is shown under: its preset, or its kind.
+std::string OwnGroundName(const GroundSpec& ground) {
+  if (!ground.preset.empty()) return ground.preset;
+  return KindName(ground.kind);
+}
+
+std::string ListNames(const std::vector<std::string>& names) {
+  std::string out;
+  for (const std::string& n : names) out += (out.empty() ? "" : ", ") + n;
+  return out;
+}
+
+// One row's work. Throws what parsing, meshing or solving throws.
+struct RowPlan {
+  int index = 0;
+  const BatchGround* ground = nullptr;
+  std::vector<BatchValue> values;
+};
+
+BatchRow RunRow(const std::string& text, const std::string& file, const BatchOptions& options,
+                const RowPlan& plan, double mesh_frequency_hz, int sweep_threads,
+                int fill_threads) {
+  BatchRow row;
+  row.index = plan.index;
+  row.values = plan.values;
+  std::vector<Override> overrides = options.fixed_overrides;
+  for (size_t v = 0; v < options.variables.size(); ++v) {
+    overrides.push_back(Override{options.variables[v].name, plan.values[v].expression});
+  }
+  Model model = ParseModelText(text, file, overrides);
+  if (plan.ground->spec) model.ground = *plan.ground->spec;
+  row.ground = plan.ground->spec ? plan.ground->name : OwnGroundName(model.ground);
+  if (options.z0_ohm) model.z0_ohm = options.z0_ohm;
+
+  SimulationOptions sweep_mesh;
+  sweep_mesh.max_frequency_hz = mesh_frequency_hz;
+  sweep_mesh.fill_threads = fill_threads;
+  const Simulation simulation(model, sweep_mesh);
+  SweepOptions sweep_options;
+  sweep_options.threads = sweep_threads;
+  const SweepResult sweep = RunSpans(simulation, options.spans, sweep_options);
+  row.unknowns = sweep.unknowns;
+  row.resonances_hz = sweep.resonances_hz;
+  row.min_swr = sweep.min_swr;
+  row.min_swr_frequency_hz = sweep.min_swr_frequency_hz;
+  if (!options.at_hz.empty()) {
+    const SweepResult at = RunSweep(simulation, options.at_hz, sweep_options);
+    for (const SweepPoint& p : at.points) row.swr_at.emplace_back(p.frequency_hz, p.swr);
+  }
+
+  // The pattern as `wirefield pattern --freq F` computes it: a mesh for F itself.
+  row.pattern_frequency_hz = options.pattern_frequency_hz.value_or(sweep.min_swr_frequency_hz);
+  SimulationOptions pattern_mesh;
+  pattern_mesh.max_frequency_hz = row.pattern_frequency_hz;
+  pattern_mesh.fill_threads = fill_threads;
+  const Simulation at_pattern(std::move(model), pattern_mesh);
+  const SolveResult solved = at_pattern.Solve(row.pattern_frequency_hz);
+  PatternOptions pattern_options;
+  pattern_options.step_deg = options.pattern_step_deg;
+  const PatternResult pattern = ComputePattern(at_pattern, solved, pattern_options);
+  row.max_gain_dbi = pattern.max_gain_dbi;
+  row.max_gain_azimuth_deg = pattern.max_gain_azimuth_deg;
+  row.takeoff_deg = pattern.takeoff_elevation_deg;
+  row.gain_at_elevation_dbi =
+      FarField(at_pattern, solved, options.elevation_deg, pattern.max_gain_azimuth_deg).gain_dbi;
+  row.efficiency = pattern.power.efficiency;
+
+  std::set<std::string> seen;
+  for (const std::vector<Warning>* list :
+       {&simulation.warnings(), &at_pattern.warnings(), &pattern.warnings}) {
+    for (const Warning& w : *list) {
+      if (seen.insert(ToString(w)).second) row.warnings.push_back(w);
+    }
+  }
+  return row;
+}
+
+// Every check that needs no row: InputError before any work.
+void CheckOptions(const BatchOptions& options, const Model& base) {
+  if (options.spans.empty()) {
+    throw InputError({"batch", 0, 0},
+                     "give the frequencies to sweep: --band NAME or --from F1 --to F2 with "
+                     "--step DF or --points N");
+  }
+  std::set<std::string> varied;
+  for (const BatchVariable& variable : options.variables) {
+    if (!varied.insert(variable.name).second) {
+      throw InputError({"--vary " + variable.name, 0, 0},
+                       "this variable is varied twice; give one --vary per variable");
+    }
+    for (const Override& fixed : options.fixed_overrides) {
+      if (fixed.name == variable.name) {
+        throw InputError({"--vary " + variable.name, 0, 0},
+                         "this variable is also given to --set; drop one of them");
+      }
+    }
+    if (std::find(base.variables.begin(), base.variables.end(), variable.name) ==
+        base.variables.end()) {
+      throw InputError(
+          {"--vary " + variable.name, 0, 0},
+          base.variables.empty()
+              ? fmt::format("the model has no variable '{}' (it defines no variables; add "
+                            "`let {} = ...` to vary it)",
+                            variable.name, variable.name)
+              : fmt::format("the model has no variable '{}' (its variables: {})", variable.name,
+                            ListNames(base.variables)));
+    }
+    if (variable.values.empty()) {
+      throw InputError({"--vary " + variable.name, 0, 0}, "the variable has no values");
+    }
+  }
+  const double rows = BatchRowCount(options);
+  if (rows > kMaxBatchRows && !options.allow_large) {
+    std::string factors = fmt::format("{} ground{}", std::max<size_t>(1, options.grounds.size()),
+                                      options.grounds.size() > 1 ? "s" : "");
+    for (const BatchVariable& v : options.variables) {
+      factors += fmt::format(" x {} value{} of {}", v.values.size(), v.values.size() > 1 ? "s" : "",
+                             v.name);
+    }
+    throw InputError({"batch", 0, 0},
+                     fmt::format("the grid has {:.0f} rows ({}), more than {}; each row is a "
+                                 "sweep and a pattern. Use fewer grounds or coarser --vary "
+                                 "steps, or pass --yes-large to run it anyway",
+                                 rows, factors, kMaxBatchRows));
+  }
+  if (!(options.pattern_step_deg > 0.0 && options.pattern_step_deg <= 10.0)) {
+    throw InputError({"--pattern-step", 1, 1},
+                     fmt::format("the pattern step must be greater than 0 and at most 10 "
+                                 "degrees; got {:.6g}",
+                                 options.pattern_step_deg));
+  }
+  bool any_ground = options.grounds.empty() && base.ground.kind != GroundKind::kFree;
+  for (const BatchGround& g : options.grounds) {
+    const GroundKind kind = g.spec ? g.spec->kind : base.ground.kind;
+    any_ground = any_ground || kind != GroundKind::kFree;
+  }
+  const double lowest_deg = any_ground ? 0.0 : -90.0;
+  if (!(options.elevation_deg >= lowest_deg && options.elevation_deg <= 90.0)) {
+    throw InputError({"--elevation", 1, 1},
+                     any_ground ? fmt::format("--elevation must lie between 0 and 90 degrees "
+                                              "over a ground (there is no far field below it); "
+                                              "got {:.6g}",
+                                              options.elevation_deg)
+                                : fmt::format("--elevation must lie between -90 and 90 "
+                                              "degrees; got {:.6g}",
+                                              options.elevation_deg));
+  }
+  for (double f_hz : options.at_hz) {
+    if (!(f_hz > 0.0) || !std::isfinite(f_hz)) {
+      throw InputError({"--at", 1, 1},
+                       fmt::format("--at needs a positive frequency; got {} Hz", f_hz));
+    }
+  }
+}
+
+}  // namespace
+
+std::vector<BatchGround> ParseGroundList(const std::string& text) {
+  std::vector<std::string> known;
+  for (const GroundPreset& preset : GroundPresets()) known.push_back(preset.name);
+  known.push_back("free");
+  known.push_back("perfect");
+  const std::string trimmed = Trim(text);
+  std::vector<BatchGround> grounds;
+  if (trimmed == "all") {
+    for (const GroundPreset& preset : GroundPresets()) {
+      grounds.push_back(BatchGround{preset.name, RealGround(preset)});
+    }
+    return grounds;
+  }
+  for (const std::string& name : Split(trimmed, ',')) {
+    BatchGround ground{name, std::nullopt};
+    if (name == "free") {
+      ground.spec = GroundSpec{};
+      ground.spec->kind = GroundKind::kFree;
+    } else if (name == "perfect") {
+      ground.spec = GroundSpec{};
+      ground.spec->kind = GroundKind::kPerfect;
+    } else if (const GroundPreset* preset = FindGroundPreset(name)) {
+      ground.spec = RealGround(*preset);
+    } else {
+      throw InputError(
+          {"--grounds", 1, 1},
+          fmt::format("unknown ground '{}'{}; use all, or a comma-separated list "
+                      "of {}",
+                      model::Shorten(name), model::DidYouMean(name, known), ListNames(known)));
+    }
+    ground.spec->location = SourceLocation{"--grounds", 1, 1};
+    for (const BatchGround& earlier : grounds) {
+      if (earlier.name == name) {
+        throw InputError({"--grounds", 1, 1},
+                         fmt::format("ground '{}' is listed twice; list each ground once", name));
+      }
+    }
+    grounds.push_back(std::move(ground));
+  }
+  return grounds;
+}
+
+BatchVariable ParseVary(const std::string& text) {
+  const size_t eq = text.find('=');
+  if (eq == std::string::npos) {
+    throw InputError({"--vary", 1, 1},
+                     fmt::format("expected NAME=A:B:STEP or NAME=V1,V2,... (such as --vary "
+                                 "length=19.5m:20.5m:0.25m); got '{}'",
+                                 model::Shorten(text)));
+  }
+  BatchVariable variable;
+  variable.name = Trim(text.substr(0, eq));
+  if (!model::IsName(variable.name)) {
+    throw InputError({"--vary", 1, 1},
+                     fmt::format("'{}' is not a variable name (letters, digits and _, not "
+                                 "starting with a digit); write --vary NAME=A:B:STEP",
+                                 model::Shorten(variable.name)));
+  }
+  const std::string where = "--vary " + variable.name;
+  const std::string body = text.substr(eq + 1);
+  std::vector<model::Value> values;
+  if (body.find(':') != std::string::npos) {
+    const std::vector<std::string> parts = Split(body, ':');
+    if (parts.size() != 3) {
+      throw InputError({where, 1, 1},
+                       fmt::format("a range needs three parts A:B:STEP (first, last, step, "
+                                   "such as 19.5m:20.5m:0.25m); got '{}'",
+                                   model::Shorten(body)));
+    }
+    const model::Value from = Constant(parts[0], where);
+    const model::Value to = Constant(parts[1], where);
+    const model::Value step = Constant(parts[2], where);
+    if (!(to.dimension == from.dimension) || !(step.dimension == from.dimension)) {
+      throw InputError({where, 1, 1},
+                       fmt::format("A, B and STEP must be of one quantity; got {}, {} and {}",
+                                   model::Describe(from.dimension), model::Describe(to.dimension),
+                                   model::Describe(step.dimension)));
+    }
+    if (!(step.si > 0.0)) {
+      throw InputError({where, 1, 1},
+                       fmt::format("the step must be positive; got {}", model::Shorten(parts[2])));
+    }
+    if (!(to.si >= from.si)) {
+      throw InputError({where, 1, 1},
+                       fmt::format("the last value ({}) must not be below the first ({})",
+                                   model::Shorten(parts[1]), model::Shorten(parts[0])));
+    }
+    const double count = std::floor((to.si - from.si) / step.si + 1e-9) + 1.0;
+    if (!(count <= kMaxVaryValues)) {
+      throw InputError({where, 1, 1},
+                       fmt::format("the range gives {:.0f} values (at most {}); use a larger "
+                                   "step",
+                                   count, kMaxVaryValues));
+    }
+    for (int i = 0; i < static_cast<int>(count); ++i) {
+      double si = from.si + i * step.si;
+      if (std::abs(si - to.si) <= 1e-9 * step.si) si = to.si;  // the inclusive end, exactly
+      values.push_back(model::Value{si, from.dimension});
+    }
+  } else {
+    for (const std::string& part : Split(body, ',')) {
+      values.push_back(Constant(part, where));
+      if (!(values.back().dimension == values.front().dimension)) {
+        throw InputError({where, 1, 1},
+                         fmt::format("every value must be of one quantity; '{}' is {}, the "
+                                     "first is {}",
+                                     model::Shorten(part), model::Describe(values.back().dimension),
+                                     model::Describe(values.front().dimension)));
+      }
+    }
+    if (values.size() > static_cast<size_t>(kMaxVaryValues)) {
+      throw InputError({where, 1, 1}, fmt::format("at most {} values", kMaxVaryValues));
+    }
+  }
+  const std::optional<ValueUnit> unit = UnitOf(values.front().dimension);
+  if (!unit) {
+    throw InputError(
+        {where, 1, 1},
+        fmt::format("the values are {}; give a plain number or one with a unit "
+                    "of the model language ({})",
+                    model::Describe(values.front().dimension), model::KnownUnitsSummary()));
+  }
+  variable.unit = unit->si_unit;
+  variable.shown_unit = unit->shown_unit;
+  for (const model::Value& v : values) variable.values.push_back(MakeValue(v.si, *unit));
+  return variable;
+}
+
+double BatchRowCount(const BatchOptions& options) {
+  double rows = static_cast<double>(std::max<size_t>(1, options.grounds.size()));
+  for (const BatchVariable& v : options.variables) rows *= static_cast<double>(v.values.size());
+  return rows;
+}
+
+BatchResult RunBatch(const std::string& model_text, const std::string& file_name,
+                     const BatchOptions& options, const std::function<void(int, int)>& progress) {
+  const auto start = std::chrono::steady_clock::now();
+  const Model base = ParseModelText(model_text, file_name, options.fixed_overrides);
+  CheckOptions(options, base);
+
+  // The grid: ground slowest, then the variables in the order given (the last fastest).
+  const std::vector<BatchGround> own_ground{BatchGround{"", std::nullopt}};
+  const std::vector<BatchGround>& grounds = options.grounds.empty() ? own_ground : options.grounds;
+  size_t per_ground = 1;
+  for (const BatchVariable& v : options.variables) per_ground *= v.values.size();
+  std::vector<RowPlan> plans;
+  for (const BatchGround& ground : grounds) {
+    for (size_t r = 0; r < per_ground; ++r) {
+      RowPlan plan;
+      plan.index = static_cast<int>(plans.size());
+      plan.ground = &ground;
+      plan.values.resize(options.variables.size());
+      size_t rest = r;
+      for (size_t v = options.variables.size(); v-- > 0;) {
+        const std::vector<BatchValue>& values = options.variables[v].values;
+        plan.values[v] = values[rest % values.size()];
+        rest /= values.size();
+      }
+      plans.push_back(std::move(plan));
+    }
+  }
+
+  double mesh_frequency_hz = 0.0;
+  for (const SweepSpan& span : options.spans) {
+    for (double f_hz : span.frequencies_hz) mesh_frequency_hz = std::max(mesh_frequency_hz, f_hz);
+  }
+  for (double f_hz : options.at_hz) mesh_frequency_hz = std::max(mesh_frequency_hz, f_hz);
+
+  const int total = static_cast<int>(plans.size());
+  const int hardware = std::max(1u, std::thread::hardware_concurrency());
+  const int threads = options.threads > 0 ? options.threads : hardware;
+  const int workers = std::clamp(threads, 1, total);
+  const int sweep_threads = std::max(1, threads / workers);
+  // Rows in parallel share the cores: each fills its matrices on one thread. A lone row fills
+  // on `threads` threads.
+  const int fill_threads = workers > 1 ? 1 : threads;
+
+  BatchResult result;
+  result.model_file = file_name;
+  result.variables = options.variables;
+  result.spans = options.spans;
+  result.at_hz = options.at_hz;
+  result.pattern_frequency_hz = options.pattern_frequency_hz;
+  result.elevation_deg = options.elevation_deg;
+  result.pattern_step_deg = options.pattern_step_deg;
+  result.z0_ohm = options.z0_ohm.value_or(base.z0_ohm.value_or(50.0));
+  result.threads_used = workers * sweep_threads;
+  for (const BatchGround& g : grounds) {
+    result.grounds.push_back(g.spec ? g.name : OwnGroundName(base.ground));
+  }
+  result.rows.resize(plans.size());
+  std::vector<std::exception_ptr> row_errors(plans.size());
+
+  // Workers take the next row from a shared counter. A row's own failure stays in its row;
+  // anything else (out of memory, a broken invariant) stops them all and is rethrown.
+  std::atomic<size_t> next{0};
+  std::atomic<bool> stop{false};
+  std::exception_ptr fatal;
+  std::mutex mutex;
+  int done = 0;
+  auto work = [&] {
+    while (!stop) {
+      const size_t i = next++;
+      if (i >= plans.size()) return;
+      BatchRow& row = result.rows[i];
+      try {
+        try {
+          row = RunRow(model_text, file_name, options, plans[i], mesh_frequency_hz, sweep_threads,
+                       fill_threads);
+        } catch (const InputError& error) {
+          row_errors[i] = std::current_exception();
+          row.error = error.what();
+          row.input_error = true;
+        } catch (const ComputationError& error) {
+          row_errors[i] = std::current_exception();
+          row.error = fmt::format("computation failed: {}", error.what());
+        }
+        if (row.error) {
+          row.index = plans[i].index;
+          row.values = plans[i].values;
+          row.ground = plans[i].ground->spec ? plans[i].ground->name : OwnGroundName(base.ground);
+        }
+        std::lock_guard<std::mutex> lock(mutex);
+        ++done;
+        if (progress) progress(done, total);
+      } catch (...) {
+        std::lock_guard<std::mutex> lock(mutex);
+        if (!fatal) fatal = std::current_exception();
+        stop = true;
+      }
+    }
+  };
+  {
+    const solve::SingleThreadedBlas blas_guard;
+    std::vector<std::thread> pool;
+    for (int t = 1; t < workers; ++t) pool.emplace_back(work);
+    work();
+    for (std::thread& t : pool) t.join();
+  }
+  if (fatal) std::rethrow_exception(fatal);
+
+  std::set<std::string> seen;
+  for (const BatchRow& row : result.rows) {
+    if (row.error) ++result.rows_failed;
+    for (const Warning& w : row.warnings) {
+      if (seen.insert(ToString(w)).second) result.warnings.push_back(w);
+    }
+  }
+  if (result.rows_failed == total) std::rethrow_exception(row_errors.front());
+  result.elapsed_s =
+      std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  return result;
+}
+
+BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
+                         const std::function<void(int, int)>& progress) {
+  return RunBatch(ReadModelFileText(path), path, options, progress);
+}
+
+BatchSummary SummarizeBatch(const BatchResult& result) {
+  BatchSummary summary;
+  for (const BatchRow& row : result.rows) {
+    if (row.error) continue;
+    if (!summary.best_row ||
+        row.gain_at_elevation_dbi > result.rows[*summary.best_row].gain_at_elevation_dbi) {
+      summary.best_row = row.index;
+    }
+  }
+  // Rows of one setting differ in the ground only: the grid repeats the settings per ground.
+  const size_t ground_count = std::max<size_t>(1, result.grounds.size());
+  const size_t per_ground = result.rows.size() / ground_count;
+  for (size_t s = 0; s < per_ground; ++s) {
+    BatchSetting setting;
+    for (const BatchValue& v : result.rows[s].values) setting.labels.push_back(v.label);
+    std::optional<double> first_low_hz, first_high_hz;
+    int with_resonance = 0;
+    for (size_t g = 0; g < ground_count; ++g) {
+      const BatchRow& row = result.rows[g * per_ground + s];
+      if (row.error) continue;
+      const bool first = setting.rows_ok == 0;
+      ++setting.rows_ok;
+      if (first || row.gain_at_elevation_dbi < setting.worst_gain_dbi) {
+        setting.worst_gain_dbi = row.gain_at_elevation_dbi;
+        setting.worst_ground = row.ground;
+      }
+      if (first || row.gain_at_elevation_dbi > setting.best_gain_dbi) {
+        setting.best_gain_dbi = row.gain_at_elevation_dbi;
+        setting.best_ground = row.ground;
+      }
+      setting.min_swr_low = first ? row.min_swr : std::min(setting.min_swr_low, row.min_swr);
+      setting.min_swr_high = first ? row.min_swr : std::max(setting.min_swr_high, row.min_swr);
+      if (!row.resonances_hz.empty()) {
+        const double f_hz = row.resonances_hz.front();
+        ++with_resonance;
+        first_low_hz = std::min(first_low_hz.value_or(f_hz), f_hz);
+        first_high_hz = std::max(first_high_hz.value_or(f_hz), f_hz);
+      }
+    }
+    if (with_resonance > 1) {
+      setting.resonance_spread_hz = *first_high_hz - *first_low_hz;
+    }
+    summary.settings.push_back(std::move(setting));
+  }
+  for (size_t s = 0; s < summary.settings.size(); ++s) {
+    const BatchSetting& setting = summary.settings[s];
+    if (setting.rows_ok > 0) {
+      summary.largest_gain_spread_db =
+          std::max(summary.largest_gain_spread_db, setting.best_gain_dbi - setting.worst_gain_dbi);
+    }
+    if (ground_count < 2 || setting.rows_ok != static_cast<int>(ground_count)) continue;
+    if (!summary.robust_setting ||
+        setting.worst_gain_dbi > summary.settings[*summary.robust_setting].worst_gain_dbi) {
+      summary.robust_setting = static_cast<int>(s);
+    }
+  }
+  return summary;
+}
+
+}  // namespace wirefield

@@ -1,0 +1,359 @@
+// Report stage: a batch (one model over grounds, variable values and frequencies) as a
+// readable table with a summary, as the `batch` command's JSON document and as CSV
+// (docs/commands.md). Input: a BatchResult; output: text. Every number of a row that ran is
+// checked to be finite first; a failed row shows its reason and no numbers.
+#include <fmt/format.h>
+
+#include <cmath>
+#include <nlohmann/json.hpp>
+#include <string>
+#include <vector>
+
+#include "report/notes.hpp"
+#include "report/pattern_format.hpp"
+#include "report/sweep_format.hpp"
+#include "report/text_table.hpp"
+#include "wirefield/batch.hpp"
+#include "wirefield/pattern.hpp"
+
+namespace wirefield {
+namespace report {
+namespace {
+
+void CheckFinite(double value, const std::string& what, const BatchRow& row) {
+  if (!std::isfinite(value)) {
+    throw ComputationError(
+        fmt::format("batch row {} ({}) has a non-finite {} ({}); the model may be degenerate there",
+                    row.index, row.ground, what, value));
+  }
+}
+
+void CheckBatch(const BatchResult& result) {
+  CheckFinite(result.z0_ohm, "z0", BatchRow{});
+  for (const BatchRow& row : result.rows) {
+    if (row.error) continue;
+    for (double f_hz : row.resonances_hz) CheckFinite(f_hz, "resonance", row);
+    CheckFinite(row.min_swr, "minimum SWR", row);
+    CheckFinite(row.min_swr_frequency_hz, "frequency of the minimum SWR", row);
+    for (const auto& [f_hz, swr] : row.swr_at) CheckFinite(swr, "SWR", row);
+    CheckFinite(row.pattern_frequency_hz, "pattern frequency", row);
+    CheckFinite(row.max_gain_dbi, "maximum gain", row);
+    CheckFinite(row.max_gain_azimuth_deg, "azimuth of the maximum", row);
+    CheckFinite(row.takeoff_deg, "take-off angle", row);
+    CheckFinite(row.gain_at_elevation_dbi, "gain at the elevation", row);
+    CheckFinite(row.efficiency, "efficiency", row);
+  }
+}
+
+std::string Mhz(double frequency_hz) { return fmt::format("{:.4f}", frequency_hz / 1e6 + 0.0); }
+
+// "total=10.3m, height=8m", or "" without variables.
+std::string SettingText(const std::vector<BatchValue>& values,
+                        const std::vector<BatchVariable>& variables) {
+  std::string out;
+  for (size_t v = 0; v < values.size(); ++v) {
+    out += fmt::format("{}{}={}", out.empty() ? "" : ", ", variables[v].name, values[v].label);
+  }
+  return out;
+}
+
+std::string RowName(const BatchRow& row, const BatchResult& result) {
+  const std::string setting = SettingText(row.values, result.variables);
+  return fmt::format("#{} ({}{}{})", row.index + 1, row.ground, setting.empty() ? "" : ", ",
+                     setting);
+}
+
+std::string FrequencyPlan(const BatchResult& result) {
+  std::string out;
+  size_t points = 0;
+  for (const SweepSpan& span : result.spans) {
+    out += fmt::format("{}{} {}-{} MHz", out.empty() ? "" : ", ", span.name,
+                       Mhz(span.frequencies_hz.front()), Mhz(span.frequencies_hz.back()));
+    points += span.frequencies_hz.size();
+  }
+  return fmt::format("{} ({} points a row)", out, points);
+}
+
+std::string CsvQuoted(const std::string& text) {
+  std::string out = "\"";
+  for (char c : text) {
+    if (c == '"') out += '"';
+    out += c == '\n' ? ' ' : c;
+  }
+  return out + "\"";
+}
+
+std::string AtHeader(double f_hz) {
+  return fmt::format("SWR @{} MHz", fmt::format("{:.6g}", f_hz / 1e6));
+}
+
+}  // namespace
+}  // namespace report
+
+std::string FormatBatchText(const BatchResult& result) {
+  report::CheckBatch(result);
+  const BatchSummary summary = SummarizeBatch(result);
+  std::string out = fmt::format("wirefield batch: {}\n", result.model_file);
+  std::string ground_names;
+  for (const std::string& g : result.grounds) {
+    ground_names += (ground_names.empty() ? "" : ", ") + g;
+  }
+  std::string grid = fmt::format("{} ground{} ({})", result.grounds.size(),
+                                 result.grounds.size() == 1 ? "" : "s", ground_names);
+  for (const BatchVariable& v : result.variables) {
+    grid += fmt::format(" x {} value{} of {}", v.values.size(), v.values.size() == 1 ? "" : "s",
+                        v.name);
+  }
+  out += fmt::format("  {} rows: {}\n", result.rows.size(), grid);
+  out += fmt::format("  sweep: {}; SWR at the first feed's transmitter against {} ohm\n",
+                     report::FrequencyPlan(result), result.z0_ohm);
+  out += fmt::format(
+      "  pattern: at {}, {} deg grid; gain at {} deg elevation toward the maximum's azimuth\n",
+      result.pattern_frequency_hz ? fmt::format("{} MHz", report::Mhz(*result.pattern_frequency_hz))
+                                  : std::string("each row's lowest-SWR frequency"),
+      report::AngleText(result.pattern_step_deg), report::AngleText(result.elevation_deg));
+  out += fmt::format("  {} threads, {:.2f} s\n\n", result.threads_used, result.elapsed_s);
+
+  report::TextTable table;
+  table.AddColumn("#", report::Align::kRight);
+  table.AddColumn("ground", report::Align::kLeft);
+  for (const BatchVariable& v : result.variables) {
+    table.AddColumn(v.shown_unit.empty() ? v.name : fmt::format("{} ({})", v.name, v.shown_unit),
+                    report::Align::kRight);
+  }
+  table.AddColumn("resonance (MHz)", report::Align::kRight);
+  table.AddColumn("min SWR", report::Align::kRight);
+  table.AddColumn("at (MHz)", report::Align::kRight);
+  for (double f_hz : result.at_hz) table.AddColumn(report::AtHeader(f_hz), report::Align::kRight);
+  table.AddColumn("max gain (dBi)", report::Align::kRight);
+  table.AddColumn("take-off (deg)", report::Align::kRight);
+  table.AddColumn(fmt::format("gain @{} deg (dBi)", report::AngleText(result.elevation_deg)),
+                  report::Align::kRight);
+  table.AddColumn("eff (%)", report::Align::kRight);
+  table.AddColumn("", report::Align::kLeft);
+  for (const BatchRow& row : result.rows) {
+    std::vector<std::string> cells{fmt::format("{}", row.index + 1), row.ground};
+    for (const BatchValue& v : row.values) cells.push_back(v.shown);
+    if (row.error) {
+      const size_t blanks = 7 + result.at_hz.size();
+      for (size_t i = 0; i < blanks; ++i) cells.push_back("-");
+      cells.push_back("failed (below)");
+    } else {
+      std::string resonances;
+      for (double f_hz : row.resonances_hz) {
+        if (!resonances.empty()) resonances += ' ';
+        resonances += report::Mhz(f_hz);
+      }
+      cells.push_back(resonances.empty() ? "none" : resonances);
+      cells.push_back(fmt::format("{:.3f}", row.min_swr));
+      cells.push_back(report::Mhz(row.min_swr_frequency_hz));
+      for (const auto& [f_hz, swr] : row.swr_at) cells.push_back(fmt::format("{:.3f}", swr));
+      cells.push_back(report::GainText(row.max_gain_dbi));
+      cells.push_back(report::AngleText(row.takeoff_deg));
+      cells.push_back(report::GainText(row.gain_at_elevation_dbi));
+      cells.push_back(fmt::format("{:.1f}", 100.0 * row.efficiency));
+      cells.push_back(summary.best_row && *summary.best_row == row.index ? "best" : "");
+    }
+    table.AddRow(std::move(cells));
+  }
+  out += "Rows\n";
+  out += table.Render(2);
+  if (result.rows_failed > 0) {
+    out += fmt::format("\nFailed rows ({} of {}; the others ran)\n", result.rows_failed,
+                       result.rows.size());
+    for (const BatchRow& row : result.rows) {
+      if (row.error) out += fmt::format("  {}: {}\n", report::RowName(row, result), *row.error);
+    }
+  }
+
+  out += "\nSummary\n";
+  const std::string at_elevation =
+      fmt::format("at {} deg elevation", report::AngleText(result.elevation_deg));
+  if (summary.best_row) {
+    const BatchRow& best = result.rows[*summary.best_row];
+    out += fmt::format(
+        "  best {}: row {}: {} dBi (maximum {} dBi at take-off {} deg), lowest SWR {:.2f} at "
+        "{} MHz\n",
+        at_elevation, report::RowName(best, result), report::GainText(best.gain_at_elevation_dbi),
+        report::GainText(best.max_gain_dbi), report::AngleText(best.takeoff_deg), best.min_swr,
+        report::Mhz(best.min_swr_frequency_hz));
+  }
+  if (result.grounds.size() > 1) {
+    out += fmt::format("  the ground moves the gain {} by up to {:.2f} dB for one setting\n",
+                       at_elevation, summary.largest_gain_spread_db);
+    if (summary.robust_setting) {
+      const BatchSetting& s = summary.settings[*summary.robust_setting];
+      const std::string name =
+          s.labels.empty()
+              ? "the model as written"
+              : report::SettingText(result.rows[*summary.robust_setting].values, result.variables);
+      out += fmt::format(
+          "  safest choice whatever the ground: {}: at least {} dBi {} (worst over {}, best {} "
+          "dBi over {})\n",
+          name, report::GainText(s.worst_gain_dbi), at_elevation, s.worst_ground,
+          report::GainText(s.best_gain_dbi), s.best_ground);
+    }
+    report::TextTable settings;
+    settings.AddColumn("setting", report::Align::kLeft);
+    settings.AddColumn("worst (dBi)", report::Align::kRight);
+    settings.AddColumn("over", report::Align::kLeft);
+    settings.AddColumn("best (dBi)", report::Align::kRight);
+    settings.AddColumn("over", report::Align::kLeft);
+    settings.AddColumn("resonance spread (kHz)", report::Align::kRight);
+    settings.AddColumn("min SWR range", report::Align::kRight);
+    for (size_t i = 0; i < summary.settings.size(); ++i) {
+      const BatchSetting& s = summary.settings[i];
+      const std::string name = s.labels.empty()
+                                   ? "as written"
+                                   : report::SettingText(result.rows[i].values, result.variables);
+      if (s.rows_ok == 0) {
+        settings.AddRow({name, "-", "-", "-", "-", "-", "failed on every ground"});
+        continue;
+      }
+      settings.AddRow(
+          {name, report::GainText(s.worst_gain_dbi), s.worst_ground,
+           report::GainText(s.best_gain_dbi), s.best_ground,
+           s.resonance_spread_hz ? fmt::format("{:.1f}", *s.resonance_spread_hz / 1e3) : "-",
+           fmt::format("{:.2f}-{:.2f}", s.min_swr_low, s.min_swr_high)});
+    }
+    out += fmt::format("  per setting, gain {} over the {} grounds:\n", at_elevation,
+                       result.grounds.size());
+    out += settings.Render(4);
+  }
+  out += report::WarningsSection(result.warnings);
+  out +=
+      "\nResonances are zero crossings of the feed reactance within the sweep; gains are dBi "
+      "over the\npower into the feed terminals, so ground and wire losses lower them; efficiency "
+      "is radiated\nover input power.\n";
+  out += report::TransmitCaution();
+  return out;
+}
+
+std::string FormatBatchJson(const BatchResult& result) {
+  report::CheckBatch(result);
+  const BatchSummary summary = SummarizeBatch(result);
+  nlohmann::json doc;
+  doc["model"] = result.model_file;
+  doc["z0_ohm"] = result.z0_ohm;
+  doc["grounds"] = result.grounds;
+  nlohmann::json vary = nlohmann::json::array();
+  for (const BatchVariable& v : result.variables) {
+    nlohmann::json values = nlohmann::json::array();
+    for (const BatchValue& value : v.values) values.push_back(value.si);
+    vary.push_back({{"name", v.name}, {"unit", v.unit}, {"values", values}});
+  }
+  doc["vary"] = vary;
+  doc["spans"] = report::SpansJson(result.spans);
+  doc["at_hz"] = result.at_hz;
+  doc["pattern_frequency_hz"] =
+      result.pattern_frequency_hz ? nlohmann::json(*result.pattern_frequency_hz) : nullptr;
+  doc["pattern_step_deg"] = result.pattern_step_deg;
+  doc["elevation_deg"] = result.elevation_deg;
+  nlohmann::json rows = nlohmann::json::array();
+  for (const BatchRow& row : result.rows) {
+    nlohmann::json r;
+    r["index"] = row.index;
+    r["ground"] = row.ground;
+    nlohmann::json variables = nlohmann::json::object();
+    nlohmann::json labels = nlohmann::json::object();
+    for (size_t v = 0; v < row.values.size(); ++v) {
+      variables[result.variables[v].name] = row.values[v].si;
+      labels[result.variables[v].name] = row.values[v].label;
+    }
+    r["variables"] = variables;
+    r["variable_labels"] = labels;
+    r["elevation_deg"] = result.elevation_deg;
+    if (row.error) {
+      for (const char* key : {"resonances_hz", "min_swr", "swr_at", "pattern_frequency_hz",
+                              "max_gain_dbi", "max_gain_azimuth_deg", "takeoff_deg",
+                              "gain_at_elevation_dbi", "efficiency", "unknowns"}) {
+        r[key] = nullptr;
+      }
+      r["error"] = *row.error;
+      r["error_kind"] = row.input_error ? "input" : "computation";
+    } else {
+      r["resonances_hz"] = row.resonances_hz;
+      r["min_swr"] = {{"frequency_hz", row.min_swr_frequency_hz}, {"swr", row.min_swr}};
+      nlohmann::json at = nlohmann::json::array();
+      for (const auto& [f_hz, swr] : row.swr_at)
+        at.push_back({{"frequency_hz", f_hz}, {"swr", swr}});
+      r["swr_at"] = at;
+      r["pattern_frequency_hz"] = row.pattern_frequency_hz;
+      r["max_gain_dbi"] = report::GainValue(row.max_gain_dbi);
+      r["max_gain_azimuth_deg"] = row.max_gain_azimuth_deg;
+      r["takeoff_deg"] = row.takeoff_deg;
+      r["gain_at_elevation_dbi"] = report::GainValue(row.gain_at_elevation_dbi);
+      r["efficiency"] = row.efficiency;
+      r["unknowns"] = row.unknowns;
+      r["error"] = nullptr;
+      r["error_kind"] = nullptr;
+    }
+    r["warnings"] = report::WarningsJson(row.warnings);
+    rows.push_back(r);
+  }
+  doc["rows"] = rows;
+  doc["rows_failed"] = result.rows_failed;
+  nlohmann::json s;
+  s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
+  s["robust_setting"] = summary.robust_setting ? nlohmann::json(*summary.robust_setting) : nullptr;
+  s["largest_gain_spread_db"] = summary.largest_gain_spread_db;
+  nlohmann::json settings = nlohmann::json::array();
+  for (const BatchSetting& setting : summary.settings) {
+    nlohmann::json one;
+    one["labels"] = setting.labels;
+    one["rows_ok"] = setting.rows_ok;
+    const bool ran = setting.rows_ok > 0;
+    one["worst_gain_dbi"] =
+        ran ? nlohmann::json(report::GainValue(setting.worst_gain_dbi)) : nullptr;
+    one["worst_ground"] = ran ? nlohmann::json(setting.worst_ground) : nullptr;
+    one["best_gain_dbi"] = ran ? nlohmann::json(report::GainValue(setting.best_gain_dbi)) : nullptr;
+    one["best_ground"] = ran ? nlohmann::json(setting.best_ground) : nullptr;
+    one["resonance_spread_hz"] =
+        setting.resonance_spread_hz ? nlohmann::json(*setting.resonance_spread_hz) : nullptr;
+    one["min_swr_range"] =
+        ran ? nlohmann::json::array({setting.min_swr_low, setting.min_swr_high}) : nullptr;
+    settings.push_back(one);
+  }
+  s["settings"] = settings;
+  doc["summary"] = s;
+  doc["threads_used"] = result.threads_used;
+  doc["elapsed_s"] = result.elapsed_s;
+  doc["warnings"] = report::WarningsJson(result.warnings);
+  return doc.dump(2) + "\n";
+}
+
+std::string FormatBatchCsv(const BatchResult& result) {
+  report::CheckBatch(result);
+  std::string out = "index,ground";
+  for (const BatchVariable& v : result.variables) {
+    out += fmt::format(",{}{}{}", v.name, v.unit.empty() ? "" : "_", v.unit);
+  }
+  out += ",resonances_hz,min_swr,min_swr_frequency_hz";
+  for (double f_hz : result.at_hz) out += fmt::format(",swr_at_{:.10g}_hz", f_hz);
+  out +=
+      ",pattern_frequency_hz,max_gain_dbi,max_gain_azimuth_deg,takeoff_deg,"
+      "gain_at_elevation_dbi,elevation_deg,efficiency,unknowns,error\n";
+  for (const BatchRow& row : result.rows) {
+    out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
+    for (const BatchValue& v : row.values) out += fmt::format(",{:.10g}", v.si);
+    if (row.error) {
+      out += std::string(3 + result.at_hz.size() + 8 + 1, ',');
+      out += report::CsvQuoted(*row.error) + "\n";
+      continue;
+    }
+    std::string resonances;
+    for (double f_hz : row.resonances_hz) {
+      resonances += fmt::format("{}{:.10g}", resonances.empty() ? "" : ";", f_hz);
+    }
+    out += fmt::format(",{},{:.10g},{:.10g}", resonances, row.min_swr, row.min_swr_frequency_hz);
+    for (const auto& [f_hz, swr] : row.swr_at) out += fmt::format(",{:.10g}", swr);
+    out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{},\n",
+                       row.pattern_frequency_hz, report::GainValue(row.max_gain_dbi),
+                       row.max_gain_azimuth_deg, row.takeoff_deg,
+                       report::GainValue(row.gain_at_elevation_dbi), result.elevation_deg,
+                       row.efficiency, row.unknowns);
+  }
+  return out;
+}
+
+}  // namespace wirefield

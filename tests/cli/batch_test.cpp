@@ -1,0 +1,230 @@
+// CLI tests: `wirefield batch`: a row equals the same model run through `sweep` and `pattern`
+// with the same --set; exit codes and the exact text of bad --vary, --grounds and grid sizes;
+// a failing row reported beside good ones with a complete CSV and JSON that parses; the JSON
+// keys and types; results that do not depend on --threads.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <nlohmann/json.hpp>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "cli/json_check.hpp"
+#include "cli/program_runner.hpp"
+
+namespace wirefield::cli_test {
+namespace {
+
+std::string Dipole() { return ModelsDir() + "/hiking_club_dipole.wire"; }
+
+// A short sweep around the hiking club dipole's resonance: 9 points 100 kHz apart.
+const std::vector<std::string> kRange{"--from", "13.8MHz", "--to", "14.6MHz", "--points", "9"};
+
+std::vector<std::string> Args(std::vector<std::string> head,
+                              const std::vector<std::string>& tail = kRange) {
+  head.insert(head.end(), tail.begin(), tail.end());
+  return head;
+}
+
+std::string Hz(double frequency_hz) {
+  std::ostringstream text;
+  text.precision(17);
+  text << frequency_hz;
+  return text.str();
+}
+
+// Fields of one CSV line, counting commas outside double quotes.
+int CsvFields(const std::string& line) {
+  int fields = 1;
+  bool quoted = false;
+  for (char c : line) {
+    if (c == '"') quoted = !quoted;
+    if (c == ',' && !quoted) ++fields;
+  }
+  return fields;
+}
+
+TEST(BatchCommand, RowEqualsSweepAndPatternWithTheSameSet) {
+  const nlohmann::json batch =
+      RunForJson(Args({"batch", Dipole(), "--vary", "total=10.3m", "--json"}));
+  ASSERT_EQ(batch.at("rows").size(), 1u);
+  const nlohmann::json& row = batch.at("rows").at(0);
+  ASSERT_TRUE(row.at("error").is_null()) << row.at("error");
+
+  // The same model through the existing commands: `sweep` over the same frequencies ...
+  const nlohmann::json sweep =
+      RunForJson(Args({"sweep", Dipole(), "--set", "total=10.3m", "--json"}));
+  ASSERT_EQ(row.at("resonances_hz").size(), sweep.at("resonances_hz").size());
+  for (size_t i = 0; i < row.at("resonances_hz").size(); ++i) {
+    EXPECT_DOUBLE_EQ(row.at("resonances_hz").at(i).get<double>(),
+                     sweep.at("resonances_hz").at(i).get<double>());
+  }
+  EXPECT_DOUBLE_EQ(row.at("min_swr").at("swr").get<double>(),
+                   sweep.at("min_swr").at("swr").get<double>());
+  EXPECT_DOUBLE_EQ(row.at("min_swr").at("frequency_hz").get<double>(),
+                   sweep.at("min_swr").at("frequency_hz").get<double>());
+
+  // ... and `pattern` at the row's pattern frequency (its lowest SWR) with the batch's step.
+  const double pattern_hz = row.at("pattern_frequency_hz").get<double>();
+  EXPECT_EQ(pattern_hz, row.at("min_swr").at("frequency_hz").get<double>());
+  const nlohmann::json pattern = RunForJson({"pattern", Dipole(), "--set", "total=10.3m", "--freq",
+                                             Hz(pattern_hz), "--step", "2", "--json"});
+  EXPECT_DOUBLE_EQ(row.at("max_gain_dbi").get<double>(), pattern.at("max_gain_dbi").get<double>());
+  EXPECT_DOUBLE_EQ(row.at("takeoff_deg").get<double>(),
+                   pattern.at("takeoff_elevation_deg").get<double>());
+  EXPECT_DOUBLE_EQ(row.at("efficiency").get<double>(), pattern.at("efficiency").get<double>());
+  // The low-angle gain is the elevation cut's value at 10 deg (the cut runs through the
+  // azimuth of the maximum, on the 2-degree grid).
+  const nlohmann::json& cut = pattern.at("elevation_cut");
+  bool found = false;
+  for (size_t i = 0; i < cut.at("angle_deg").size(); ++i) {
+    if (cut.at("angle_deg").at(i).get<double>() == 10.0) {
+      found = true;
+      EXPECT_DOUBLE_EQ(row.at("gain_at_elevation_dbi").get<double>(),
+                       cut.at("gain_dbi").at(i).get<double>());
+    }
+  }
+  EXPECT_TRUE(found);
+}
+
+TEST(BatchCommand, TextTableHasUnitsAndASummary) {
+  const ProgramRun run = RunWirefield(Args({"batch", Dipole(), "--vary", "total=9.9m:10.3m:0.2m",
+                                            "--at", "14.2MHz", "--grounds", "free,perfect"}));
+  ASSERT_TRUE(run.exited && run.exit_code == 0) << Describe(run) << run.err;
+  for (const char* text :
+       {"6 rows: 2 grounds (free, perfect) x 3 values of total", "total (m)", "resonance (MHz)",
+        "SWR @14.2 MHz", "max gain (dBi)", "take-off (deg)", "gain @10 deg (dBi)", "eff (%)",
+        "best at 10 deg elevation: row #", "the ground moves the gain at 10 deg elevation by up",
+        "safest choice whatever the ground: total=", "licensed practice"}) {
+    EXPECT_NE(run.out.find(text), std::string::npos) << text << "\n" << run.out;
+  }
+}
+
+TEST(BatchCommand, FailingRowIsReportedAndTheOthersRun) {
+  const std::string csv = WriteScratchFile("batch_failing.csv", "");
+  const ProgramRun run =
+      RunWirefield(Args({"batch", Dipole(), "--vary", "total=10m,0m,10.2m", "--csv", csv}));
+  ASSERT_TRUE(run.exited && run.exit_code == 0) << Describe(run) << run.err;
+  EXPECT_NE(run.out.find("Failed rows (1 of 3; the others ran)"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("#2 (free, total=0m): "), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("wire 'dipole' has zero length"), std::string::npos) << run.out;
+
+  // The CSV is complete: a header and three rows of the same width, the failed one with its
+  // reason in the last column.
+  std::istringstream lines(ReadFile(csv));
+  std::vector<std::string> rows;
+  for (std::string line; std::getline(lines, line);) rows.push_back(line);
+  ASSERT_EQ(rows.size(), 4u);
+  for (const std::string& line : rows) EXPECT_EQ(CsvFields(line), CsvFields(rows[0])) << line;
+  EXPECT_NE(rows[2].find("zero length"), std::string::npos);
+  EXPECT_EQ(rows[1].back(), ',');  // a row that ran has an empty error column
+
+  const nlohmann::json doc =
+      RunForJson(Args({"batch", Dipole(), "--vary", "total=10m,0m,10.2m", "--json"}));
+  ASSERT_EQ(doc.at("rows").size(), 3u);
+  EXPECT_EQ(doc.at("rows_failed"), 1);
+  EXPECT_TRUE(doc.at("rows").at(0).at("error").is_null());
+  EXPECT_TRUE(doc.at("rows").at(1).at("error").is_string());
+  EXPECT_TRUE(doc.at("rows").at(1).at("min_swr").is_null());
+  EXPECT_EQ(doc.at("rows").at(1).at("error_kind"), "input");
+  EXPECT_TRUE(doc.at("rows").at(2).at("max_gain_dbi").is_number());
+}
+
+TEST(BatchCommand, EveryRowFailingExitsPerTheErrorKind) {
+  const std::string err = RunBadInput(Args({"batch", Dipole(), "--vary", "total=0m"}));
+  EXPECT_NE(err.find("wire 'dipole' has zero length"), std::string::npos) << err;
+}
+
+TEST(BatchCommand, JsonHasTheDocumentedKeysAndTypes) {
+  const nlohmann::json doc = RunForJson(Args({"batch", Dipole(), "--vary", "height=1m,3m", "--at",
+                                              "14.1MHz", "--grounds", "perfect", "--json"}));
+  for (const char* key :
+       {"model", "z0_ohm", "grounds", "vary", "spans", "at_hz", "rows", "rows_failed", "summary",
+        "elevation_deg", "pattern_step_deg", "threads_used", "elapsed_s", "warnings"}) {
+    EXPECT_TRUE(doc.contains(key)) << key;
+  }
+  EXPECT_TRUE(doc.at("pattern_frequency_hz").is_null());
+  ASSERT_EQ(doc.at("rows").size(), 2u);
+  for (const nlohmann::json& row : doc.at("rows")) {
+    EXPECT_EQ(row.at("ground"), "perfect");
+    EXPECT_TRUE(row.at("variables").at("height").is_number());
+    EXPECT_TRUE(row.at("resonances_hz").is_array());
+    EXPECT_TRUE(row.at("min_swr").at("frequency_hz").is_number());
+    EXPECT_TRUE(row.at("min_swr").at("swr").is_number());
+    ASSERT_EQ(row.at("swr_at").size(), 1u);
+    EXPECT_EQ(row.at("swr_at").at(0).at("frequency_hz"), 14.1e6);
+    EXPECT_TRUE(row.at("max_gain_dbi").is_number());
+    EXPECT_TRUE(row.at("takeoff_deg").is_number());
+    EXPECT_TRUE(row.at("gain_at_elevation_dbi").is_number());
+    EXPECT_EQ(row.at("elevation_deg"), 10.0);
+    // Over a perfect ground nothing is lost: radiated = input (power balance, within the
+    // pattern's 2% energy check).
+    EXPECT_NEAR(row.at("efficiency").get<double>(), 1.0, 0.02);
+    EXPECT_TRUE(row.at("error").is_null());
+  }
+  EXPECT_EQ(doc.at("rows").at(0).at("variables").at("height"), 1.0);
+  EXPECT_EQ(doc.at("rows").at(1).at("variables").at("height"), 3.0);
+  for (nlohmann::json row : doc.at("rows")) {
+    row.erase("error");  // null for a row that ran, as documented
+    row.erase("error_kind");
+    ExpectAllNumbersFinite(row, "row");
+  }
+}
+
+TEST(BatchCommand, ResultsDoNotDependOnThreads) {
+  const std::vector<std::string> base =
+      Args({"batch", Dipole(), "--vary", "total=9.9m:10.3m:0.1m", "--grounds", "free,perfect"});
+  const std::string one_csv = WriteScratchFile("batch_threads_1.csv", "");
+  const std::string two_csv = WriteScratchFile("batch_threads_2.csv", "");
+  std::vector<std::string> one = base, two = base;
+  one.insert(one.end(), {"--threads", "1", "--csv", one_csv});
+  two.insert(two.end(), {"--threads", "2", "--csv", two_csv});
+  ASSERT_EQ(RunWirefield(one).exit_code, 0);
+  ASSERT_EQ(RunWirefield(two).exit_code, 0);
+  EXPECT_FALSE(ReadFile(one_csv).empty());
+  EXPECT_EQ(ReadFile(one_csv), ReadFile(two_csv));
+}
+
+TEST(BatchCommand, UnknownVariableIsExit2BeforeAnyRow) {
+  EXPECT_EQ(RunBadInput(Args({"batch", Dipole(), "--vary", "lenght=10m,11m"})),
+            "--vary lenght: error: the model has no variable 'lenght' (its variables: f_mhz, "
+            "total, height, wire_diameter)\n");
+}
+
+TEST(BatchCommand, BadGroundNameListsThePresets) {
+  const std::string err = RunBadInput(Args({"batch", Dipole(), "--grounds", "medium_dry,swamp"}));
+  EXPECT_EQ(err.rfind("--grounds:1:1: error: unknown ground 'swamp'; use all, or a "
+                      "comma-separated list of ",
+                      0),
+            0u)
+      << err;
+  for (const char* name : {"sea_water", "medium_dry", "very_dry", "free", "perfect"}) {
+    EXPECT_NE(err.find(name), std::string::npos) << name;
+  }
+}
+
+TEST(BatchCommand, LargeGridNeedsYesLarge) {
+  const std::string err = RunBadInput(
+      Args({"batch", Dipole(), "--vary", "total=5m:15m:0.1m", "--vary", "height=1m:20m:1m"}));
+  EXPECT_EQ(err,
+            "batch: error: the grid has 2020 rows (1 ground x 101 values of total x 20 values of "
+            "height), more than 2000; each row is a sweep and a pattern. Use fewer grounds or "
+            "coarser --vary steps, or pass --yes-large to run it anyway\n");
+}
+
+TEST(BatchCommand, BadOptionsReadLikeTheOtherCommands) {
+  EXPECT_EQ(RunBadInput({"batch", Dipole()}),
+            "batch: error: give the frequencies to sweep: --from F1 --to F2 with --step DF or "
+            "--points N (e.g. --from 7MHz --to 7.3MHz --step 5kHz), or --band NAME (e.g. --band "
+            "40m)\n");
+  EXPECT_EQ(RunBadInput(Args({"batch", Dipole(), "--vary", "total=10m:9m:1m"})),
+            "--vary total:1:1: error: the last value (9m) must not be below the first (10m)\n");
+  EXPECT_EQ(RunBadInput(Args({"batch", Dipole(), "--pattern-step", "20"})),
+            "--pattern-step:1:1: error: the pattern step must be greater than 0 and at most 10 "
+            "degrees; got 20\n");
+  EXPECT_EQ(RunBadInput(Args({"batch", Dipole(), "--at", "fast"})).substr(0, 11), "--at:1:1: e");
+}
+
+}  // namespace
+}  // namespace wirefield::cli_test
