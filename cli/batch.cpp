@@ -22,7 +22,7 @@ struct BatchFlags {
   ModelFlags model;
   FrequencyFlags frequencies;
   std::string grounds, elevation, pattern_freq, pattern_step, threads, csv_path;
-  std::vector<std::string> vary, at;
+  std::vector<std::string> vary, at, compare;
   bool yes_large = false;
   CLI::Option* grounds_option = nullptr;
   CLI::Option* elevation_option = nullptr;
@@ -74,10 +74,11 @@ int RunBatchCommand(const BatchFlags& flags) {
   options.allow_large = flags.yes_large;
 
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
-  const BatchResult result =
-      RunBatchFile(flags.model.model_path, options, [show_progress](int done, int total) {
-        if (show_progress) ShowProgress(done, total);
-      });
+  std::vector<std::string> paths{flags.model.model_path};
+  paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
+  const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
+    if (show_progress) ShowProgress(done, total);
+  });
   PrintWarnings(result.warnings);
 
   // Format everything before writing anything, so a failure never leaves half a result.
@@ -111,6 +112,12 @@ Command AddBatchCommand(CLI::App& program) {
                   "value is applied as --set NAME=VALUE. Repeatable: the grid is the product, "
                   "the first --vary varying slowest. Default: none.")
       ->type_name("NAME=VALUES")
+      ->allow_extra_args(false);
+  app->add_option("--compare", flags->compare,
+                  "Run another model over the same grid and compare it row by row (a `model` "
+                  "column; e.g. the same wire hung as a sloper and as an inverted-L); "
+                  "repeatable. Each must have the --vary names as `let`s. Default: none.")
+      ->type_name("MODEL")
       ->allow_extra_args(false);
   app->add_option("--at", flags->at,
                   "Add a column with the SWR solved at this frequency, e.g. 14.2MHz; "

@@ -140,6 +140,13 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
 BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
                          const std::function<void(int, int)>& progress = {});
 
+// Several models over the same grid, compared row by row: the result has a first variable
+// "model" (the file name without its folder and extension) before the --vary ones, so reports
+// and the summary treat each model as a setting ("which shape is best whatever the ground").
+// Every model must accept the same --vary names. One path: RunBatchFile.
+BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOptions& options,
+                          const std::function<void(int, int)>& progress = {});
+
 // What a user acts on: the best row, and with several grounds how much the ground matters.
 struct BatchSetting {
   std::vector<std::string> labels;  // the variables' values (empty without --vary)

@@ -12,6 +12,7 @@
 #include <chrono>
 #include <cmath>
 #include <exception>
+#include <filesystem>
 #include <map>
 #include <mutex>
 #include <set>
@@ -520,6 +521,56 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
 BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
                          const std::function<void(int, int)>& progress) {
   return RunBatch(ReadModelFileText(path), path, options, progress);
+}
+
+BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOptions& options,
+                          const std::function<void(int, int)>& progress) {
+  if (paths.size() == 1) return RunBatchFile(paths.front(), options, progress);
+  const double per_model = BatchRowCount(options);
+  const int total = static_cast<int>(per_model * static_cast<double>(paths.size()));
+  std::vector<std::string> texts;  // read every file before any row runs
+  for (const std::string& path : paths) texts.push_back(ReadModelFileText(path));
+  std::vector<BatchResult> results;
+  BatchVariable model_variable;
+  model_variable.name = "model";
+  for (size_t m = 0; m < paths.size(); ++m) {
+    const int offset = static_cast<int>(per_model * static_cast<double>(m));
+    results.push_back(RunBatch(texts[m], paths[m], options, [&](int done, int) {
+      if (progress) progress(offset + done, total);
+    }));
+    BatchValue v;
+    v.label = v.shown = v.expression = std::filesystem::path(paths[m]).stem().string();
+    model_variable.values.push_back(v);
+  }
+  // Interleave so that the ground still varies slowest, then the model, then the --vary ones.
+  BatchResult merged = results.front();
+  merged.model_file.clear();
+  for (size_t m = 0; m < paths.size(); ++m) {
+    merged.model_file += (m ? ", " : "") + paths[m];
+  }
+  merged.variables.insert(merged.variables.begin(), model_variable);
+  merged.rows.clear();
+  merged.rows_failed = 0;
+  merged.elapsed_s = 0.0;
+  merged.warnings.clear();
+  const size_t ground_count = std::max<size_t>(1, merged.grounds.size());
+  const size_t per_ground = results.front().rows.size() / ground_count;
+  for (size_t g = 0; g < ground_count; ++g) {
+    for (size_t m = 0; m < results.size(); ++m) {
+      for (size_t s = 0; s < per_ground; ++s) {
+        BatchRow row = results[m].rows[g * per_ground + s];
+        row.values.insert(row.values.begin(), model_variable.values[m]);
+        row.index = static_cast<int>(merged.rows.size());
+        if (row.error) ++merged.rows_failed;
+        merged.rows.push_back(std::move(row));
+      }
+    }
+  }
+  for (const BatchResult& r : results) {
+    merged.elapsed_s += r.elapsed_s;
+    merged.warnings.insert(merged.warnings.end(), r.warnings.begin(), r.warnings.end());
+  }
+  return merged;
 }
 
 BatchSummary SummarizeBatch(const BatchResult& result) {
