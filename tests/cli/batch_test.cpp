@@ -68,24 +68,57 @@ TEST(BatchCommand, RowEqualsSweepAndPatternWithTheSameSet) {
   // ... and `pattern` at the row's pattern frequency (its lowest SWR) with the batch's step.
   const double pattern_hz = row.at("pattern_frequency_hz").get<double>();
   EXPECT_EQ(pattern_hz, row.at("min_swr").at("frequency_hz").get<double>());
-  const nlohmann::json pattern = RunForJson({"pattern", Dipole(), "--set", "total=10.3m", "--freq",
-                                             Hz(pattern_hz), "--step", "2", "--json"});
+  const nlohmann::json pattern =
+      RunForJson({"pattern", Dipole(), "--set", "total=10.3m", "--freq", Hz(pattern_hz), "--step",
+                  "2", "--elevation", "10", "--json"});
   EXPECT_DOUBLE_EQ(row.at("max_gain_dbi").get<double>(), pattern.at("max_gain_dbi").get<double>());
   EXPECT_DOUBLE_EQ(row.at("takeoff_deg").get<double>(),
                    pattern.at("takeoff_elevation_deg").get<double>());
   EXPECT_DOUBLE_EQ(row.at("efficiency").get<double>(), pattern.at("efficiency").get<double>());
-  // The low-angle gain is the elevation cut's value at 10 deg (the cut runs through the
-  // azimuth of the maximum, on the 2-degree grid).
-  const nlohmann::json& cut = pattern.at("elevation_cut");
-  bool found = false;
-  for (size_t i = 0; i < cut.at("angle_deg").size(); ++i) {
-    if (cut.at("angle_deg").at(i).get<double>() == 10.0) {
-      found = true;
-      EXPECT_DOUBLE_EQ(row.at("gain_at_elevation_dbi").get<double>(),
-                       cut.at("gain_dbi").at(i).get<double>());
+  // The low-angle gain is the best of the azimuth cut at 10 deg elevation (2-degree grid),
+  // and its azimuth is where that cut peaks.
+  const nlohmann::json& cut = pattern.at("azimuth_cut");
+  ASSERT_EQ(cut.at("fixed_angle_deg").get<double>(), 10.0);
+  size_t best = 0;
+  for (size_t i = 1; i < cut.at("gain_dbi").size(); ++i) {
+    if (cut.at("gain_dbi").at(i).get<double>() > cut.at("gain_dbi").at(best).get<double>()) {
+      best = i;
     }
   }
-  EXPECT_TRUE(found);
+  EXPECT_DOUBLE_EQ(row.at("gain_at_elevation_dbi").get<double>(),
+                   cut.at("gain_dbi").at(best).get<double>());
+  EXPECT_DOUBLE_EQ(row.at("gain_at_elevation_azimuth_deg").get<double>(),
+                   cut.at("angle_deg").at(best).get<double>());
+}
+
+TEST(BatchCommand, TwoBandsGetAPatternEachInTheirOwnBand) {
+  // 40 m and 20 m at once: each band's pattern is taken inside that band, at its own lowest
+  // SWR, so a 7 MHz gain is never compared with a 14 MHz one.
+  const nlohmann::json batch =
+      RunForJson({"batch", Dipole(), "--band", "40m", "--band", "20m", "--json"});
+  const nlohmann::json& row = batch.at("rows").at(0);
+  ASSERT_TRUE(row.at("error").is_null()) << row.at("error");
+  const nlohmann::json& bands = row.at("bands");
+  ASSERT_EQ(bands.size(), 2u);
+  // Band edges in ITU Region 1, the default (Radio Regulations Article 5).
+  const double edges[2][2] = {{7.0e6, 7.2e6}, {14.0e6, 14.35e6}};
+  for (size_t b = 0; b < 2; ++b) {
+    const double f_hz = bands.at(b).at("pattern_frequency_hz").get<double>();
+    EXPECT_GE(f_hz, edges[b][0]);
+    EXPECT_LE(f_hz, edges[b][1]);
+    EXPECT_EQ(f_hz, bands.at(b).at("min_swr").at("frequency_hz").get<double>());
+    // The band's pattern is what `pattern` gives at that frequency.
+    const nlohmann::json pattern =
+        RunForJson({"pattern", Dipole(), "--freq", Hz(f_hz), "--step", "2", "--json"});
+    EXPECT_DOUBLE_EQ(bands.at(b).at("max_gain_dbi").get<double>(),
+                     pattern.at("max_gain_dbi").get<double>());
+  }
+  // The row's own figures are those of the band that holds its lowest SWR.
+  const size_t own = row.at("min_swr").at("frequency_hz").get<double>() < 1e7 ? 0 : 1;
+  EXPECT_EQ(row.at("max_gain_dbi"), bands.at(own).at("max_gain_dbi"));
+  ASSERT_TRUE(batch.at("summary").at("bands").is_array());
+  EXPECT_EQ(batch.at("summary").at("bands").size(), 2u);
+  EXPECT_EQ(batch.at("summary").at("bands").at(1).at("name"), "20m");
 }
 
 TEST(BatchCommand, TextTableHasUnitsAndASummary) {

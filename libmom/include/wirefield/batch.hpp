@@ -85,6 +85,25 @@ struct BatchOptions {
   bool allow_large = false;
 };
 
+// What one row does in one span of its sweep (a band, or the --from/--to range): the sweep's
+// figures inside the span and, unless BatchOptions::pattern_frequency_hz fixes one pattern for
+// the row, a pattern at the span's own lowest-SWR frequency, so that the gains of a 40 m and a
+// 20 m band are never mixed.
+struct BatchBand {
+  std::string name;                   // the span's name ("40m", "range")
+  std::vector<double> resonances_hz;  // zero crossings of the feed reactance in the span
+  double min_swr = 0.0;
+  double min_swr_frequency_hz = 0.0;
+  bool has_pattern = false;  // false with a fixed pattern frequency: the fields below are 0
+  double pattern_frequency_hz = 0.0;
+  double max_gain_dbi = 0.0;
+  double max_gain_azimuth_deg = 0.0;
+  double takeoff_deg = 0.0;
+  double gain_at_elevation_dbi = 0.0;  // best over azimuth at BatchOptions::elevation_deg
+  double gain_at_elevation_azimuth_deg = 0.0;
+  double efficiency = 0.0;
+};
+
 // One grid point. When error is set the numbers are unset (zero) and only the ground,
 // variables and error mean anything.
 struct BatchRow {
@@ -100,11 +119,16 @@ struct BatchRow {
   double pattern_frequency_hz = 0.0;
   double max_gain_dbi = 0.0;
   double max_gain_azimuth_deg = 0.0;
-  double takeoff_deg = 0.0;            // elevation of the maximum (PatternResult's take-off)
-  double gain_at_elevation_dbi = 0.0;  // at BatchOptions::elevation_deg, azimuth of the max
-  double efficiency = 0.0;             // radiated / input power (ground loss included)
-  int unknowns = 0;                    // of the sweep's mesh
-  std::vector<Warning> warnings;       // of the model, meshes and pattern of this row
+  double takeoff_deg = 0.0;  // elevation of the maximum (PatternResult's take-off)
+  // The best gain over azimuth at BatchOptions::elevation_deg (the azimuth cut there, on the
+  // pattern's grid), and its azimuth: how well the row does at low angles in its best
+  // direction.
+  double gain_at_elevation_dbi = 0.0;
+  double gain_at_elevation_azimuth_deg = 0.0;
+  double efficiency = 0.0;        // radiated / input power (ground loss included)
+  std::vector<BatchBand> bands;   // one per BatchOptions::spans, in that order
+  int unknowns = 0;               // of the sweep's mesh
+  std::vector<Warning> warnings;  // of the model, meshes and pattern of this row
 };
 
 struct BatchResult {
@@ -167,7 +191,13 @@ struct BatchSummary {
   std::optional<int> robust_setting;
   double largest_gain_spread_db = 0.0;  // best - worst over the grounds, largest of settings
 };
-BatchSummary SummarizeBatch(const BatchResult& result);
+// band: summarise the figures of that span (BatchRow::bands[band]) instead of the row's own;
+// a span without its own pattern gives an empty summary.
+BatchSummary SummarizeBatch(const BatchResult& result, std::optional<int> band = {});
+
+// True when the rows carry a pattern per span (several spans and no fixed pattern frequency):
+// the reports then show and summarise each band on its own.
+bool BatchHasBandPatterns(const BatchResult& result);
 
 // Reports. Every number is checked to be finite first (ComputationError otherwise).
 // A table with units in its headers, the failed rows with their reasons, the summary and a

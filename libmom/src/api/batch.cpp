@@ -157,26 +157,84 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
     for (const SweepPoint& p : at.points) row.swr_at.emplace_back(p.frequency_hz, p.swr);
   }
 
-  // The pattern as `wirefield pattern --freq F` computes it: a mesh for F itself.
-  row.pattern_frequency_hz = options.pattern_frequency_hz.value_or(sweep.min_swr_frequency_hz);
-  SimulationOptions pattern_mesh;
-  pattern_mesh.max_frequency_hz = row.pattern_frequency_hz;
-  pattern_mesh.fill_threads = fill_threads;
-  const Simulation at_pattern(std::move(model), pattern_mesh);
-  const SolveResult solved = at_pattern.Solve(row.pattern_frequency_hz);
-  PatternOptions pattern_options;
-  pattern_options.step_deg = options.pattern_step_deg;
-  const PatternResult pattern = ComputePattern(at_pattern, solved, pattern_options);
-  row.max_gain_dbi = pattern.max_gain_dbi;
-  row.max_gain_azimuth_deg = pattern.max_gain_azimuth_deg;
-  row.takeoff_deg = pattern.takeoff_elevation_deg;
-  row.gain_at_elevation_dbi =
-      FarField(at_pattern, solved, options.elevation_deg, pattern.max_gain_azimuth_deg).gain_dbi;
-  row.efficiency = pattern.power.efficiency;
+  // Each span's own figures: its slice of the sweep's points (RunSpans keeps span order).
+  size_t first_point = 0;
+  for (const SweepSpan& span : options.spans) {
+    BatchBand band;
+    band.name = span.name;
+    const size_t count = span.frequencies_hz.size();
+    for (size_t i = first_point; i < first_point + count && i < sweep.points.size(); ++i) {
+      const SweepPoint& p = sweep.points[i];
+      if (i == first_point || p.swr < band.min_swr) {
+        band.min_swr = p.swr;
+        band.min_swr_frequency_hz = p.frequency_hz;
+      }
+    }
+    first_point += count;
+    for (double f_hz : sweep.resonances_hz) {
+      if (f_hz >= span.frequencies_hz.front() && f_hz <= span.frequencies_hz.back()) {
+        band.resonances_hz.push_back(f_hz);
+      }
+    }
+    row.bands.push_back(std::move(band));
+  }
 
+  // Patterns as `wirefield pattern --freq F --elevation E` computes them: a mesh for F itself.
+  std::vector<Warning> pattern_warnings;
+  const auto pattern_at = [&](double f_hz, auto& figures) {
+    SimulationOptions pattern_mesh;
+    pattern_mesh.max_frequency_hz = f_hz;
+    pattern_mesh.fill_threads = fill_threads;
+    const Simulation at_pattern(model, pattern_mesh);
+    const SolveResult solved = at_pattern.Solve(f_hz);
+    PatternOptions pattern_options;
+    pattern_options.step_deg = options.pattern_step_deg;
+    pattern_options.azimuth_cut_elevation_deg = options.elevation_deg;
+    const PatternResult pattern = ComputePattern(at_pattern, solved, pattern_options);
+    figures.pattern_frequency_hz = f_hz;
+    figures.max_gain_dbi = pattern.max_gain_dbi;
+    figures.max_gain_azimuth_deg = pattern.max_gain_azimuth_deg;
+    figures.takeoff_deg = pattern.takeoff_elevation_deg;
+    const std::vector<double>& gains = pattern.azimuth_cut.gain_dbi;
+    const size_t best =
+        static_cast<size_t>(std::max_element(gains.begin(), gains.end()) - gains.begin());
+    figures.gain_at_elevation_dbi = gains.at(best);
+    figures.gain_at_elevation_azimuth_deg = pattern.azimuth_cut.angle_deg.at(best);
+    figures.efficiency = pattern.power.efficiency;
+    pattern_warnings.insert(pattern_warnings.end(), pattern.warnings.begin(),
+                            pattern.warnings.end());
+  };
+  const auto copy_pattern = [](const auto& from, auto& to) {
+    to.pattern_frequency_hz = from.pattern_frequency_hz;
+    to.max_gain_dbi = from.max_gain_dbi;
+    to.max_gain_azimuth_deg = from.max_gain_azimuth_deg;
+    to.takeoff_deg = from.takeoff_deg;
+    to.gain_at_elevation_dbi = from.gain_at_elevation_dbi;
+    to.gain_at_elevation_azimuth_deg = from.gain_at_elevation_azimuth_deg;
+    to.efficiency = from.efficiency;
+  };
+  if (options.pattern_frequency_hz) {
+    pattern_at(*options.pattern_frequency_hz, row);
+  } else {
+    // One pattern per span at its lowest SWR; the row's own is that of the span holding the
+    // lowest SWR of all (the first such span).
+    bool row_set = false;
+    for (BatchBand& band : row.bands) {
+      pattern_at(band.min_swr_frequency_hz, band);
+      band.has_pattern = true;
+      if (!row_set && band.min_swr == row.min_swr) {
+        copy_pattern(band, row);
+        row_set = true;
+      }
+    }
+    if (!row_set) pattern_at(row.min_swr_frequency_hz, row);
+  }
+
+  // The sweep's mesh is the finest (highest frequency), so its warnings stand for the
+  // patterns' meshes too; those would repeat them at other frequencies.
   std::set<std::string> seen;
   for (const std::vector<Warning>* list :
-       {&simulation.warnings(), &at_pattern.warnings(), &pattern.warnings}) {
+       {&simulation.warnings(), static_cast<const std::vector<Warning>*>(&pattern_warnings)}) {
     for (const Warning& w : *list) {
       if (seen.insert(ToString(w)).second) row.warnings.push_back(w);
     }
@@ -573,12 +631,44 @@ BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOpti
   return merged;
 }
 
-BatchSummary SummarizeBatch(const BatchResult& result) {
+bool BatchHasBandPatterns(const BatchResult& result) {
+  return result.spans.size() > 1 && !result.pattern_frequency_hz;
+}
+
+namespace {
+
+// The figures a summary compares: the row's own, or those of one of its spans.
+struct Figures {
+  bool ok = false;
+  double gain_at_elevation_dbi = 0.0;
+  double min_swr = 0.0;
+  const std::vector<double>* resonances_hz = nullptr;
+};
+
+Figures FiguresOf(const BatchRow& row, std::optional<int> band) {
+  Figures f;
+  if (row.error) return f;
+  if (!band) {
+    f = {true, row.gain_at_elevation_dbi, row.min_swr, &row.resonances_hz};
+  } else if (*band >= 0 && static_cast<size_t>(*band) < row.bands.size() &&
+             row.bands[static_cast<size_t>(*band)].has_pattern) {
+    const BatchBand& b = row.bands[static_cast<size_t>(*band)];
+    f = {true, b.gain_at_elevation_dbi, b.min_swr, &b.resonances_hz};
+  }
+  return f;
+}
+
+}  // namespace
+
+BatchSummary SummarizeBatch(const BatchResult& result, std::optional<int> band) {
   BatchSummary summary;
   for (const BatchRow& row : result.rows) {
-    if (row.error) continue;
+    const Figures f = FiguresOf(row, band);
+    if (!f.ok) continue;
     if (!summary.best_row ||
-        row.gain_at_elevation_dbi > result.rows[*summary.best_row].gain_at_elevation_dbi) {
+        f.gain_at_elevation_dbi >
+            FiguresOf(result.rows[static_cast<size_t>(*summary.best_row)], band)
+                .gain_at_elevation_dbi) {
       summary.best_row = row.index;
     }
   }
@@ -592,21 +682,22 @@ BatchSummary SummarizeBatch(const BatchResult& result) {
     int with_resonance = 0;
     for (size_t g = 0; g < ground_count; ++g) {
       const BatchRow& row = result.rows[g * per_ground + s];
-      if (row.error) continue;
+      const Figures f = FiguresOf(row, band);
+      if (!f.ok) continue;
       const bool first = setting.rows_ok == 0;
       ++setting.rows_ok;
-      if (first || row.gain_at_elevation_dbi < setting.worst_gain_dbi) {
-        setting.worst_gain_dbi = row.gain_at_elevation_dbi;
+      if (first || f.gain_at_elevation_dbi < setting.worst_gain_dbi) {
+        setting.worst_gain_dbi = f.gain_at_elevation_dbi;
         setting.worst_ground = row.ground;
       }
-      if (first || row.gain_at_elevation_dbi > setting.best_gain_dbi) {
-        setting.best_gain_dbi = row.gain_at_elevation_dbi;
+      if (first || f.gain_at_elevation_dbi > setting.best_gain_dbi) {
+        setting.best_gain_dbi = f.gain_at_elevation_dbi;
         setting.best_ground = row.ground;
       }
-      setting.min_swr_low = first ? row.min_swr : std::min(setting.min_swr_low, row.min_swr);
-      setting.min_swr_high = first ? row.min_swr : std::max(setting.min_swr_high, row.min_swr);
-      if (!row.resonances_hz.empty()) {
-        const double f_hz = row.resonances_hz.front();
+      setting.min_swr_low = first ? f.min_swr : std::min(setting.min_swr_low, f.min_swr);
+      setting.min_swr_high = first ? f.min_swr : std::max(setting.min_swr_high, f.min_swr);
+      if (!f.resonances_hz->empty()) {
+        const double f_hz = f.resonances_hz->front();
         ++with_resonance;
         first_low_hz = std::min(first_low_hz.value_or(f_hz), f_hz);
         first_high_hz = std::max(first_high_hz.value_or(f_hz), f_hz);

@@ -6,6 +6,7 @@
 
 #include <cmath>
 #include <nlohmann/json.hpp>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -42,8 +43,25 @@ void CheckBatch(const BatchResult& result) {
     CheckFinite(row.takeoff_deg, "take-off angle", row);
     CheckFinite(row.gain_at_elevation_dbi, "gain at the elevation", row);
     CheckFinite(row.efficiency, "efficiency", row);
+    CheckFinite(row.gain_at_elevation_azimuth_deg, "azimuth of the low-angle gain", row);
+    for (const BatchBand& band : row.bands) {
+      for (double f_hz : band.resonances_hz) CheckFinite(f_hz, "resonance", row);
+      for (double value :
+           {band.min_swr, band.min_swr_frequency_hz, band.pattern_frequency_hz, band.max_gain_dbi,
+            band.max_gain_azimuth_deg, band.takeoff_deg, band.gain_at_elevation_dbi,
+            band.gain_at_elevation_azimuth_deg, band.efficiency}) {
+        CheckFinite(value, "figure of band " + band.name, row);
+      }
+    }
   }
 }
+
+std::string ResonanceList(const std::vector<double>& resonances_hz);
+
+// The summary of one set of figures (the rows' own, or one band's): the best row, how much
+// the ground matters, the setting that holds up on every ground.
+std::string SummaryText(const BatchResult& result, const BatchSummary& summary,
+                        const std::string& indent, std::optional<int> band);
 
 std::string Mhz(double frequency_hz) { return fmt::format("{:.4f}", frequency_hz / 1e6 + 0.0); }
 
@@ -107,9 +125,11 @@ std::string FormatBatchText(const BatchResult& result) {
   out += fmt::format("  {} rows: {}\n", result.rows.size(), grid);
   out += fmt::format("  sweep: {}; SWR at the first feed's transmitter against {} ohm\n",
                      report::FrequencyPlan(result), result.z0_ohm);
+  const bool per_band = BatchHasBandPatterns(result);
   out += fmt::format(
-      "  pattern: at {}, {} deg grid; gain at {} deg elevation toward the maximum's azimuth\n",
+      "  pattern: at {}, {} deg grid; gain at {} deg elevation in its best azimuth\n",
       result.pattern_frequency_hz ? fmt::format("{} MHz", report::Mhz(*result.pattern_frequency_hz))
+      : per_band                  ? std::string("each band's lowest-SWR frequency, per row")
                                   : std::string("each row's lowest-SWR frequency"),
       report::AngleText(result.pattern_step_deg), report::AngleText(result.elevation_deg));
   out += fmt::format("  {} threads, {:.2f} s\n\n", result.threads_used, result.elapsed_s);
@@ -121,6 +141,7 @@ std::string FormatBatchText(const BatchResult& result) {
     table.AddColumn(v.shown_unit.empty() ? v.name : fmt::format("{} ({})", v.name, v.shown_unit),
                     report::Align::kRight);
   }
+  if (per_band) table.AddColumn("band", report::Align::kLeft);
   table.AddColumn("resonance (MHz)", report::Align::kRight);
   table.AddColumn("min SWR", report::Align::kRight);
   table.AddColumn("at (MHz)", report::Align::kRight);
@@ -129,32 +150,57 @@ std::string FormatBatchText(const BatchResult& result) {
   table.AddColumn("take-off (deg)", report::Align::kRight);
   table.AddColumn(fmt::format("gain @{} deg (dBi)", report::AngleText(result.elevation_deg)),
                   report::Align::kRight);
+  table.AddColumn("toward (deg)", report::Align::kRight);
   table.AddColumn("eff (%)", report::Align::kRight);
   table.AddColumn("", report::Align::kLeft);
-  for (const BatchRow& row : result.rows) {
-    std::vector<std::string> cells{fmt::format("{}", row.index + 1), row.ground};
-    for (const BatchValue& v : row.values) cells.push_back(v.shown);
-    if (row.error) {
-      const size_t blanks = 7 + result.at_hz.size();
-      for (size_t i = 0; i < blanks; ++i) cells.push_back("-");
-      cells.push_back("failed (below)");
-    } else {
-      std::string resonances;
-      for (double f_hz : row.resonances_hz) {
-        if (!resonances.empty()) resonances += ' ';
-        resonances += report::Mhz(f_hz);
-      }
-      cells.push_back(resonances.empty() ? "none" : resonances);
-      cells.push_back(fmt::format("{:.3f}", row.min_swr));
-      cells.push_back(report::Mhz(row.min_swr_frequency_hz));
-      for (const auto& [f_hz, swr] : row.swr_at) cells.push_back(fmt::format("{:.3f}", swr));
-      cells.push_back(report::GainText(row.max_gain_dbi));
-      cells.push_back(report::AngleText(row.takeoff_deg));
-      cells.push_back(report::GainText(row.gain_at_elevation_dbi));
-      cells.push_back(fmt::format("{:.1f}", 100.0 * row.efficiency));
-      cells.push_back(summary.best_row && *summary.best_row == row.index ? "best" : "");
+  std::vector<BatchSummary> band_summaries;
+  if (per_band) {
+    for (size_t b = 0; b < result.spans.size(); ++b) {
+      band_summaries.push_back(SummarizeBatch(result, static_cast<int>(b)));
     }
-    table.AddRow(std::move(cells));
+  }
+  for (const BatchRow& row : result.rows) {
+    const size_t lines = per_band && !row.error ? row.bands.size() : 1;
+    for (size_t line = 0; line < lines; ++line) {
+      std::vector<std::string> cells{fmt::format("{}", row.index + 1), row.ground};
+      for (const BatchValue& v : row.values) cells.push_back(v.shown);
+      if (row.error) {
+        const size_t blanks = 8 + result.at_hz.size() + (per_band ? 1 : 0);
+        for (size_t i = 0; i < blanks; ++i) cells.push_back("-");
+        cells.push_back("failed (below)");
+        table.AddRow(std::move(cells));
+        continue;
+      }
+      if (per_band) {
+        const BatchBand& band = row.bands[line];
+        cells.push_back(band.name);
+        cells.push_back(report::ResonanceList(band.resonances_hz));
+        cells.push_back(fmt::format("{:.3f}", band.min_swr));
+        cells.push_back(report::Mhz(band.min_swr_frequency_hz));
+        for (const auto& pair : row.swr_at) {
+          cells.push_back(line == 0 ? fmt::format("{:.3f}", pair.second) : std::string());
+        }
+        cells.push_back(report::GainText(band.max_gain_dbi));
+        cells.push_back(report::AngleText(band.takeoff_deg));
+        cells.push_back(report::GainText(band.gain_at_elevation_dbi));
+        cells.push_back(report::AngleText(band.gain_at_elevation_azimuth_deg));
+        cells.push_back(fmt::format("{:.1f}", 100.0 * band.efficiency));
+        const std::optional<int>& best = band_summaries[line].best_row;
+        cells.push_back(best && *best == row.index ? "best on " + band.name : "");
+      } else {
+        cells.push_back(report::ResonanceList(row.resonances_hz));
+        cells.push_back(fmt::format("{:.3f}", row.min_swr));
+        cells.push_back(report::Mhz(row.min_swr_frequency_hz));
+        for (const auto& pair : row.swr_at) cells.push_back(fmt::format("{:.3f}", pair.second));
+        cells.push_back(report::GainText(row.max_gain_dbi));
+        cells.push_back(report::AngleText(row.takeoff_deg));
+        cells.push_back(report::GainText(row.gain_at_elevation_dbi));
+        cells.push_back(report::AngleText(row.gain_at_elevation_azimuth_deg));
+        cells.push_back(fmt::format("{:.1f}", 100.0 * row.efficiency));
+        cells.push_back(summary.best_row && *summary.best_row == row.index ? "best" : "");
+      }
+      table.AddRow(std::move(cells));
+    }
   }
   out += "Rows\n";
   out += table.Render(2);
@@ -167,58 +213,14 @@ std::string FormatBatchText(const BatchResult& result) {
   }
 
   out += "\nSummary\n";
-  const std::string at_elevation =
-      fmt::format("at {} deg elevation", report::AngleText(result.elevation_deg));
-  if (summary.best_row) {
-    const BatchRow& best = result.rows[*summary.best_row];
-    out += fmt::format(
-        "  best {}: row {}: {} dBi (maximum {} dBi at take-off {} deg), lowest SWR {:.2f} at "
-        "{} MHz\n",
-        at_elevation, report::RowName(best, result), report::GainText(best.gain_at_elevation_dbi),
-        report::GainText(best.max_gain_dbi), report::AngleText(best.takeoff_deg), best.min_swr,
-        report::Mhz(best.min_swr_frequency_hz));
-  }
-  if (result.grounds.size() > 1) {
-    out += fmt::format("  the ground moves the gain {} by up to {:.2f} dB for one setting\n",
-                       at_elevation, summary.largest_gain_spread_db);
-    if (summary.robust_setting) {
-      const BatchSetting& s = summary.settings[*summary.robust_setting];
-      const std::string name =
-          s.labels.empty()
-              ? "the model as written"
-              : report::SettingText(result.rows[*summary.robust_setting].values, result.variables);
-      out += fmt::format(
-          "  safest choice whatever the ground: {}: at least {} dBi {} (worst over {}, best {} "
-          "dBi over {})\n",
-          name, report::GainText(s.worst_gain_dbi), at_elevation, s.worst_ground,
-          report::GainText(s.best_gain_dbi), s.best_ground);
+  if (per_band) {
+    for (size_t b = 0; b < result.spans.size(); ++b) {
+      out += fmt::format("  {} (patterns at each row's lowest SWR in the band):\n",
+                         result.spans[b].name);
+      out += report::SummaryText(result, band_summaries[b], "    ", static_cast<int>(b));
     }
-    report::TextTable settings;
-    settings.AddColumn("setting", report::Align::kLeft);
-    settings.AddColumn("worst (dBi)", report::Align::kRight);
-    settings.AddColumn("over", report::Align::kLeft);
-    settings.AddColumn("best (dBi)", report::Align::kRight);
-    settings.AddColumn("over", report::Align::kLeft);
-    settings.AddColumn("resonance spread (kHz)", report::Align::kRight);
-    settings.AddColumn("min SWR range", report::Align::kRight);
-    for (size_t i = 0; i < summary.settings.size(); ++i) {
-      const BatchSetting& s = summary.settings[i];
-      const std::string name = s.labels.empty()
-                                   ? "as written"
-                                   : report::SettingText(result.rows[i].values, result.variables);
-      if (s.rows_ok == 0) {
-        settings.AddRow({name, "-", "-", "-", "-", "-", "failed on every ground"});
-        continue;
-      }
-      settings.AddRow(
-          {name, report::GainText(s.worst_gain_dbi), s.worst_ground,
-           report::GainText(s.best_gain_dbi), s.best_ground,
-           s.resonance_spread_hz ? fmt::format("{:.1f}", *s.resonance_spread_hz / 1e3) : "-",
-           fmt::format("{:.2f}-{:.2f}", s.min_swr_low, s.min_swr_high)});
-    }
-    out += fmt::format("  per setting, gain {} over the {} grounds:\n", at_elevation,
-                       result.grounds.size());
-    out += settings.Render(4);
+  } else {
+    out += report::SummaryText(result, summary, "  ", std::nullopt);
   }
   out += report::WarningsSection(result.warnings);
   out +=
@@ -228,6 +230,135 @@ std::string FormatBatchText(const BatchResult& result) {
   out += report::TransmitCaution();
   return out;
 }
+
+namespace report {
+namespace {
+
+std::string ResonanceList(const std::vector<double>& resonances_hz) {
+  std::string out;
+  for (double f_hz : resonances_hz) {
+    if (!out.empty()) out += ' ';
+    out += Mhz(f_hz);
+  }
+  return out.empty() ? "none" : out;
+}
+
+std::string SummaryText(const BatchResult& result, const BatchSummary& summary,
+                        const std::string& indent, std::optional<int> band) {
+  std::string out;
+  const std::string at_elevation =
+      fmt::format("at {} deg elevation", AngleText(result.elevation_deg));
+  if (summary.best_row) {
+    const BatchRow& best = result.rows[static_cast<size_t>(*summary.best_row)];
+    double gain = best.gain_at_elevation_dbi, azimuth = best.gain_at_elevation_azimuth_deg;
+    double max_gain = best.max_gain_dbi, takeoff = best.takeoff_deg;
+    double min_swr = best.min_swr, min_swr_hz = best.min_swr_frequency_hz;
+    if (band) {
+      const BatchBand& b = best.bands.at(static_cast<size_t>(*band));
+      gain = b.gain_at_elevation_dbi;
+      azimuth = b.gain_at_elevation_azimuth_deg;
+      max_gain = b.max_gain_dbi;
+      takeoff = b.takeoff_deg;
+      min_swr = b.min_swr;
+      min_swr_hz = b.min_swr_frequency_hz;
+    }
+    out += fmt::format(
+        "{}best {}: row {}: {} dBi toward {} deg azimuth (maximum {} dBi at take-off {} deg), "
+        "lowest SWR {:.2f} at {} MHz\n",
+        indent, at_elevation, RowName(best, result), GainText(gain), AngleText(azimuth),
+        GainText(max_gain), AngleText(takeoff), min_swr, Mhz(min_swr_hz));
+  }
+  if (result.grounds.size() > 1) {
+    out += fmt::format("{}the ground moves the gain {} by up to {:.2f} dB for one setting\n",
+                       indent, at_elevation, summary.largest_gain_spread_db);
+    if (summary.robust_setting) {
+      const BatchSetting& s = summary.settings[static_cast<size_t>(*summary.robust_setting)];
+      const std::string name =
+          s.labels.empty()
+              ? "the model as written"
+              : SettingText(result.rows[static_cast<size_t>(*summary.robust_setting)].values,
+                            result.variables);
+      out += fmt::format(
+          "{}safest choice whatever the ground: {}: at least {} dBi {} (worst over {}, best {} "
+          "dBi over {})\n",
+          indent, name, GainText(s.worst_gain_dbi), at_elevation, s.worst_ground,
+          GainText(s.best_gain_dbi), s.best_ground);
+    }
+    TextTable settings;
+    settings.AddColumn("setting", Align::kLeft);
+    settings.AddColumn("worst (dBi)", Align::kRight);
+    settings.AddColumn("over", Align::kLeft);
+    settings.AddColumn("best (dBi)", Align::kRight);
+    settings.AddColumn("over", Align::kLeft);
+    settings.AddColumn("resonance spread (kHz)", Align::kRight);
+    settings.AddColumn("min SWR range", Align::kRight);
+    for (size_t i = 0; i < summary.settings.size(); ++i) {
+      const BatchSetting& s = summary.settings[i];
+      const std::string name =
+          s.labels.empty() ? "as written" : SettingText(result.rows[i].values, result.variables);
+      if (s.rows_ok == 0) {
+        settings.AddRow({name, "-", "-", "-", "-", "-", "failed on every ground"});
+        continue;
+      }
+      settings.AddRow(
+          {name, GainText(s.worst_gain_dbi), s.worst_ground, GainText(s.best_gain_dbi),
+           s.best_ground,
+           s.resonance_spread_hz ? fmt::format("{:.1f}", *s.resonance_spread_hz / 1e3) : "-",
+           fmt::format("{:.2f}-{:.2f}", s.min_swr_low, s.min_swr_high)});
+    }
+    out += fmt::format("{}per setting, gain {} over the {} grounds:\n", indent, at_elevation,
+                       result.grounds.size());
+    out += settings.Render(static_cast<int>(indent.size()) + 2);
+  }
+  return out;
+}
+
+}  // namespace
+}  // namespace report
+
+namespace report {
+namespace {
+
+// The pattern figures of a row or of one of its bands.
+template <class Figures>
+void PutPattern(const Figures& f, nlohmann::json& j) {
+  j["pattern_frequency_hz"] = f.pattern_frequency_hz;
+  j["max_gain_dbi"] = GainValue(f.max_gain_dbi);
+  j["max_gain_azimuth_deg"] = f.max_gain_azimuth_deg;
+  j["takeoff_deg"] = f.takeoff_deg;
+  j["gain_at_elevation_dbi"] = GainValue(f.gain_at_elevation_dbi);
+  j["gain_at_elevation_azimuth_deg"] = f.gain_at_elevation_azimuth_deg;
+  j["efficiency"] = f.efficiency;
+}
+
+nlohmann::json SummaryJson(const BatchSummary& summary) {
+  nlohmann::json s;
+  s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
+  s["robust_setting"] = summary.robust_setting ? nlohmann::json(*summary.robust_setting) : nullptr;
+  s["largest_gain_spread_db"] = summary.largest_gain_spread_db;
+  nlohmann::json settings = nlohmann::json::array();
+  for (const BatchSetting& setting : summary.settings) {
+    nlohmann::json one;
+    one["labels"] = setting.labels;
+    one["rows_ok"] = setting.rows_ok;
+    const bool ran = setting.rows_ok > 0;
+    one["worst_gain_dbi"] =
+        ran ? nlohmann::json(report::GainValue(setting.worst_gain_dbi)) : nullptr;
+    one["worst_ground"] = ran ? nlohmann::json(setting.worst_ground) : nullptr;
+    one["best_gain_dbi"] = ran ? nlohmann::json(report::GainValue(setting.best_gain_dbi)) : nullptr;
+    one["best_ground"] = ran ? nlohmann::json(setting.best_ground) : nullptr;
+    one["resonance_spread_hz"] =
+        setting.resonance_spread_hz ? nlohmann::json(*setting.resonance_spread_hz) : nullptr;
+    one["min_swr_range"] =
+        ran ? nlohmann::json::array({setting.min_swr_low, setting.min_swr_high}) : nullptr;
+    settings.push_back(one);
+  }
+  s["settings"] = settings;
+  return s;
+}
+
+}  // namespace
+}  // namespace report
 
 std::string FormatBatchJson(const BatchResult& result) {
   report::CheckBatch(result);
@@ -264,9 +395,10 @@ std::string FormatBatchJson(const BatchResult& result) {
     r["variable_labels"] = labels;
     r["elevation_deg"] = result.elevation_deg;
     if (row.error) {
-      for (const char* key : {"resonances_hz", "min_swr", "swr_at", "pattern_frequency_hz",
-                              "max_gain_dbi", "max_gain_azimuth_deg", "takeoff_deg",
-                              "gain_at_elevation_dbi", "efficiency", "unknowns"}) {
+      for (const char* key :
+           {"resonances_hz", "min_swr", "swr_at", "pattern_frequency_hz", "max_gain_dbi",
+            "max_gain_azimuth_deg", "takeoff_deg", "gain_at_elevation_dbi",
+            "gain_at_elevation_azimuth_deg", "efficiency", "unknowns", "bands"}) {
         r[key] = nullptr;
       }
       r["error"] = *row.error;
@@ -278,12 +410,25 @@ std::string FormatBatchJson(const BatchResult& result) {
       for (const auto& [f_hz, swr] : row.swr_at)
         at.push_back({{"frequency_hz", f_hz}, {"swr", swr}});
       r["swr_at"] = at;
-      r["pattern_frequency_hz"] = row.pattern_frequency_hz;
-      r["max_gain_dbi"] = report::GainValue(row.max_gain_dbi);
-      r["max_gain_azimuth_deg"] = row.max_gain_azimuth_deg;
-      r["takeoff_deg"] = row.takeoff_deg;
-      r["gain_at_elevation_dbi"] = report::GainValue(row.gain_at_elevation_dbi);
-      r["efficiency"] = row.efficiency;
+      report::PutPattern(row, r);
+      nlohmann::json bands = nlohmann::json::array();
+      for (const BatchBand& band : row.bands) {
+        nlohmann::json b;
+        b["name"] = band.name;
+        b["resonances_hz"] = band.resonances_hz;
+        b["min_swr"] = {{"frequency_hz", band.min_swr_frequency_hz}, {"swr", band.min_swr}};
+        if (band.has_pattern) {
+          report::PutPattern(band, b);
+        } else {
+          for (const char* key :
+               {"pattern_frequency_hz", "max_gain_dbi", "max_gain_azimuth_deg", "takeoff_deg",
+                "gain_at_elevation_dbi", "gain_at_elevation_azimuth_deg", "efficiency"}) {
+            b[key] = nullptr;
+          }
+        }
+        bands.push_back(b);
+      }
+      r["bands"] = bands;
       r["unknowns"] = row.unknowns;
       r["error"] = nullptr;
       r["error_kind"] = nullptr;
@@ -293,28 +438,18 @@ std::string FormatBatchJson(const BatchResult& result) {
   }
   doc["rows"] = rows;
   doc["rows_failed"] = result.rows_failed;
-  nlohmann::json s;
-  s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
-  s["robust_setting"] = summary.robust_setting ? nlohmann::json(*summary.robust_setting) : nullptr;
-  s["largest_gain_spread_db"] = summary.largest_gain_spread_db;
-  nlohmann::json settings = nlohmann::json::array();
-  for (const BatchSetting& setting : summary.settings) {
-    nlohmann::json one;
-    one["labels"] = setting.labels;
-    one["rows_ok"] = setting.rows_ok;
-    const bool ran = setting.rows_ok > 0;
-    one["worst_gain_dbi"] =
-        ran ? nlohmann::json(report::GainValue(setting.worst_gain_dbi)) : nullptr;
-    one["worst_ground"] = ran ? nlohmann::json(setting.worst_ground) : nullptr;
-    one["best_gain_dbi"] = ran ? nlohmann::json(report::GainValue(setting.best_gain_dbi)) : nullptr;
-    one["best_ground"] = ran ? nlohmann::json(setting.best_ground) : nullptr;
-    one["resonance_spread_hz"] =
-        setting.resonance_spread_hz ? nlohmann::json(*setting.resonance_spread_hz) : nullptr;
-    one["min_swr_range"] =
-        ran ? nlohmann::json::array({setting.min_swr_low, setting.min_swr_high}) : nullptr;
-    settings.push_back(one);
+  nlohmann::json s = report::SummaryJson(summary);
+  if (BatchHasBandPatterns(result)) {
+    nlohmann::json bands = nlohmann::json::array();
+    for (size_t b = 0; b < result.spans.size(); ++b) {
+      nlohmann::json one = report::SummaryJson(SummarizeBatch(result, static_cast<int>(b)));
+      one["name"] = result.spans[b].name;
+      bands.push_back(one);
+    }
+    s["bands"] = bands;
+  } else {
+    s["bands"] = nullptr;
   }
-  s["settings"] = settings;
   doc["summary"] = s;
   doc["threads_used"] = result.threads_used;
   doc["elapsed_s"] = result.elapsed_s;
@@ -332,12 +467,22 @@ std::string FormatBatchCsv(const BatchResult& result) {
   for (double f_hz : result.at_hz) out += fmt::format(",swr_at_{:.10g}_hz", f_hz);
   out +=
       ",pattern_frequency_hz,max_gain_dbi,max_gain_azimuth_deg,takeoff_deg,"
-      "gain_at_elevation_dbi,elevation_deg,efficiency,unknowns,error\n";
+      "gain_at_elevation_dbi,elevation_deg,efficiency,unknowns,gain_at_elevation_azimuth_deg";
+  for (const SweepSpan& span : result.spans) {
+    for (const char* key :
+         {"resonances_hz", "min_swr", "min_swr_frequency_hz", "pattern_frequency_hz",
+          "max_gain_dbi", "takeoff_deg", "gain_at_elevation_dbi", "gain_at_elevation_azimuth_deg",
+          "efficiency"}) {
+      out += fmt::format(",{}_{}", span.name, key);
+    }
+  }
+  out += ",error\n";
+  const size_t band_columns = 9 * result.spans.size();
   for (const BatchRow& row : result.rows) {
     out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
     for (const BatchValue& v : row.values) out += fmt::format(",{:.10g}", v.si);
     if (row.error) {
-      out += std::string(3 + result.at_hz.size() + 8 + 1, ',');
+      out += std::string(3 + result.at_hz.size() + 9 + band_columns + 1, ',');
       out += report::CsvQuoted(*row.error) + "\n";
       continue;
     }
@@ -347,11 +492,28 @@ std::string FormatBatchCsv(const BatchResult& result) {
     }
     out += fmt::format(",{},{:.10g},{:.10g}", resonances, row.min_swr, row.min_swr_frequency_hz);
     for (const auto& [f_hz, swr] : row.swr_at) out += fmt::format(",{:.10g}", swr);
-    out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{},\n",
+    out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{},{:.10g}",
                        row.pattern_frequency_hz, report::GainValue(row.max_gain_dbi),
                        row.max_gain_azimuth_deg, row.takeoff_deg,
                        report::GainValue(row.gain_at_elevation_dbi), result.elevation_deg,
-                       row.efficiency, row.unknowns);
+                       row.efficiency, row.unknowns, row.gain_at_elevation_azimuth_deg);
+    for (const BatchBand& band : row.bands) {
+      std::string band_resonances;
+      for (double f_hz : band.resonances_hz) {
+        band_resonances += fmt::format("{}{:.10g}", band_resonances.empty() ? "" : ";", f_hz);
+      }
+      out += fmt::format(",{},{:.10g},{:.10g}", band_resonances, band.min_swr,
+                         band.min_swr_frequency_hz);
+      if (band.has_pattern) {
+        out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g}",
+                           band.pattern_frequency_hz, report::GainValue(band.max_gain_dbi),
+                           band.takeoff_deg, report::GainValue(band.gain_at_elevation_dbi),
+                           band.gain_at_elevation_azimuth_deg, band.efficiency);
+      } else {
+        out += ",,,,,,";
+      }
+    }
+    out += ",\n";
   }
   return out;
 }

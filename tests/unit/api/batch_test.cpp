@@ -302,5 +302,40 @@ TEST(BatchRows, LossyGroundTakesPowerThatAPerfectGroundReflects) {
   EXPECT_GT(result.rows[1].efficiency, 0.0);
 }
 
+TEST(BatchRows, EachWarningOnceHoweverManyBandsAndGrounds) {
+  // A dipole 1 m over real ground, run on two spans over two grounds: the mesher warns once
+  // per wire (from the sweep's mesh), not again for every band's pattern frequency.
+  BatchOptions options = SmallOptions();
+  SweepSpan low;
+  low.name = "low";
+  low.frequencies_hz = FrequencyPoints(6.5e6, 7.5e6, 3);
+  options.spans.insert(options.spans.begin(), low);
+  options.grounds = ParseGroundList("medium_dry,wet_ground");
+  options.fixed_overrides.push_back(Override{"height", "1m"});
+  const BatchResult result = RunBatch(kDipole, "low_dipole.wire", options);
+  ASSERT_EQ(result.rows.size(), 2u);
+  int low_height = 0;
+  for (const Warning& w : result.warnings) {
+    if (w.message.find("above the real ground") != std::string::npos) ++low_height;
+  }
+  EXPECT_EQ(low_height, 1) << FormatBatchText(result);
+  // Two spans and no fixed pattern frequency: a pattern per band, inside that band.
+  for (const BatchRow& row : result.rows) {
+    ASSERT_EQ(row.bands.size(), 2u);
+    EXPECT_TRUE(row.bands[0].has_pattern);
+    EXPECT_LE(row.bands[0].pattern_frequency_hz, 7.5e6);
+    EXPECT_GE(row.bands[1].pattern_frequency_hz, 13.5e6);
+  }
+  EXPECT_TRUE(BatchHasBandPatterns(result));
+  // Each band's summary picks its best row by that band's own low-angle gain.
+  for (int b = 0; b < 2; ++b) {
+    const BatchSummary summary = SummarizeBatch(result, b);
+    ASSERT_TRUE(summary.best_row);
+    const size_t other = *summary.best_row == 0 ? 1 : 0;
+    EXPECT_GE(result.rows[static_cast<size_t>(*summary.best_row)].bands[b].gain_at_elevation_dbi,
+              result.rows[other].bands[b].gain_at_elevation_dbi);
+  }
+}
+
 }  // namespace
 }  // namespace wirefield
