@@ -239,6 +239,47 @@ void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
                    "docs/commands.md). Default: off.");
 }
 
+void AddPowerFlags(CLI::App& command, PowerFlags& flags) {
+  flags.power_option = AddTextOption(
+      command, "--power", flags.power, "W",
+      "Transmitter power: scale the solution so the transmitter delivers this power into the "
+      "feed chain, and report the voltage, current and dissipation at every load, the feed, "
+      "the transformer and the free wire ends, with cautions. A unit is required: W, mW or "
+      "kW, e.g. 100W. Default: none (no stress report).");
+  flags.rating_cap_option = AddTextOption(
+      command, "--rating-cap", flags.rating_cap, "V",
+      "Peak voltage rating of capacitors (load capacitors and the compensation capacitor): a "
+      "caution above it. Volt, or with V or kV. Default: 500V (common for small mica and "
+      "ceramic capacitors).");
+  flags.rating_load_option = AddTextOption(
+      command, "--rating-load", flags.rating_load, "V",
+      "Peak voltage rating of coils and other loads: a caution above it. Volt, or with V or "
+      "kV. Default: 2kV.");
+}
+
+std::optional<StressOptions> ChosenStress(const PowerFlags& flags) {
+  if (!Given(flags.power_option)) {
+    for (const CLI::Option* option : {flags.rating_cap_option, flags.rating_load_option}) {
+      if (Given(option)) {
+        FailOption(option->get_name(),
+                   fmt::format("{} sets a rating for the stress report: give it with --power, "
+                               "e.g. --power 100W {} 1kV",
+                               option->get_name(), option->get_name()));
+      }
+    }
+    return std::nullopt;
+  }
+  StressOptions options;
+  options.power_w = ParsePowerArgument(flags.power, "--power");
+  if (Given(flags.rating_cap_option)) {
+    options.capacitor_rating_v = ParseVoltageArgument(flags.rating_cap, "--rating-cap");
+  }
+  if (Given(flags.rating_load_option)) {
+    options.load_rating_v = ParseVoltageArgument(flags.rating_load, "--rating-load");
+  }
+  return options;
+}
+
 std::optional<double> FrequencyFlag(const ModelFlags& flags) {
   if (flags.frequency_option == nullptr || flags.frequency_option->count() == 0) return {};
   return ParseFrequencyArgument(flags.frequency, "--freq");

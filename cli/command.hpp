@@ -93,6 +93,21 @@ int ChosenRegion(const FrequencyFlags& flags);
 std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::string& command,
                                    int region, std::vector<Band>& bands);
 
+// The flags of a transmitter power: --power and the component ratings of its cautions.
+struct PowerFlags {
+  std::string power, rating_cap, rating_load;
+  CLI::Option* power_option = nullptr;
+  CLI::Option* rating_cap_option = nullptr;
+  CLI::Option* rating_load_option = nullptr;
+};
+
+// Adds --power, --rating-cap and --rating-load to `command`.
+void AddPowerFlags(CLI::App& command, PowerFlags& flags);
+
+// The stress options of --power, empty without it. InputError for a malformed or
+// non-positive value, or for a rating given without --power.
+std::optional<StressOptions> ChosenStress(const PowerFlags& flags);
+
 // The commands, one file each.
 Command AddSolveCommand(CLI::App& program);
 Command AddPatternCommand(CLI::App& program);

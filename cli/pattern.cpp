@@ -32,6 +32,11 @@ constexpr double kMaxStep_deg = 10.0;
 
 struct PatternFlags {
   ModelFlags model;
+  PowerFlags power;
+  std::string mode, duty, transmit_fraction;  // as typed
+  CLI::Option* mode_option = nullptr;
+  CLI::Option* duty_option = nullptr;
+  CLI::Option* transmit_fraction_option = nullptr;
   std::string step;       // --step, as typed
   std::string elevation;  // --elevation, as typed
   std::string csv_path;
@@ -71,9 +76,52 @@ PatternOptions ChosenOptions(const PatternFlags& flags, const Model& model) {
   return options;
 }
 
+// A share in (0, 1] of an option, as a plain number; InputError naming the option otherwise.
+double ShareFlag(const std::string& text, const std::string& option, const std::string& what) {
+  const char* begin = text.c_str();
+  char* end = nullptr;
+  errno = 0;
+  const double value = std::strtod(begin, &end);
+  if (text.empty() || end == begin || *end != '\0' || errno == ERANGE || !(value > 0.0) ||
+      !(value <= 1.0)) {
+    FailOption(option, fmt::format("{} needs {} greater than 0 and at most 1, e.g. 0.5; got '{}'",
+                                   option, what, text));
+  }
+  return value;
+}
+
+// The exposure options of --power, --mode, --duty and --transmit-fraction (empty without
+// --power; the last three need it).
+std::optional<ExposureOptions> ChosenExposure(const PatternFlags& flags,
+                                              const std::optional<StressOptions>& stress) {
+  if (!stress) {
+    for (const CLI::Option* option :
+         {flags.mode_option, flags.duty_option, flags.transmit_fraction_option}) {
+      if (Given(option)) {
+        FailOption(option->get_name(),
+                   fmt::format("{} belongs to the exposure estimate: give it with --power, e.g. "
+                               "--power 100W --mode ssb",
+                               option->get_name()));
+      }
+    }
+    return std::nullopt;
+  }
+  ExposureOptions options;
+  options.power_w = stress->power_w;
+  if (Given(flags.mode_option)) options.mode = ParseTransmitMode(flags.mode, "--mode");
+  if (Given(flags.duty_option)) options.duty = ShareFlag(flags.duty, "--duty", "a duty factor");
+  if (Given(flags.transmit_fraction_option)) {
+    options.transmit_fraction = ShareFlag(flags.transmit_fraction, "--transmit-fraction",
+                                          "the share of the time spent transmitting");
+  }
+  return options;
+}
+
 int RunPattern(const PatternFlags& flags) {
   // Check the flags before the (possibly long) file read, mesh and solve.
   FrequencyFlag(flags.model);
+  const std::optional<StressOptions> stress_options = ChosenStress(flags.power);
+  const std::optional<ExposureOptions> exposure_options = ChosenExposure(flags, stress_options);
   Model model = LoadModel(flags.model);
   const PatternOptions options = ChosenOptions(flags, model);
   const double frequency_hz = ChosenFrequency(flags.model, model);
@@ -84,6 +132,14 @@ int RunPattern(const PatternFlags& flags) {
   const SolveResult solved = simulation.Solve(frequency_hz);
   const PatternResult pattern = ComputePattern(simulation, solved, options);
   PrintWarnings(pattern.warnings);
+  std::optional<StressResult> stress;
+  std::optional<ExposureResult> exposure;
+  if (stress_options) {
+    stress = ComputeStress(simulation.model(), solved, *stress_options);
+    exposure = EstimateExposure(frequency_hz, pattern.max_gain_dbi, *exposure_options);
+  }
+  const StressResult* stress_shown = stress ? &*stress : nullptr;
+  const ExposureResult* exposure_shown = exposure ? &*exposure : nullptr;
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
@@ -93,8 +149,9 @@ int RunPattern(const PatternFlags& flags) {
   if (flags.svg_option->count() > 0) {
     files.push_back({flags.svg_path, FormatPatternSvg(simulation, pattern), "SVG"});
   }
-  std::string output = flags.model.json ? FormatPatternJson(simulation, pattern)
-                                        : FormatPatternText(simulation, pattern);
+  std::string output = flags.model.json
+                           ? FormatPatternJson(simulation, pattern, stress_shown, exposure_shown)
+                           : FormatPatternText(simulation, pattern, stress_shown, exposure_shown);
   WriteFilesThenReport(files, output, flags.model.json);
   return 0;
 }
@@ -128,12 +185,26 @@ Command AddPatternCommand(CLI::App& program) {
       "--svg", flags->svg_path,
       "Also write both cuts to FILE as an SVG picture of two polar plots. Default: none.");
   flags->svg_option->type_name("FILE");
+  AddPowerFlags(*app, flags->power);
+  flags->mode_option = AddTextOption(
+      *app, "--mode", flags->mode, "ssb|cw|fm|digital|carrier",
+      "Emission of the exposure estimate (with --power); its duty factor (common practice): "
+      "ssb 0.2, cw 0.4, fm, digital and carrier 1.0. Default: carrier (the worst case).");
+  flags->duty_option = AddTextOption(
+      *app, "--duty", flags->duty, "D",
+      "Duty factor of the exposure estimate, 0 < D <= 1, instead of the mode's. Default: the "
+      "mode's.");
+  flags->transmit_fraction_option = AddTextOption(
+      *app, "--transmit-fraction", flags->transmit_fraction, "F",
+      "Share of the 30-minute averaging time spent transmitting (the rest listening), "
+      "0 < F <= 1. Default: 1 (the worst case).");
   app->footer(
       "Examples:\n"
       "  wirefield pattern models/campsite_vertical.wire\n"
       "  wirefield pattern models/hiking_club_dipole.wire --json\n"
       "  wirefield pattern models/campsite_vertical.wire --step 2 --svg vertical.svg --csv "
-      "vertical.csv");
+      "vertical.csv\n"
+      "  wirefield pattern models/hiking_club_dipole.wire --power 100W --mode ssb");
   return Command{app, [flags] { return RunPattern(*flags); }};
 }
 

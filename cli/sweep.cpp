@@ -26,6 +26,7 @@ namespace {
 struct SweepFlags {
   ModelFlags model;
   FrequencyFlags frequencies;
+  PowerFlags power;
   std::string threads;
   std::string csv_path, svg_path, s1p_path, measured_path;
   CLI::Option* threads_option = nullptr;
@@ -45,6 +46,7 @@ int RunSweepCommand(const SweepFlags& flags) {
                                   "a whole number of worker threads from 0 (one per core) to "
                                   "1024");
   }
+  options.stress = ChosenStress(flags.power);
   std::vector<Band> bands;
   const std::vector<SweepSpan> spans = ChosenSpans(flags.frequencies, "sweep", region, bands);
   std::optional<TouchstoneData> measured;
@@ -118,6 +120,7 @@ Command AddSweepCommand(CLI::App& program) {
       "SWR bandwidths and whether the band is covered.");
   AddModelFlags(*app, flags->model, /*with_frequency=*/false);
   AddFrequencyFlags(*app, flags->frequencies);
+  AddPowerFlags(*app, flags->power);
   flags->threads_option =
       AddTextOption(*app, "--threads", flags->threads, "N",
                     "Worker threads; each holds one matrix in memory. Default: 0, one "
@@ -143,7 +146,8 @@ Command AddSweepCommand(CLI::App& program) {
       "  wirefield sweep models/hiking_club_dipole.wire --band 20m\n"
       "  wirefield sweep models/hiking_club_dipole.wire --from 13.5MHz --to 15MHz --points 61 "
       "--svg dipole.svg\n"
-      "  wirefield sweep models/end_fed_field_kit.wire --band 40m --band 20m --region 2 --json");
+      "  wirefield sweep models/end_fed_field_kit.wire --band 40m --band 20m --region 2 --json\n"
+      "  wirefield sweep models/end_fed_field_kit.wire --band 40m --power 100W");
   return Command{app, [flags] { return RunSweepCommand(*flags); }};
 }
 

@@ -221,4 +221,7 @@ double ParseLengthArgument(const std::string& text, const std::string& option_na
 // Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
 double ParseInductanceArgument(const std::string& text, const std::string& option_name);
 
+// Parses a command-line voltage such as "500V", "2kV" or "750" (bare = volt); must be > 0.
+double ParseVoltageArgument(const std::string& text, const std::string& option_name);
+
 }  // namespace wirefield

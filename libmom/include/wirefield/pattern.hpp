@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "wirefield/simulation.hpp"
+#include "wirefield/stress.hpp"
 
 namespace wirefield {
 
@@ -82,8 +83,14 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
                              const PatternOptions& options = {});
 
 // Reports (the command-line program prints these).
-std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern);
-std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern);
+// With `stress` and `exposure` (a --power run), their sections (text) or keys "stress" and
+// "exposure" (JSON).
+std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern,
+                              const StressResult* stress = nullptr,
+                              const ExposureResult* exposure = nullptr);
+std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern,
+                              const StressResult* stress = nullptr,
+                              const ExposureResult* exposure = nullptr);
 std::string FormatPatternCsv(const PatternResult& pattern);
 // Two polar plots (elevation and azimuth cut, dB scale) as one self-contained SVG document.
 std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& pattern);

@@ -8,12 +8,16 @@
 #include <vector>
 
 #include "wirefield/simulation.hpp"
+#include "wirefield/stress.hpp"
 
 namespace wirefield {
 
 struct SweepOptions {
   // Worker threads; 0 = one per hardware core. More threads cost memory (one matrix each).
   int threads = 0;
+  // When set (a --power run), each point also gets its stress at that power (ComputeStress;
+  // a few percent of a point's time for the free-end potentials).
+  std::optional<StressOptions> stress;
 };
 
 struct SweepPoint {
@@ -24,11 +28,12 @@ struct SweepPoint {
   double return_loss_db = 0.0;
   double transformer_loss_fraction = 0.0;
   double line_loss_fraction = 0.0;
+  std::optional<StressResult> stress;  // with SweepOptions::stress
 };
 
 struct SweepResult {
   double z0_ohm = 50.0;
-  std::vector<SweepPoint> points;  // in the order of the frequencies given
+  std::vector<SweepPoint> points;     // in the order of the frequencies given
   std::vector<double> resonances_hz;  // zero crossings of the feed's X, interpolated
   double min_swr = 0.0;
   double min_swr_frequency_hz = 0.0;

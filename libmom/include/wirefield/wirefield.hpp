@@ -8,5 +8,6 @@
 #include "wirefield/pattern.hpp"
 #include "wirefield/report.hpp"
 #include "wirefield/simulation.hpp"
+#include "wirefield/stress.hpp"
 #include "wirefield/sweep.hpp"
 #include "wirefield/sweep_report.hpp"

@@ -89,6 +89,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
         p.return_loss_db = feed.return_loss_db;
         p.transformer_loss_fraction = feed.transformer_loss_fraction;
         p.line_loss_fraction = feed.line_loss_fraction;
+        if (options.stress) p.stress = ComputeStress(simulation.model(), r, *options.stress);
         out.z0_ohm = feed.z0_ohm;
       } catch (...) {
         std::lock_guard<std::mutex> lock(error_mutex);

@@ -1584,4 +1584,8 @@ double ParseInductanceArgument(const std::string& text, const std::string& optio
   return model::ParseArgument(text, option_name, model::InductanceQuantity(), "20uH");
 }
 
+double ParseVoltageArgument(const std::string& text, const std::string& option_name) {
+  return model::ParseArgument(text, option_name, model::VoltageQuantity(), "500V or 2kV");
+}
+
 }  // namespace wirefield

@@ -38,6 +38,20 @@ Abcd TransformerAbcd(const TransformerSpec& t, double frequency_hz) {
   return m * IdealTransformer(t.secondary_turns / t.primary_turns);
 }
 
+const TransformerSpec* FindTransformer(const Model& model, const std::string& feed) {
+  for (const TransformerSpec& t : model.transformers) {
+    if (t.feed == feed) return &t;
+  }
+  return nullptr;
+}
+
+const FeedLineSpec* FindFeedLine(const Model& model, const std::string& feed) {
+  for (const FeedLineSpec& l : model.feed_lines) {
+    if (l.feed == feed) return &l;
+  }
+  return nullptr;
+}
+
 ChainResult EvaluateChain(const TransformerSpec* transformer, const FeedLineSpec* line,
                           Complex z_antenna_ohm, double frequency_hz, double z0_ohm) {
   if (!(frequency_hz > 0.0) || !(z0_ohm > 0.0) || !std::isfinite(z_antenna_ohm.real()) ||
@@ -102,15 +116,9 @@ ChainResult EvaluateFeedChain(const Model& model, int feed_index, Complex z_ante
                     feed_index, model.feeds.size()));
   }
   const std::string& feed = model.feeds[static_cast<size_t>(feed_index)].name;
-  const TransformerSpec* transformer = nullptr;
-  for (const TransformerSpec& t : model.transformers) {
-    if (t.feed == feed) transformer = &t;
-  }
-  const FeedLineSpec* line = nullptr;
-  for (const FeedLineSpec& l : model.feed_lines) {
-    if (l.feed == feed) line = &l;
-  }
-  return network::EvaluateChain(transformer, line, z_antenna_ohm, frequency_hz, z0_ohm);
+  return network::EvaluateChain(network::FindTransformer(model, feed),
+                                network::FindFeedLine(model, feed), z_antenna_ohm, frequency_hz,
+                                z0_ohm);
 }
 
 }  // namespace wirefield

@@ -4,6 +4,8 @@
 // frequency, Z0; output: ChainResult. See docs/numerics.md, "Feed chain".
 #pragma once
 
+#include <string>
+
 #include "network/abcd.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"
@@ -17,6 +19,10 @@ std::optional<double> MagnetizingInductanceH(const TransformerSpec& t);
 // The transformer as one two-port at that frequency (transmitter side first):
 // shunt jwC (compensation) * series jwL (leakage) * shunt 1/R + 1/(jwL_m) (core) * ideal n.
 Abcd TransformerAbcd(const TransformerSpec& t, double frequency_hz);
+
+// The transformer and the feed line at the feed of that name, or nullptr when it has none.
+const TransformerSpec* FindTransformer(const Model& model, const std::string& feed);
+const FeedLineSpec* FindFeedLine(const Model& model, const std::string& feed);
 
 // The chain of a feed with an optional transformer and an optional line (nullptr: absent).
 ChainResult EvaluateChain(const TransformerSpec* transformer, const FeedLineSpec* line,

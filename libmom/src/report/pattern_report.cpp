@@ -177,7 +177,8 @@ nlohmann::json OptionalJson(const std::optional<double>& value) {
 }  // namespace
 }  // namespace report
 
-std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern) {
+std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern,
+                              const StressResult* stress, const ExposureResult* exposure) {
   using report::Align;
   using report::AngleText;
   using report::GainText;
@@ -297,6 +298,8 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
       "\nGains are relative to the power delivered to the feed terminals (dBi), so losses in "
       "loads,\nwires and ground lower them. Elevation is measured up from the horizon, azimuth "
       "from +x\ntoward +y. Full cuts: --csv FILE or --svg FILE.\n";
+  if (stress != nullptr) out += FormatStressText(*stress);
+  if (exposure != nullptr) out += FormatExposureText(*exposure);
   out +=
       "Caution: in the direction of maximum gain the field of a transmitting antenna is "
       "strongest;\nnear the antenna it can exceed RF exposure limits, and wire ends and loads "
@@ -305,7 +308,8 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   return out;
 }
 
-std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern) {
+std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern,
+                              const StressResult* stress, const ExposureResult* exposure) {
   report::CheckPattern(pattern);
   nlohmann::json doc;
   doc["model"] = simulation.model().file;
@@ -330,6 +334,8 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["warnings"] = nlohmann::json::array();
   for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
   for (const Warning& warning : pattern.warnings) doc["warnings"].push_back(ToString(warning));
+  if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
+  if (exposure != nullptr) doc["exposure"] = nlohmann::json::parse(FormatExposureJson(*exposure));
   return doc.dump(2) + "\n";
 }
 

@@ -147,7 +147,8 @@ nlohmann::json ComplexJson(Complex value) {
 }  // namespace
 }  // namespace report
 
-std::string FormatSolveText(const Simulation& simulation, const SolveResult& result) {
+std::string FormatSolveText(const Simulation& simulation, const SolveResult& result,
+                            const StressResult* stress) {
   using report::Align;
   using report::Number;
   using report::TextTable;
@@ -222,6 +223,10 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
       "powers scale with V^2.\n";
 
   const double total_w = report::TotalFeedPower(result);
+  if (stress != nullptr) {
+    out += FormatStressText(*stress);
+    return out;
+  }
   if (total_w > 0.0) {
     const double scale = std::sqrt(report::kScaledPower_w / total_w);
     out += fmt::format("At {:.0f} W into the feeds (currents and voltages above x {}):\n",
@@ -245,7 +250,8 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   return out;
 }
 
-std::string FormatSolveJson(const Simulation& simulation, const SolveResult& result) {
+std::string FormatSolveJson(const Simulation& simulation, const SolveResult& result,
+                            const StressResult* stress) {
   report::CheckResult(result);
   nlohmann::json doc;
   doc["model"] = simulation.model().file;
@@ -284,6 +290,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   }
   doc["warnings"] = nlohmann::json::array();
   for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   return doc.dump(2) + "\n";
 }
 

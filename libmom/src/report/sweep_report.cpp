@@ -31,6 +31,15 @@ void CheckFinite(double value, const std::string& what) {
   }
 }
 
+// The stress of every point of a --power sweep (empty without --power).
+std::vector<StressResult> PointStress(const SweepResult& sweep) {
+  std::vector<StressResult> all;
+  for (const SweepPoint& p : sweep.points) {
+    if (p.stress) all.push_back(*p.stress);
+  }
+  return all;
+}
+
 std::string Mhz(double frequency_hz) { return fmt::format("{:.4f}", frequency_hz / 1e6 + 0.0); }
 
 std::string Khz(double frequency_hz) { return fmt::format("{:.1f}", frequency_hz / 1e3 + 0.0); }
@@ -245,6 +254,8 @@ std::string FormatSweepText(const SweepReport& report) {
           "lie\n  outside it and the shift says little; sweep and measure over a wider range\n";
     }
   }
+  const std::vector<StressResult> stress = report::PointStress(report.sweep);
+  if (!stress.empty()) out += FormatStressPeaksText(HighestStress(stress), stress.front().power_w);
   out += report::WarningsSection(report.warnings);
   out +=
       "\nBand edges are the ITU Radio Regulations' allocations (Article 5, Edition of 2020); "
@@ -310,6 +321,11 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["threads_used"] = sweep.threads_used;
   doc["elapsed_s"] = sweep.elapsed_s;
   doc["warnings"] = report::WarningsJson(report.warnings);
+  const std::vector<StressResult> stress = report::PointStress(report.sweep);
+  if (!stress.empty()) {
+    doc["stress"] =
+        nlohmann::json::parse(FormatStressPeaksJson(HighestStress(stress), stress.front().power_w));
+  }
   return doc.dump(2) + "\n";
 }
 
