@@ -2,11 +2,15 @@
 // `let` values (--vary) and a sweep's frequencies (--band or --from/--to), one row per grid
 // point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
 // Flags -> BatchOptions -> RunBatchFile -> FormatBatch* -> stdout and --csv (written whole).
+// Ctrl-C (SIGINT) stops the grid after the rows in flight: their rows go to CSV.partial,
+// the CSV itself is left as it was, and the exit code is 130.
 #include "wirefield/batch.hpp"
 
 #include <fmt/format.h>
+#include <signal.h>
 #include <unistd.h>
 
+#include <atomic>
 #include <cstdio>
 #include <memory>
 #include <string>
@@ -31,6 +35,62 @@ struct BatchFlags {
   CLI::Option* threads_option = nullptr;
   CLI::Option* csv_option = nullptr;
 };
+
+// Exit code of a run stopped by Ctrl-C: 128 + SIGINT, as a shell reports it.
+constexpr int kExitInterrupted = 128 + SIGINT;
+
+// Set by the SIGINT handler; read by the batch's workers before each row. A lock-free atomic,
+// so the handler may write it.
+std::atomic<bool> interrupt_requested{false};
+static_assert(std::atomic<bool>::is_always_lock_free);
+
+extern "C" void OnInterrupt(int /*signal*/) {
+  interrupt_requested.store(true);
+  static constexpr char kNote[] =
+      "\nbatch: interrupted; finishing the rows in flight (Ctrl-C again stops at once)\n";
+  // write() and signal() are async-signal-safe; a second Ctrl-C gets the default action.
+  [[maybe_unused]] const ssize_t ignored = ::write(STDERR_FILENO, kNote, sizeof kNote - 1);
+  ::signal(SIGINT, SIG_DFL);
+}
+
+// Installs OnInterrupt for SIGINT while alive; restores the previous action after.
+class InterruptHandler {
+ public:
+  InterruptHandler() {
+    struct sigaction action {};
+    action.sa_handler = OnInterrupt;
+    sigemptyset(&action.sa_mask);
+    installed_ = ::sigaction(SIGINT, &action, &previous_) == 0;
+  }
+  ~InterruptHandler() {
+    if (installed_) ::sigaction(SIGINT, &previous_, nullptr);
+  }
+  InterruptHandler(const InterruptHandler&) = delete;
+  InterruptHandler& operator=(const InterruptHandler&) = delete;
+
+ private:
+  struct sigaction previous_ {};
+  bool installed_ = false;
+};
+
+// After Ctrl-C: the finished rows to CSV.partial (when --csv), a note on stderr, exit 130.
+int ReportInterrupted(const BatchFlags& flags, const BatchResult& result) {
+  const int finished = static_cast<int>(result.rows.size());
+  if (!Given(flags.csv_option)) {
+    fmt::print(stderr,
+               "batch: interrupted after {} of {} rows; nothing was written (with --csv FILE "
+               "the finished rows go to FILE.partial)\n",
+               finished, result.rows_planned);
+    return kExitInterrupted;
+  }
+  const std::string partial_path = flags.csv_path + ".partial";
+  WriteFilesAtomically({OutputFile{partial_path, FormatBatchCsv(result), "partial CSV"}});
+  fmt::print(stderr,
+             "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
+             "column gives each row's place in the grid); {} was not written\n",
+             finished, result.rows_planned, partial_path, flags.csv_path);
+  return kExitInterrupted;
+}
 
 // Progress on a terminal only: "batch: [#######.............] 12/40 rows", rewritten in place.
 void ShowProgress(int done, int total) {
@@ -72,14 +132,17 @@ int RunBatchCommand(const BatchFlags& flags) {
                                   "1024");
   }
   options.allow_large = flags.yes_large;
+  options.cancel = &interrupt_requested;
 
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
   paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
+  const InterruptHandler on_interrupt;
   const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
     if (show_progress) ShowProgress(done, total);
   });
   PrintWarnings(result.warnings);
+  if (result.interrupted) return ReportInterrupted(flags, result);
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;

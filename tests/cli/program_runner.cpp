@@ -92,8 +92,12 @@ ProgramRun RunWirefield(const std::vector<std::string>& args) {
     ::dup2(in_fd, 0);
     ::dup2(out_fd, 1);
     ::dup2(err_fd, 2);
+#ifndef WIREFIELD_SANITIZED
+    // AddressSanitizer reserves terabytes of address space for its shadow memory, so a
+    // sanitized build runs without this limit (its own allocator reports a runaway instead).
     const rlimit memory{kRunMemoryLimit_bytes, kRunMemoryLimit_bytes};
     ::setrlimit(RLIMIT_AS, &memory);
+#endif
     ::alarm(kRunTimeLimit_s);
     ::execv(argv[0], argv.data());
     ::_exit(127);

@@ -5,6 +5,7 @@
 // libmom/src/report/batch_report.cpp).
 #pragma once
 
+#include <atomic>
 #include <functional>
 #include <optional>
 #include <string>
@@ -83,6 +84,10 @@ struct BatchOptions {
   int threads = 0;
   // Run grids of more than kMaxBatchRows rows (otherwise InputError before any row).
   bool allow_large = false;
+  // Asks the run to stop early (the CLI sets it on Ctrl-C; null: never). Once it reads true,
+  // no new row starts; rows in flight finish and the result holds the rows finished so far,
+  // with BatchResult::interrupted set. Costs one atomic load per row.
+  const std::atomic<bool>* cancel = nullptr;
 };
 
 // What one row does in one span of its sweep (a band, or the --from/--to range): the sweep's
@@ -142,6 +147,10 @@ struct BatchResult {
   double pattern_step_deg = 2.0;
   double z0_ohm = 50.0;
   std::vector<BatchRow> rows;  // in grid order, whatever the thread count
+  // True when BatchOptions::cancel stopped the run: `rows` then holds only the rows that
+  // finished (in grid order; BatchRow::index says where each sits), of rows_planned.
+  bool interrupted = false;
+  int rows_planned = 0;
   int rows_failed = 0;
   int threads_used = 1;
   double elapsed_s = 0.0;
@@ -155,8 +164,8 @@ double BatchRowCount(const BatchOptions& options);
 // before any row: the model parses with the --set overrides, every varied name is a `let` of
 // the model, the grid size, the angles; those throw InputError. A row that fails (InputError
 // or ComputationError from parsing, meshing or solving) keeps its reason and the rest go on.
-// When every row fails, throws the first row's error. progress(done, total) is called after
-// each row from the worker threads, one call at a time.
+// When every row fails, throws the first row's error (not when interrupted). progress(done,
+// total) is called after each row from the worker threads, one call at a time.
 BatchResult RunBatch(const std::string& model_text, const std::string& file_name,
                      const BatchOptions& options,
                      const std::function<void(int, int)>& progress = {});

@@ -522,8 +522,10 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
   std::exception_ptr fatal;
   std::mutex mutex;
   int done = 0;
+  auto cancelled = [&options] { return options.cancel != nullptr && options.cancel->load(); };
+  std::vector<char> finished(plans.size(), 0);  // written by the row's worker, read after join
   auto work = [&] {
-    while (!stop) {
+    while (!stop && !cancelled()) {
       const size_t i = next++;
       if (i >= plans.size()) return;
       BatchRow& row = result.rows[i];
@@ -544,6 +546,7 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
           row.values = plans[i].values;
           row.ground = plans[i].ground->spec ? plans[i].ground->name : OwnGroundName(base.ground);
         }
+        finished[i] = 1;
         std::lock_guard<std::mutex> lock(mutex);
         ++done;
         if (progress) progress(done, total);
@@ -562,6 +565,20 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
     for (std::thread& t : pool) t.join();
   }
   if (fatal) std::rethrow_exception(fatal);
+  result.rows_planned = total;
+  if (std::find(finished.begin(), finished.end(), 0) != finished.end()) {
+    // Stopped by BatchOptions::cancel: keep the rows that finished, in grid order.
+    result.interrupted = true;
+    std::vector<BatchRow> kept;
+    std::vector<std::exception_ptr> kept_errors;
+    for (size_t i = 0; i < plans.size(); ++i) {
+      if (!finished[i]) continue;
+      kept.push_back(std::move(result.rows[i]));
+      kept_errors.push_back(row_errors[i]);
+    }
+    result.rows = std::move(kept);
+    row_errors = std::move(kept_errors);
+  }
 
   std::set<std::string> seen;
   for (const BatchRow& row : result.rows) {
@@ -570,7 +587,9 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
       if (seen.insert(ToString(w)).second) result.warnings.push_back(w);
     }
   }
-  if (result.rows_failed == total) std::rethrow_exception(row_errors.front());
+  if (!result.interrupted && result.rows_failed == total) {
+    std::rethrow_exception(row_errors.front());
+  }
   result.elapsed_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return result;
@@ -611,9 +630,27 @@ BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOpti
   merged.rows_failed = 0;
   merged.elapsed_s = 0.0;
   merged.warnings.clear();
+  merged.rows_planned = total;
+  merged.interrupted = false;
+  for (const BatchResult& r : results) merged.interrupted = merged.interrupted || r.interrupted;
   const size_t ground_count = std::max<size_t>(1, merged.grounds.size());
-  const size_t per_ground = results.front().rows.size() / ground_count;
-  for (size_t g = 0; g < ground_count; ++g) {
+  const size_t per_ground = static_cast<size_t>(per_model) / ground_count;
+  if (merged.interrupted) {
+    // Some rows never ran: keep the finished ones, numbered as in the interleaved grid below.
+    for (size_t m = 0; m < results.size(); ++m) {
+      for (BatchRow row : results[m].rows) {
+        const size_t g = static_cast<size_t>(row.index) / per_ground;
+        const size_t s = static_cast<size_t>(row.index) % per_ground;
+        row.values.insert(row.values.begin(), model_variable.values[m]);
+        row.index = static_cast<int>((g * results.size() + m) * per_ground + s);
+        if (row.error) ++merged.rows_failed;
+        merged.rows.push_back(std::move(row));
+      }
+    }
+    std::sort(merged.rows.begin(), merged.rows.end(),
+              [](const BatchRow& a, const BatchRow& b) { return a.index < b.index; });
+  }
+  for (size_t g = 0; g < ground_count && !merged.interrupted; ++g) {
     for (size_t m = 0; m < results.size(); ++m) {
       for (size_t s = 0; s < per_ground; ++s) {
         BatchRow row = results[m].rows[g * per_ground + s];

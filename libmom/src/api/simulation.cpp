@@ -125,6 +125,8 @@ SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
   t0 = std::chrono::steady_clock::now();
   const solve::DenseSolution sol = solve::SolveDense(z, v);
   r.solve_time_s = Seconds(t0);
+  r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond below 1e-14
+  r.relative_residual = sol.relative_residual;
 
   const double z0 = model.z0_ohm.value_or(kDefaultZ0Ohm);
   for (size_t f = 0; f < model.feeds.size(); ++f) {

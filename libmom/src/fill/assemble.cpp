@@ -24,6 +24,11 @@ struct PieceRef {
   double alpha, beta;
 };
 
+// Blocks of observation segments the fill is cut into (at most this many threads help). Fixed,
+// so that the order of every sum, and with it the matrix to the last bit, does not depend on
+// the thread count. 32 serves the cores of a workstation; more blocks would only keep more
+// rows aside (about two rows of n entries per block).
+constexpr int kFillBlocks = 32;
 // Below this admittance relative to its largest branch, a parallel load counts as open.
 constexpr double kOpenRelativeAdmittance = 1e-12;
 constexpr double kOpenStandInOhm = 1e12;
@@ -141,18 +146,21 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
 
   // Parallel fill. Z = sum over ordered segment pairs (i, j) of their contributions F_ij, and
   // F_ji = F_ij^T, so Z = W + W^T with W = sum over i < j of F_ij plus half of each F_ii: only
-  // pairs i <= j are integrated. Thread t takes the observation segments of block t (blocks of
-  // equal triangle area) and writes the rows of the bases on them; a basis with pieces in two
-  // blocks (block edges, junctions) has its row kept aside by each thread and added after.
-  const int threads = std::clamp(fill_threads, 1, std::max(1, ns));
-  std::vector<int> block_start(threads + 1);
-  for (int t = 0; t <= threads; ++t) {
+  // pairs i <= j are integrated. The observation segments are cut into kFillBlocks blocks of
+  // equal triangle area; block t writes the rows of the bases on it, and a basis with pieces
+  // in two blocks (block edges, junctions) has its row kept aside by each block and added
+  // after, in block order. The blocks do not depend on the thread count, so neither does any
+  // rounding: the matrix is bit-identical for every fill_threads.
+  const int blocks = std::clamp(kFillBlocks, 1, std::max(1, ns));
+  const int threads = std::clamp(fill_threads, 1, blocks);
+  std::vector<int> block_start(blocks + 1);
+  for (int t = 0; t <= blocks; ++t) {
     block_start[t] = static_cast<int>(
-        std::lround(ns * (1.0 - std::sqrt(std::max(0.0, 1.0 - static_cast<double>(t) / threads)))));
+        std::lround(ns * (1.0 - std::sqrt(std::max(0.0, 1.0 - static_cast<double>(t) / blocks)))));
   }
-  block_start[threads] = ns;
+  block_start[blocks] = ns;
   std::vector<int> block_of(ns);
-  for (int t = 0; t < threads; ++t) {
+  for (int t = 0; t < blocks; ++t) {
     for (int s = block_start[t]; s < block_start[t + 1]; ++s) block_of[s] = t;
   }
   std::vector<int> owner(n, -1);  // the block that writes the row directly, or -1 (kept aside)
@@ -244,13 +252,17 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
       }
     }
   };
-  std::vector<SpillRows> spills(threads);
+  std::vector<SpillRows> spills(blocks);
+  // Thread t fills blocks t, t + threads, ...: the blocks have equal work, so this balances.
+  auto run = [&](int t) {
+    for (int block = t; block < blocks; block += threads) work(block, &spills[block]);
+  };
   if (threads == 1) {
-    work(0, &spills[0]);
+    run(0);
   } else {
     std::vector<std::thread> pool;
-    for (int t = 1; t < threads; ++t) pool.emplace_back(work, t, &spills[t]);
-    work(0, &spills[0]);
+    for (int t = 1; t < threads; ++t) pool.emplace_back(run, t);
+    run(0);
     for (std::thread& th : pool) th.join();
   }
   for (const SpillRows& spill : spills) {

@@ -36,7 +36,7 @@ struct NearFieldCache {
 NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh);
 
 // The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric, filled by
-// fill_threads threads (the result is the same to rounding for any count).
+// fill_threads threads (at most 32 help; the matrix is bit-identical for any count).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
                                    const NearFieldCache& cache, int fill_threads = 1);
 // Same, building the cache on the way (single solves, tests).

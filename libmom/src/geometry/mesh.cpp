@@ -397,8 +397,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   }
 
   // Ports: the bases whose pieces touch the gap, signed by their current along the wire.
-  auto make_port = [&](const WirePointSpec& at, const std::string& what, const std::string& name,
-                       const SourceLocation& where) {
+  auto make_port = [&](const WirePointSpec& at, const std::string& what, const std::string& name) {
     const int w = FindWire(model, at.wire, at.location);
     const double pos = PositionOnWire(at, layout[w].length_m);
     const auto& nodes = layout[w].nodes_m;
@@ -411,7 +410,8 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       const bool at_end = k == n;
       const int joint = end_joint[2 * w + (at_end ? 1 : 0)];
       if (joints[joint].size() < 2 && !joint_on_ground[joint]) {
-        throw InputError(where,
+        // At the WIRE@POS text: the position is what to change.
+        throw InputError(at.location,
                          fmt::format("{} '{}' is at the free {} of wire '{}', where nothing is "
                                      "connected: move it inside the wire (for example {}@50%) or "
                                      "join another wire{} there",
@@ -438,10 +438,8 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
     }
     return port;
   };
-  for (const auto& f : model.feeds)
-    mesh.feed_ports.push_back(make_port(f.at, "feed", f.name, f.location));
-  for (const auto& l : model.loads)
-    mesh.load_ports.push_back(make_port(l.at, "load", l.name, l.location));
+  for (const auto& f : model.feeds) mesh.feed_ports.push_back(make_port(f.at, "feed", f.name));
+  for (const auto& l : model.loads) mesh.load_ports.push_back(make_port(l.at, "load", l.name));
   for (size_t i = 0; i < mesh.feed_ports.size(); ++i) {
     for (size_t j = 0; j < i; ++j) {
       if (mesh.feed_ports[i].segment == mesh.feed_ports[j].segment &&

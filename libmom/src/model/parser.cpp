@@ -31,9 +31,17 @@ namespace wirefield {
 namespace model {
 namespace {
 
-// Largest model file read. Real models are a few kB; this only keeps a stray multi-gigabyte
-// file from exhausting memory before its first line is even checked.
-constexpr size_t kMaxFileBytes = size_t{64} << 20;
+// Largest model file read. Real models are a few kB (the largest bundled one under 4 kB);
+// 16 MiB holds some 10^5 statements and keeps a stray multi-gigabyte file from exhausting
+// memory before its first line is even checked.
+constexpr size_t kMaxFileBytes = size_t{16} << 20;
+// Most wires a model may define: each takes at least 3 segments, so 10 000 wires already
+// ask for 30 000 unknowns, a 13 GiB matrix. More is a generated file gone wrong.
+constexpr size_t kMaxWires = 10000;
+// Most statements a model may hold (lines that are not blank or comments). A hand-made model
+// has tens; generated ones of 200 000 `let`s parse in well under a second (the model stage's
+// tests), and 1 000 000 bounds the parse time and memory of anything larger.
+constexpr size_t kMaxStatements = 1000000;
 // Most segments one wire may ask for: 16 * N^2 bytes of complex matrix is then 149 GiB.
 constexpr double kMaxSegmentsPerWire = 100000.0;
 // Bytes per matrix entry (a complex double), for the memory estimate in messages.
@@ -78,7 +86,14 @@ class Parser {
       source_ = LineSource{file_, static_cast<int>(i) + 1, 0};
       tokens_ = LexLine(lines[i], source_);
       pos_ = 0;
-      if (Peek().kind != TokenKind::kEnd) Statement();
+      if (Peek().kind == TokenKind::kEnd) continue;
+      if (++statements_ > kMaxStatements) {
+        throw Error(Peek(), fmt::format("the model has more than {} statements; a model is "
+                                        "made by hand or by a script, and this one looks like a "
+                                        "generated file gone wrong",
+                                        kMaxStatements));
+      }
+      Statement();
     }
     for (const auto& [name, entry] : overrides_) {
       if (entry.used) continue;
@@ -458,6 +473,13 @@ class Parser {
   }
 
   void AddWire(WireSpec wire) {
+    if (model_.wires.size() >= kMaxWires) {
+      throw InputError(wire.location,
+                       fmt::format("wire '{}' is wire number {}; a model may have at most {} "
+                                   "wires (each needs at least 3 segments, and the matrix "
+                                   "grows as the square of their sum)",
+                                   Shorten(wire.name), model_.wires.size() + 1, kMaxWires));
+    }
     wire_lines_[wire.name] = wire.location;
     wire_index_[wire.name] = model_.wires.size();
     model_.wires.push_back(std::move(wire));
@@ -1473,6 +1495,7 @@ class Parser {
   LineSource source_;
   std::vector<Token> tokens_;
   size_t pos_ = 0;
+  size_t statements_ = 0;
 };
 
 // A command-line quantity: one expression of the quantity q (bare numbers in its SI unit).

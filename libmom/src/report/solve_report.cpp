@@ -41,6 +41,8 @@ void CheckFinite(Complex value, const std::string& what) {
 // Checks every number either report prints, so both refuse the same results.
 void CheckResult(const SolveResult& result) {
   CheckFinite(result.frequency_hz, "frequency");
+  CheckFinite(result.condition_number, "condition number of the matrix");
+  CheckFinite(result.relative_residual, "residual of the solve");
   for (const FeedResult& feed : result.feeds) {
     const std::string who = fmt::format("value at feed '{}'", feed.name);
     CheckFinite(feed.impedance_ohm, "impedance " + who);
@@ -258,6 +260,8 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   doc["frequency_hz"] = result.frequency_hz;
   doc["unknowns"] = result.unknowns;
   doc["segments"] = result.segments;
+  doc["condition_number"] = result.condition_number;
+  doc["relative_residual"] = result.relative_residual;
   doc["ground"] = report::GroundJson(simulation.model().ground);
   doc["feeds"] = nlohmann::json::array();
   for (const FeedResult& feed : result.feeds) {

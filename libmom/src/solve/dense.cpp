@@ -50,6 +50,7 @@ DenseSolution SolveDense(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
         rcond));
   }
   DenseSolution out;
+  out.reciprocal_condition = rcond;
   out.currents = lu.solve(v);
   const double vnorm = v.norm();
   out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
