@@ -16,6 +16,8 @@ namespace wirefield {
 
 using Complex = std::complex<double>;
 
+struct SimulationAccess;  // the library's own stages (libmom/src/api/simulation_access.hpp)
+
 struct SimulationOptions {
   // Highest frequency the mesh must serve, Hz. Default: the model's frequency. The mesher
   // picks segment counts for this frequency; higher means more unknowns (slower, finer).
@@ -42,7 +44,7 @@ struct FeedResult {
   Complex voltage_v;      // the source voltage
   double swr = 0.0;       // against z0_ohm
   double z0_ohm = 50.0;
-  double power_w = 0.0;   // 0.5 Re(V I*): power delivered to the antenna terminals
+  double power_w = 0.0;  // 0.5 Re(V I*): power delivered to the antenna terminals
   // At the transmitter, through the feed's transformer and line (equal to the terminals'
   // values when the feed has neither). swr above is against z0_ohm at this point.
   Complex transmitter_impedance_ohm;
@@ -117,6 +119,7 @@ class Simulation {
   const std::vector<Warning>& warnings() const;
 
  private:
+  friend struct SimulationAccess;
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };
