@@ -32,8 +32,10 @@ run: build
 test: build
 	cd $(BUILD) && ctest --output-on-failure -j $(JOBS)
 
+# The summary table of docs/performance.md (a few minutes); the single-stage Google Benchmark
+# programs are $(BUILD)/bin/wirefield_bench.
 bench: build
-	$(BUILD)/bin/wirefield_bench
+	$(BUILD)/bin/wirefield_perf
 
 format:
 	clang-format -i $$(git ls-files '*.cpp' '*.hpp')

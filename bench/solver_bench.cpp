@@ -1,5 +1,6 @@
-// Benchmarks (make bench): the whole solve of a 20 m band dipole, the matrix fill, and the
-// dense solve by Eigen against LAPACK's zgesv on the same matrix (the limit to compare with).
+// Benchmarks (build/bin/wirefield_bench; make bench prints the summary table instead): the
+// whole solve of a 20 m band dipole, the matrix fill, and the dense solve (ours, LAPACK's zgesv
+// and the symmetric zsytrf path on the same matrix).
 #include <benchmark/benchmark.h>
 
 #include <complex>
@@ -97,6 +98,16 @@ void BM_SolveLapack(benchmark::State& state) {
   }
 }
 BENCHMARK(BM_SolveLapack)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
+
+// The symmetric factorization alone (zsytrf, zsycon, zsytrs), as SolveDense uses it.
+void BM_SolveSymmetric(benchmark::State& state) {
+  const wirefield::Model m = LongWire(static_cast<int>(state.range(0)) + 1);
+  const wirefield::geometry::Mesh mesh = MeshOf(m);
+  const Eigen::MatrixXcd z = wirefield::fill::AssembleImpedance(mesh, 14.2e6);
+  const Eigen::VectorXcd v = wirefield::fill::AssembleExcitation(mesh, m);
+  for (auto _ : state) benchmark::DoNotOptimize(wirefield::solve::SolveSymmetric(z, v));
+}
+BENCHMARK(BM_SolveSymmetric)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
 #endif
 
 // Fill and solve of 1000 unknowns together (the 2 s budget on one core).

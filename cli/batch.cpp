@@ -28,6 +28,7 @@ struct BatchFlags {
   std::string grounds, elevation, pattern_freq, pattern_step, threads, csv_path;
   std::vector<std::string> vary, at, compare;
   bool yes_large = false;
+  bool exact = false;
   CLI::Option* grounds_option = nullptr;
   CLI::Option* elevation_option = nullptr;
   CLI::Option* pattern_freq_option = nullptr;
@@ -133,6 +134,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   }
   options.allow_large = flags.yes_large;
   options.cancel = &interrupt_requested;
+  options.interpolate = !flags.exact;
 
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
@@ -208,6 +210,10 @@ Command AddBatchCommand(CLI::App& program) {
       AddTextOption(*app, "--csv", flags->csv_path, "FILE",
                     "Also write the rows to FILE as CSV (columns in docs/commands.md). "
                     "Default: none.");
+  app->add_flag("--exact", flags->exact,
+                "Fill each row's matrix exactly at every sweep point instead of interpolating "
+                "it between exact fills up to 10% apart (which adds under 0.2% to the "
+                "impedance). Default: off; several times slower.");
   app->add_flag("--yes-large", flags->yes_large,
                 fmt::format("Run a grid of more than {} rows (each row is a sweep and a "
                             "pattern). Default: off, such a grid is refused.",

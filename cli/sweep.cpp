@@ -28,6 +28,7 @@ struct SweepFlags {
   FrequencyFlags frequencies;
   PowerFlags power;
   std::string threads;
+  bool exact = false;
   std::string csv_path, svg_path, s1p_path, measured_path;
   CLI::Option* threads_option = nullptr;
   CLI::Option* csv_option = nullptr;
@@ -47,6 +48,7 @@ int RunSweepCommand(const SweepFlags& flags) {
                                   "1024");
   }
   options.stress = ChosenStress(flags.power);
+  options.interpolate = !flags.exact;
   std::vector<Band> bands;
   const std::vector<SweepSpan> spans = ChosenSpans(flags.frequencies, "sweep", region, bands);
   std::optional<TouchstoneData> measured;
@@ -125,6 +127,10 @@ Command AddSweepCommand(CLI::App& program) {
       AddTextOption(*app, "--threads", flags->threads, "N",
                     "Worker threads; each holds one matrix in memory. Default: 0, one "
                     "per core.");
+  app->add_flag("--exact", flags->exact,
+                "Fill the matrix exactly at every point instead of interpolating it between "
+                "exact fills up to 10% apart (which adds under 0.2% to the impedance). "
+                "Default: off; several times slower on a long sweep.");
   flags->csv_option =
       AddTextOption(*app, "--csv", flags->csv_path, "FILE",
                     "Also write the points to FILE as CSV (columns in docs/commands.md). "

@@ -82,6 +82,9 @@ struct BatchOptions {
   // Worker threads; 0 = one per hardware core. Rows run in parallel (one matrix per worker);
   // with fewer rows than threads each row's sweep gets the spare threads.
   int threads = 0;
+  // Matrix interpolation in each row's sweep (SweepOptions::interpolate). Default true;
+  // false fills the matrix exactly at every point (the CLI's --exact), several times slower.
+  bool interpolate = true;
   // Run grids of more than kMaxBatchRows rows (otherwise InputError before any row).
   bool allow_large = false;
   // Asks the run to stop early (the CLI sets it on Ctrl-C; null: never). Once it reads true,

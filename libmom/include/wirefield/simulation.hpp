@@ -16,6 +16,8 @@ namespace wirefield {
 
 using Complex = std::complex<double>;
 
+struct SimulationAccess;  // the library's own stages (libmom/src/api/simulation_access.hpp)
+
 struct SimulationOptions {
   // Highest frequency the mesh must serve, Hz. Default: the model's frequency. The mesher
   // picks segment counts for this frequency; higher means more unknowns (slower, finer).
@@ -122,6 +124,7 @@ class Simulation {
   const std::vector<Warning>& warnings() const;
 
  private:
+  friend struct SimulationAccess;
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };

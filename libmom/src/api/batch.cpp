@@ -147,12 +147,14 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
   const Simulation simulation(model, sweep_mesh);
   SweepOptions sweep_options;
   sweep_options.threads = sweep_threads;
+  sweep_options.interpolate = options.interpolate;
   const SweepResult sweep = RunSpans(simulation, options.spans, sweep_options);
   row.unknowns = sweep.unknowns;
   row.resonances_hz = sweep.resonances_hz;
   row.min_swr = sweep.min_swr;
   row.min_swr_frequency_hz = sweep.min_swr_frequency_hz;
   if (!options.at_hz.empty()) {
+    sweep_options.interpolate = false;  // a few points: solved exactly
     const SweepResult at = RunSweep(simulation, options.at_hz, sweep_options);
     for (const SweepPoint& p : at.points) row.swr_at.emplace_back(p.frequency_hz, p.swr);
   }

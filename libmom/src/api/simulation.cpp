@@ -11,6 +11,7 @@
 #include <sstream>
 #include <thread>
 
+#include "api/simulation_access.hpp"
 #include "core/constants.hpp"
 #include "fill/assemble.hpp"
 #include "fill/conductor.hpp"
@@ -111,19 +112,44 @@ SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
     throw InputError({model.file, 0, 0},
                      fmt::format("the frequency must be positive, not {} Hz", frequency_hz));
   }
+  const auto t0 = std::chrono::steady_clock::now();
+  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field, fill_threads);
+  return SimulationAccess::SolveFilled(*this, frequency_hz, std::move(z), Seconds(t0));
+}
+
+const geometry::Mesh& SimulationAccess::Mesh(const Simulation& simulation) {
+  return simulation.impl_->mesh;
+}
+
+const fill::NearFieldCache& SimulationAccess::NearField(const Simulation& simulation) {
+  return simulation.impl_->near_field;
+}
+
+int SimulationAccess::FillThreads(const Simulation& simulation) {
+  const int asked = simulation.impl_->options.fill_threads;
+  return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+}
+
+SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double frequency_hz,
+                                          Eigen::MatrixXcd z, double fill_time_s) {
+  const Model& model = simulation.impl_->model;
+  const geometry::Mesh& mesh = simulation.impl_->mesh;
+  if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz)) {
+    throw InputError({model.file, 0, 0},
+                     fmt::format("the frequency must be positive, not {} Hz", frequency_hz));
+  }
   SolveResult r;
   r.frequency_hz = frequency_hz;
   r.unknowns = static_cast<int>(mesh.bases.size());
   r.segments = static_cast<int>(mesh.segments.size());
 
   auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field, fill_threads);
   fill::AddLoads(mesh, model, frequency_hz, &z);
   fill::AddConductorLoss(mesh, model, frequency_hz, &z);
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
-  r.fill_time_s = Seconds(t0);
+  r.fill_time_s = fill_time_s + Seconds(t0);
   t0 = std::chrono::steady_clock::now();
-  const solve::DenseSolution sol = solve::SolveDense(z, v);
+  const solve::DenseSolution sol = solve::SolveDense(std::move(z), v);
   r.solve_time_s = Seconds(t0);
   r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond below 1e-14
   r.relative_residual = sol.relative_residual;

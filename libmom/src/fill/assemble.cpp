@@ -41,6 +41,12 @@ void Symmetrize(PairMoments* m) {
   m->m01 = mixed;
 }
 
+// The matrix of the direct pairs, of the image pairs, or of both (their sum), to rounding
+// the same for any number of fill threads.
+Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_hz,
+                                  const NearFieldCache& cache, int fill_threads, bool direct,
+                                  bool images);
+
 }  // namespace
 
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
@@ -120,6 +126,24 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
 
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
                                    const NearFieldCache& cache, int fill_threads) {
+  return AssembleSelected(mesh, frequency_hz, cache, fill_threads, true, true);
+}
+
+ImpedanceParts AssembleImpedanceParts(const geometry::Mesh& mesh, double frequency_hz,
+                                      const NearFieldCache& cache, int fill_threads) {
+  ImpedanceParts parts;
+  parts.direct = AssembleSelected(mesh, frequency_hz, cache, fill_threads, true, false);
+  if (mesh.ground_images) {
+    parts.image = AssembleSelected(mesh, frequency_hz, cache, fill_threads, false, true);
+  }
+  return parts;
+}
+
+namespace {
+
+Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_hz,
+                                  const NearFieldCache& cache, int fill_threads, bool direct,
+                                  bool images) {
   const int n = static_cast<int>(mesh.bases.size());
   const int ns = static_cast<int>(mesh.segments.size());
   const double omega = 2.0 * core::kPi * frequency_hz;
@@ -227,10 +251,12 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
         const geometry::Segment& sj = mesh.segments[j];
         const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
         const double share = j == i ? 0.5 : 1.0;  // F_ii is counted twice by W + W^T
-        PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
-        if (j == i) Symmetrize(&m);
-        scatter(i, j, m, share * unit[i].dot(unit[j]), share);
-        if (!mesh.ground_images) continue;
+        if (direct) {
+          PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
+          if (j == i) Symmetrize(&m);
+          scatter(i, j, m, share * unit[i].dot(unit[j]), share);
+        }
+        if (!mesh.ground_images || !images) continue;
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
         PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
@@ -279,6 +305,8 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
   }
   return z;
 }
+
+}  // namespace
 
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
               Eigen::MatrixXcd* z) {

@@ -41,6 +41,15 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
                                    const NearFieldCache& cache, int fill_threads = 1);
 // Same, building the cache on the way (single solves, tests).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz);
+// The same matrix in two parts, Z = direct + image: the pairs of real segments, and the pairs
+// of a segment with an image segment (empty without a ground). Each part has its own
+// propagation phase, which the interpolation in frequency removes separately
+// (fill/interpolate.hpp). Costs one fill.
+struct ImpedanceParts {
+  Eigen::MatrixXcd direct, image;
+};
+ImpedanceParts AssembleImpedanceParts(const geometry::Mesh& mesh, double frequency_hz,
+                                      const NearFieldCache& cache, int fill_threads = 1);
 
 // Adds the loads of `model` to Z at their ports.
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,

@@ -188,8 +188,14 @@ std::string FormatSweepText(const SweepReport& report) {
   for (const SweepSpan& span : report.spans) {
     out += fmt::format("  points: {} {}\n", span.name, span.how);
   }
-  out += fmt::format("  {} unknowns, {} threads, {:.2f} s\n\n", sweep.unknowns, sweep.threads_used,
+  out += fmt::format("  {} unknowns, {} threads, {:.2f} s\n", sweep.unknowns, sweep.threads_used,
                      sweep.elapsed_s);
+  out += sweep.interpolated_points > 0
+             ? fmt::format(
+                   "  matrix: {} exact fills, interpolated in frequency between them "
+                   "(--exact fills at every point)\n\n",
+                   sweep.matrix_fills)
+             : fmt::format("  matrix: filled exactly at every point\n\n");
 
   report::TextTable table;
   table.AddColumn("f (MHz)", report::Align::kRight);
@@ -319,6 +325,8 @@ std::string FormatSweepJson(const SweepReport& report) {
   }
   doc["unknowns"] = sweep.unknowns;
   doc["threads_used"] = sweep.threads_used;
+  doc["matrix_fills"] = sweep.matrix_fills;
+  doc["interpolated"] = sweep.interpolated_points > 0;
   doc["elapsed_s"] = sweep.elapsed_s;
   doc["warnings"] = report::WarningsJson(report.warnings);
   const std::vector<StressResult> stress = report::PointStress(report.sweep);
