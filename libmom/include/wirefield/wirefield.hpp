@@ -10,3 +10,4 @@
 #include "wirefield/simulation.hpp"
 #include "wirefield/sweep.hpp"
 #include "wirefield/sweep_report.hpp"
+#include "wirefield/tune.hpp"
