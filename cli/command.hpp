@@ -114,6 +114,7 @@ Command AddPatternCommand(CLI::App& program);
 Command AddSweepCommand(CLI::App& program);
 Command AddBatchCommand(CLI::App& program);
 Command AddCoilCommand(CLI::App& program);
+Command AddTuneCommand(CLI::App& program);
 
 // A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
 struct OutputFile {

@@ -59,6 +59,7 @@ int Run(int argc, char** argv) {
   commands.push_back(wirefield::cli::AddSweepCommand(program));
   commands.push_back(wirefield::cli::AddBatchCommand(program));
   commands.push_back(wirefield::cli::AddCoilCommand(program));
+  commands.push_back(wirefield::cli::AddTuneCommand(program));
 
   try {
     program.parse(argc, argv);

@@ -172,6 +172,21 @@ struct FeedLineSpec {
   SourceLocation location;
 };
 
+// A `let` variable as the model defines it (after any --set override): its value in SI and
+// its dimension, for commands that vary it (`tune`).
+struct VariableSpec {
+  std::string name;
+  double value_si = 0.0;
+  // Exponents of m, kg, s, A; all zero for a plain number.
+  std::array<int, 4> dimension{};
+  // The SI unit of the dimension when the language names it: "m", "Hz", "ohm", "H", "F",
+  // "V"; "" for a plain number or an unnamed dimension (see quantity).
+  std::string unit;
+  // "a length (m)", "a plain number", ... as in diagnostics.
+  std::string quantity;
+  SourceLocation location;  // of the name in its `let`
+};
+
 struct Model {
   std::string file;  // as given by the caller
   std::vector<WireSpec> wires;
@@ -185,6 +200,7 @@ struct Model {
   std::vector<FeedLineSpec> feed_lines;       // at most one per feed
   std::vector<Warning> warnings;              // raised while parsing
   std::vector<std::string> variables;         // the names of its `let` statements, in order
+  std::vector<VariableSpec> variable_specs;   // the same variables with values, in order
 };
 
 // A --set NAME=VALUE override: VALUE is an expression of the model language.
@@ -217,6 +233,12 @@ double ParseResistanceArgument(const std::string& text, const std::string& optio
 
 // Parses a command-line length such as "28.5mm", "1.1 in" or "0.0285" (bare = metre); must be > 0.
 double ParseLengthArgument(const std::string& text, const std::string& option_name);
+
+// Parses a command-line value for `variable`: an expression of its dimension, or a bare number
+// in its SI unit (only a bare number for a plain variable); may be zero or negative. Throws
+// InputError naming option_name when it is malformed or of another dimension.
+double ParseVariableArgument(const std::string& text, const std::string& option_name,
+                             const VariableSpec& variable);
 
 // Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
 double ParseInductanceArgument(const std::string& text, const std::string& option_name);

@@ -11,3 +11,4 @@
 #include "wirefield/stress.hpp"
 #include "wirefield/sweep.hpp"
 #include "wirefield/sweep_report.hpp"
+#include "wirefield/tune.hpp"

@@ -58,6 +58,22 @@ const std::vector<std::string>& Keywords() {
   return kKeywords;
 }
 
+// The public description of a `let` variable: value, dimension and its SI unit when named.
+VariableSpec DescribeVariable(const std::string& name, const Value& value,
+                              const SourceLocation& location) {
+  VariableSpec spec;
+  spec.name = name;
+  spec.value_si = value.si;
+  spec.dimension = value.dimension.exponent;
+  spec.quantity = Describe(value.dimension);
+  for (const Quantity* q : {&LengthQuantity(), &FrequencyQuantity(), &ResistanceQuantity(),
+                            &InductanceQuantity(), &CapacitanceQuantity(), &VoltageQuantity()}) {
+    if (q->dimension == value.dimension) spec.unit = std::string(q->si_unit);
+  }
+  spec.location = location;
+  return spec;
+}
+
 struct OverrideEntry {
   std::string expression;
   bool used = false;
@@ -292,6 +308,7 @@ class Parser {
     }
     scope_.Define(Scope::Variable{name, value, Loc(name_token), false});
     model_.variables.push_back(name);
+    model_.variable_specs.push_back(DescribeVariable(name, value, Loc(name_token)));
   }
 
   Point ParsePoint(const std::string& context, const std::string& which) {
@@ -1601,6 +1618,32 @@ double ParseResistanceArgument(const std::string& text, const std::string& optio
 
 double ParseLengthArgument(const std::string& text, const std::string& option_name) {
   return model::ParseArgument(text, option_name, model::LengthQuantity(), "28.5mm");
+}
+
+double ParseVariableArgument(const std::string& text, const std::string& option_name,
+                             const VariableSpec& variable) {
+  const model::LineSource source{option_name, 1, 0};
+  const std::vector<model::Token> tokens = model::LexLine(text, source);
+  if (tokens[0].kind == model::TokenKind::kEnd) {
+    throw InputError(
+        SourceLocation{option_name, 0, 0},
+        fmt::format("{} needs a value of '{}', {}", option_name, variable.name, variable.quantity));
+  }
+  model::Scope no_variables;
+  size_t pos = 0;
+  const model::Token start = tokens[0];
+  const model::Value v = model::EvaluateExpression(tokens, &pos, no_variables, source);
+  if (tokens[pos].kind != model::TokenKind::kEnd) {
+    throw InputError(model::At(source, tokens[pos].column),
+                     fmt::format("unexpected {} after the value", model::Quote(tokens[pos])));
+  }
+  const model::Dimension wanted{variable.dimension};
+  if (!v.dimension.IsNone() && v.dimension != wanted) {
+    throw InputError(model::At(source, start.column),
+                     fmt::format("{} needs {} like '{}'; got {}", option_name, variable.quantity,
+                                 variable.name, model::Describe(v.dimension)));
+  }
+  return v.si;
 }
 
 double ParseInductanceArgument(const std::string& text, const std::string& option_name) {
