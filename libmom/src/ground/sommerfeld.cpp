@@ -1,0 +1,381 @@
+// Ground stage: numerical evaluation of the half-space Sommerfeld integrals (sommerfeld.hpp).
+// The path runs along the real k_rho axis in three parts: [0, k0] with k_rho = k0 cos(theta)
+// and [k0, 2 k0] with k_rho = k0 cosh(u), which take the square-root branch point k0 out of
+// the integrand (and the 1/k_z0 of P with it); then panels in k_rho graded toward the branch
+// point Re k1 of the ground, which lies near the axis over low-loss ground; then the
+// oscillating tail, split at the asymptotic half-periods pi/rho of the Bessel functions and
+// summed by Levin's t-transformation (the partition-extrapolation of Michalski, "Extrapolation
+// methods for Sommerfeld integral tails", IEEE Trans. AP-46(10), 1998, whose review ranks
+// Levin-type transformations with the weighted averages among the most effective). Over a
+// half-space with both points in the air there is no pole on the proper sheet (the Zenneck
+// root of eps k_z0 + k_z1 = 0 lies on the improper one), so the real axis is a valid path for
+// e^{j omega t} (the singularities lie just below it). Bessel functions from Boost.Math.
+#include "ground/sommerfeld.hpp"
+
+#include <algorithm>
+#include <array>
+#include <boost/math/quadrature/gauss.hpp>
+#include <boost/math/special_functions/bessel.hpp>
+#include <boost/math/special_functions/detail/bessel_j0.hpp>
+#include <boost/math/special_functions/detail/bessel_j1.hpp>
+#include <cmath>
+#include <thread>
+#include <vector>
+
+#include "core/constants.hpp"
+
+namespace wirefield::ground {
+namespace {
+
+constexpr Complex kJ(0.0, 1.0);
+
+// J0 and J1 by Boost.Math's rational approximations for orders 0 and 1 (the routines its
+// cyl_bessel_j uses inside; called directly, since the general entry point takes a path some
+// ten times slower for arguments above ~50, which the tails reach all the time).
+double J0(double x) { return boost::math::detail::bessel_j0(x); }
+double J1(double x) { return boost::math::detail::bessel_j1(x); }
+
+// Gauss-Legendre rule on [0, 1] of 12 points (Boost's tabulated nodes).
+struct Rule12 {
+  std::array<double, 12> x{}, w{};
+  Rule12() {
+    using G = boost::math::quadrature::gauss<double, 12>;
+    const auto& abs = G::abscissa();
+    const auto& wts = G::weights();
+    int k = 0;
+    for (int i = static_cast<int>(abs.size()) - 1; i >= 0; --i) {
+      x[k] = 0.5 * (1.0 - abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+    for (size_t i = 0; i < abs.size(); ++i) {
+      x[k] = 0.5 * (1.0 + abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+  }
+};
+
+const Rule12& Rule() {
+  static const Rule12 rule;
+  return rule;
+}
+
+// sqrt(k^2 - k_rho^2) on the proper sheet, Im <= 0 (decaying away from the ground).
+Complex Kz(Complex k2, double k_rho) {
+  Complex s = std::sqrt(k2 - k_rho * k_rho);
+  if (s.imag() > 0.0) s = -s;
+  return s;
+}
+
+// One point of the path: k_rho (real), k_z0, and the Jacobians dk = dk_rho / dvar and
+// dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0.
+struct PathPoint {
+  double k_rho;
+  Complex kz0;
+  double dk;
+  Complex dm;
+};
+
+template <int N>
+using Values = std::array<Complex, N>;
+
+// The four kernels of HalfSpaceCorrection at a path point.
+struct CorrectionKernel {
+  Complex eps, k1_2;
+  double rho, zeta;
+  Values<4> operator()(const PathPoint& p) const {
+    const Complex kz0 = p.kz0;
+    const Complex kz1 = Kz(k1_2, p.k_rho);
+    const Complex te = kz0 + kz1, tm = eps * kz0 + kz1;
+    const Complex rq = 2.0 * kz0 * kz0 * (1.0 - eps) / (te * tm);
+    const Complex horizontal = 2.0 * kz0 / te;  // R_TE + 1
+    const Complex vertical = -2.0 * kz1 / tm;   // R_TM - 1
+    // R_TE + R_TM = 2 k_rho^2 (1 - eps) / (te tm), written without the cancellation.
+    const Complex sum_rc = 2.0 * (1.0 - eps) / (te * tm);
+    const double j0 = J0(p.k_rho * rho);
+    const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
+    const Complex e = std::exp(-kJ * kz0 * zeta);
+    const Complex a = j0 * e * p.dm;
+    return {a * horizontal, a * (vertical - rq), a * (horizontal + rq),
+            -j1 * e * p.dk * p.k_rho * p.k_rho * sum_rc};
+  }
+};
+
+// The Sommerfeld identity's integrand J0 E P.
+struct IdentityKernel {
+  double rho, zeta;
+  Values<1> operator()(const PathPoint& p) const {
+    return {J0(p.k_rho * rho) * std::exp(-kJ * p.kz0 * zeta) * p.dm};
+  }
+};
+
+template <int N>
+void Accumulate(Values<N>* sum, const Values<N>& v, double w) {
+  for (int i = 0; i < N; ++i) (*sum)[i] += w * v[i];
+}
+
+// Levin's t-transformation of the partial sums s[0..m] (terms a_n = s_n - s_{n-1} as the
+// remainder estimates; Levin, Int. J. Comput. Math. B3, 1973; beta = 1).
+Complex LevinT(const std::vector<Complex>& s) {
+  const int m = static_cast<int>(s.size()) - 1;
+  Complex num = 0.0, den = 0.0;
+  double binom = 1.0;
+  for (int j = 0; j <= m; ++j) {
+    const Complex a = j == 0 ? s[0] : s[j] - s[j - 1];
+    if (std::abs(a) == 0.0) return s[m];  // the series has ended
+    const double ratio = std::pow((1.0 + j) / (1.0 + m), m - 1);
+    const double c = ((j % 2) ? -1.0 : 1.0) * binom * ratio;
+    num += c * s[j] / a;
+    den += c / a;
+    binom = binom * (m - j) / (j + 1);
+  }
+  const Complex value = num / den;
+  return std::isfinite(value.real()) && std::isfinite(value.imag()) ? value : s[m];
+}
+
+// Integral over k_rho in [0, inf) of kernel(point) along the path above.
+template <int N, typename Kernel>
+Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, double zeta,
+                    const SommerfeldOptions& options) {
+  const Rule12& g = Rule();
+  Values<N> total{};
+  const double span = rho + zeta;
+
+  // [0, k0]: k_rho = k0 cos(theta), theta in [0, pi/2].
+  {
+    const int panels = 1 + static_cast<int>(k0 * span / 3.0);
+    const double h = 0.5 * core::kPi / panels;
+    for (int p = 0; p < panels; ++p) {
+      for (int i = 0; i < 12; ++i) {
+        const double theta = h * (p + g.x[i]);
+        const double kr = k0 * std::cos(theta);
+        const double kz = k0 * std::sin(theta);
+        Accumulate<N>(&total, kernel(PathPoint{kr, kz, kz, Complex(0.0, -kr)}), h * g.w[i]);
+      }
+    }
+  }
+  // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)).
+  const double k_cut = std::sqrt(k0 * k0 + std::pow(36.0 / zeta, 2));
+  // [k0, min(2 k0, k_cut)]: k_rho = k0 cosh(u).
+  const double k_b = std::min(2.0 * k0, k_cut);
+  const Complex k1 = k0 * std::sqrt(eps_c);
+  const double k1_re = k1.real();
+  // Finest panel next to the ground's branch point: its distance from the axis.
+  const double finest = std::max(std::abs(k1.imag()), 1e-9 * k0);
+  {
+    const double u_end = std::acosh(k_b / k0);
+    const int panels = 1 + static_cast<int>(k0 * span / 3.0);
+    std::vector<double> breaks;
+    for (int p = 0; p <= panels; ++p) breaks.push_back(u_end * p / panels);
+    if (k1_re > k0 && k1_re < k_b) {
+      const double u1 = std::acosh(k1_re / k0);
+      const double du = finest / std::sqrt(k1_re * k1_re - k0 * k0);  // dk = k0 sinh(u) du
+      for (double d = 0.5 * std::min(u1, u_end - u1); d > du; d *= 0.25) {
+        breaks.push_back(u1 - d);
+        breaks.push_back(u1 + d);
+      }
+      breaks.push_back(u1);
+      std::sort(breaks.begin(), breaks.end());
+    }
+    for (size_t b = 0; b + 1 < breaks.size(); ++b) {
+      const double h = breaks[b + 1] - breaks[b];
+      for (int i = 0; i < 12; ++i) {
+        const double u = breaks[b] + h * g.x[i];
+        const double kr = k0 * std::cosh(u);
+        const double sh = k0 * std::sinh(u);
+        Accumulate<N>(&total, kernel(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0)}),
+                      h * g.w[i]);
+      }
+    }
+  }
+  if (k_b >= k_cut) return total;
+
+  auto panel = [&](double a, double b, Values<N>* sum) {
+    const double w = b - a;
+    for (int i = 0; i < 12; ++i) {
+      const double kr = a + w * g.x[i];
+      const double s = std::sqrt(kr * kr - k0 * k0);
+      Accumulate<N>(sum, kernel(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0)}),
+                    w * g.w[i]);
+    }
+  };
+  const double half_period = rho > 0.0 ? core::kPi / rho : INFINITY;
+  // [a, b] in panels no wider than half a Bessel period, 3 / zeta (the decay length) or half
+  // their distance from the origin (the factor k_rho / |k_z0| and the ground's factors vary
+  // on that scale), so the panel count grows with the logarithm of the range.
+  auto range = [&](double a, double b, Values<N>* sum) {
+    while (a < b) {
+      const double next = std::min(b, a + std::min({half_period, 3.0 / zeta, 0.5 * a}));
+      panel(a, next, sum);
+      a = next;
+    }
+  };
+  // Breakpoints of the middle part: up to past the ground's branch point (when it is near
+  // the axis), graded geometrically toward it from both sides.
+  const double k_tail = std::min(std::max(k_b, 1.5 * k1_re), k_cut);
+  std::vector<double> breaks{k_b};
+  if (k1_re > k_b && k1_re < k_tail) {
+    // Geometric grading toward k1 on both sides, down to the scale of its distance from the
+    // axis (or 1e-9 k0).
+    for (double d = 0.5 * (k1_re - k_b); d > finest; d *= 0.25) breaks.push_back(k1_re - d);
+    breaks.push_back(k1_re);
+    std::vector<double> right;
+    for (double d = 0.5 * (k_tail - k1_re); d > finest; d *= 0.25) right.push_back(k1_re + d);
+    breaks.insert(breaks.end(), right.rbegin(), right.rend());
+  }
+  breaks.push_back(k_tail);
+  for (size_t b = 0; b + 1 < breaks.size(); ++b) range(breaks[b], breaks[b + 1], &total);
+  if (k_tail >= k_cut) return total;
+
+  // Tail [k_tail, inf): direct while it is short, else partition-extrapolation.
+  const double tail_half_periods = (k_cut - k_tail) / half_period;
+  if (!(tail_half_periods > 4.0 * options.tail_partitions)) {
+    range(k_tail, k_cut, &total);
+    return total;
+  }
+  const int parts = std::max(2, options.tail_partitions);
+  std::vector<Values<N>> partial(parts);
+  for (int p = 0; p < parts; ++p) {
+    Values<N> sum{};
+    range(k_tail + p * half_period, k_tail + (p + 1) * half_period, &sum);
+    partial[p] = sum;
+  }
+  for (int c = 0; c < N; ++c) {
+    std::vector<Complex> s(parts);
+    Complex run = 0.0;
+    for (int p = 0; p < parts; ++p) {
+      run += partial[p][c];
+      s[p] = run;
+    }
+    total[c] += LevinT(s);
+  }
+  return total;
+}
+
+}  // namespace
+
+HalfSpace::HalfSpace(Complex eps_c, double wavenumber_per_m, SommerfeldOptions options)
+    : eps_c_(eps_c), k0_(wavenumber_per_m), options_(options) {}
+
+HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m) const {
+  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, rho_m, zeta_m};
+  const Values<4> v = Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_);
+  return {v[0], v[1], v[2], v[3]};
+}
+
+namespace {
+
+std::array<Complex, 4> Normalized(const HalfSpaceCorrection& c, double r, double k0) {
+  const Complex f = std::polar(r, k0 * r);  // R' exp(+jkR'): divides out the image
+  return {c.horizontal * f, c.vertical * f, c.charge * f, c.coupling * f};
+}
+
+// Weights of the 4-point Lagrange interpolation at x from the nodes n[0..3].
+std::array<double, 4> Lagrange(const double* n, double x) {
+  std::array<double, 4> w{};
+  for (int a = 0; a < 4; ++a) {
+    double p = 1.0;
+    for (int b = 0; b < 4; ++b) {
+      if (b != a) p *= (x - n[b]) / (n[a] - n[b]);
+    }
+    w[a] = p;
+  }
+  return w;
+}
+
+}  // namespace
+
+HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r_max_m,
+                               double zeta_min_m, TableOptions options)
+    : ground_(ground), r_min_(r_min_m), r_max_(r_max_m), zeta_min_(zeta_min_m) {
+  // x = ln R' + R'/R_c, uniform: log-spaced near the source, evenly spaced far from it, where
+  // the lateral wave of the ground's branch point k1 beats with the image as
+  // exp(-j (k1 - k0) R') (R_c: some 8 nodes per beat, and not below a quarter wavelength, as
+  // over a good conductor that wave is negligible). One node beyond each end so that the
+  // cubic stencil always fits.
+  const double k0 = ground_.wavenumber();
+  r_c_ =
+      std::max(7.0 / std::abs(k0 * std::sqrt(ground_.permittivity()) - k0), 0.5 * core::kPi / k0);
+  const int per_octave = std::max(2, options.nodes_per_octave);
+  const double x_lo = Map(r_min_m), x_hi = Map(r_max_m);
+  const int n_r = static_cast<int>(std::ceil((x_hi - x_lo) / (std::log(2.0) / per_octave))) + 3;
+  const double dx = (x_hi - x_lo) / (n_r - 3);
+  for (int i = 0; i < n_r; ++i) x_.push_back(x_lo + (i - 1) * dx);
+  // Node radii: invert the map by Newton's method (it is increasing and convex in ln R').
+  std::vector<double> radius(x_.size());
+  for (size_t i = 0; i < x_.size(); ++i) {
+    double ln_r = std::min(x_[i], std::log(r_max_m * 2.0));
+    for (int it = 0; it < 60; ++it) {
+      const double r = std::exp(ln_r);
+      const double step = (ln_r + r / r_c_ - x_[i]) / (1.0 + r / r_c_);
+      ln_r -= step;
+      if (std::abs(step) < 1e-14) break;
+    }
+    radius[i] = std::exp(ln_r);
+  }
+  // y = sqrt(psi): finer toward grazing, where the functions vary fastest; from psi_min (the
+  // lowest elevation the table serves) to one node past the zenith (psi > pi/2 stands for the
+  // mirror side, rho < 0, so the stencil is centred there too). The node below psi_min sits
+  // halfway to zero when a full step would cross it.
+  const double y_lo = std::sqrt(std::asin(std::min(1.0, zeta_min_m / r_max_m)));
+  const double y_hi = std::sqrt(0.5 * core::kPi);
+  const int n_psi = std::max(4, options.angle_nodes) + 2;
+  const double dy = (y_hi - y_lo) / (n_psi - 3);
+  y_.push_back(std::max(y_lo - dy, 0.5 * y_lo));
+  for (int j = 1; j < n_psi; ++j) y_.push_back(y_lo + (j - 1) * dy);
+  values_.resize(x_.size() * y_.size());
+  auto build = [&](size_t first, size_t step) {
+    for (size_t i = first; i < x_.size(); i += step) {
+      const double r = radius[i];
+      for (size_t j = 0; j < y_.size(); ++j) {
+        const double psi = y_[j] * y_[j];
+        const double rho = r * std::cos(psi), zeta = r * std::sin(psi);
+        // Past the zenith rho < 0: the functions are even in rho but for the coupling, odd.
+        HalfSpaceCorrection c = ground_.Correction(std::abs(rho), zeta);
+        if (rho < 0.0) c.coupling = -c.coupling;
+        values_[i * y_.size() + j] = Normalized(c, r, ground_.wavenumber());
+      }
+    }
+  };
+  if (std::clamp(options.threads, 1, 2) == 1) {
+    build(0, 1);
+  } else {
+    std::thread other(build, 1, 2);
+    build(0, 2);
+    other.join();
+  }
+}
+
+bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
+  const double r = std::hypot(rho_m, zeta_m);
+  return !x_.empty() && r >= r_min_ && r <= r_max_ && zeta_m >= zeta_min_;
+}
+
+HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) const {
+  if (!Covers(rho_m, zeta_m)) return ground_.Correction(rho_m, zeta_m);
+  const double r = std::hypot(rho_m, zeta_m);
+  const double x = Map(r);
+  const double y = std::sqrt(std::atan2(zeta_m, rho_m));
+  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
+  const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
+  const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
+  const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
+  const std::array<double, 4> wx = Lagrange(&x_[i - 1], x), wy = Lagrange(&y_[j - 1], y);
+  std::array<Complex, 4> v{};
+  for (int a = 0; a < 4; ++a) {
+    const std::array<Complex, 4>* row = &values_[(i - 1 + a) * y_.size() + j - 1];
+    for (int b = 0; b < 4; ++b) {
+      const double w = wx[a] * wy[b];
+      for (int c = 0; c < 4; ++c) v[c] += w * row[b][c];
+    }
+  }
+  const Complex image = std::polar(1.0 / r, -ground_.wavenumber() * r);
+  return {v[0] * image, v[1] * image, v[2] * image, v[3] * image};
+}
+
+Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,
+                                   SommerfeldOptions options) {
+  const IdentityKernel kernel{rho_m, zeta_m};
+  return Integrate<1>(kernel, wavenumber_per_m, Complex(1.0, 0.0), rho_m, zeta_m, options)[0];
+}
+
+}  // namespace wirefield::ground
