@@ -33,7 +33,7 @@ struct SimulationOptions {
   // the memory the system reports available (or 4 GiB when unknown).
   std::optional<double> max_matrix_bytes;
   // Threads that fill the matrix in Solve(frequency). Default 0: one per core. The result is
-  // the same to rounding for any count.
+  // the same, bit for bit, for any count (the fill is cut into fixed blocks).
   int fill_threads = 0;
 };
 

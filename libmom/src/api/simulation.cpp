@@ -103,17 +103,29 @@ SolveResult Simulation::Solve(double frequency_hz) const {
   return Solve(frequency_hz, impl_->options.fill_threads);
 }
 
-SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
-  if (fill_threads <= 0)
-    fill_threads = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-  const Model& model = impl_->model;
-  const geometry::Mesh& mesh = impl_->mesh;
+namespace {
+
+// An InputError naming the model's file unless frequency_hz is positive and finite.
+void CheckFrequency(const Model& model, double frequency_hz) {
   if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz)) {
     throw InputError({model.file, 0, 0},
                      fmt::format("the frequency must be positive, not {} Hz", frequency_hz));
   }
+}
+
+// A fill-thread count with 0 (or less) meaning one per core.
+int ResolveFillThreads(int asked) {
+  return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+}
+
+}  // namespace
+
+SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
+  const geometry::Mesh& mesh = impl_->mesh;
+  CheckFrequency(impl_->model, frequency_hz);
   const auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field, fill_threads);
+  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field,
+                                               ResolveFillThreads(fill_threads));
   return SimulationAccess::SolveFilled(*this, frequency_hz, std::move(z), Seconds(t0));
 }
 
@@ -126,18 +138,14 @@ const fill::NearFieldCache& SimulationAccess::NearField(const Simulation& simula
 }
 
 int SimulationAccess::FillThreads(const Simulation& simulation) {
-  const int asked = simulation.impl_->options.fill_threads;
-  return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+  return ResolveFillThreads(simulation.impl_->options.fill_threads);
 }
 
 SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double frequency_hz,
                                           Eigen::MatrixXcd z, double fill_time_s) {
   const Model& model = simulation.impl_->model;
   const geometry::Mesh& mesh = simulation.impl_->mesh;
-  if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz)) {
-    throw InputError({model.file, 0, 0},
-                     fmt::format("the frequency must be positive, not {} Hz", frequency_hz));
-  }
+  CheckFrequency(model, frequency_hz);
   SolveResult r;
   r.frequency_hz = frequency_hz;
   r.unknowns = static_cast<int>(mesh.bases.size());
