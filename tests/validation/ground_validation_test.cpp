@@ -24,11 +24,14 @@ using testing::SolveModel;
 
 constexpr double kDeg = std::numbers::pi / 180.0;
 
+// A real ground by the reflection-coefficient approximation, which this file checks (the exact
+// half-space has its own checks in half_space_validation_test.cpp).
 GroundSpec Real(double permittivity, double conductivity) {
   GroundSpec g;
   g.kind = GroundKind::kReal;
   g.permittivity = permittivity;
   g.conductivity_s_per_m = conductivity;
+  g.method = GroundMethod::kReflection;
   return g;
 }
 
@@ -48,7 +51,6 @@ Model Vertical(const GroundSpec& ground) {
   m.frequency_hz = kUnitWavelengthHz;
   return m;
 }
-
 
 TEST(RealGround, HighConductivityGivesThePerfectGroundImpedance) {
   // As sigma grows the Fresnel coefficients tend to the perfect-ground image (standard
@@ -186,9 +188,9 @@ TEST(RealGround, VerticalOverMediumDryLosesGainAndLiftsItsTakeOffAngle) {
 
 TEST(RealGround, PowerGoesIntoRadiationAndGroundOnly) {
   // Energy: for a lossless antenna over lossy ground, input = radiated + ground loss, so the
-  // radiated power must stay below the input (conservation of energy). A dipole half a wavelength up over average
-  // ground (13, 5 mS/m, common practice) loses a modest share to the ground, and as the ground
-  // becomes a better conductor that share falls.
+  // radiated power must stay below the input (conservation of energy). A dipole half a wavelength
+  // up over average ground (13, 5 mS/m, common practice) loses a modest share to the ground, and as
+  // the ground becomes a better conductor that share falls.
   const double f = 7.1e6, lambda = 299792458.0 / f;
   double previous_loss = 1.0;
   for (const double sigma : {5e-3, 5e-2, 5.0}) {

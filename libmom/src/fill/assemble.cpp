@@ -10,10 +10,12 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <thread>
 
 #include "core/constants.hpp"
 #include "fill/conductor.hpp"
+#include "fill/half_space.hpp"
 #include "ground/reflection.hpp"
 
 namespace wirefield::fill {
@@ -167,6 +169,15 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   }
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   const ground::Ground ground(mesh.ground, frequency_hz);
+  // Over a real ground by the exact method, the pairs low enough get the half-space correction
+  // on top of the perfect image (fill/half_space.hpp); the others the reflection coefficients.
+  std::optional<HalfSpaceFill> half_space;
+  if (images && mesh.ground_images && mesh.ground.kind == GroundKind::kReal &&
+      mesh.ground.method == GroundMethod::kExact) {
+    const double exact_below_m = mesh.ground.exact_below_m.value_or(
+        kDefaultExactBelowWavelengths * core::kSpeedOfLight_m_per_s / frequency_hz);
+    if (exact_below_m > 0.0) half_space.emplace(mesh, ground.permittivity(), k, exact_below_m);
+  }
 
   // Parallel fill. Z = sum over ordered segment pairs (i, j) of their contributions F_ij, and
   // F_ji = F_ij^T, so Z = W + W^T with W = sum over i < j of F_ij plus half of each F_ii: only
@@ -262,7 +273,8 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
         PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
         if (j == i) Symmetrize(&mi);
         Complex vector_weight, charge_weight;
-        if (ground.perfect()) {
+        const bool exact = half_space && half_space->Applies(si, sj);
+        if (ground.perfect() || exact) {
           // The exact image: M = diag(-1, -1, 1), s = -1.
           vector_weight = -unit[i].dot(unit[j].cwiseProduct(mirror));
           charge_weight = -1.0;
@@ -275,6 +287,15 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
         }
         // M is symmetric and the specular angle is the same both ways: Z stays symmetric.
         scatter(i, j, mi, share * vector_weight, share * charge_weight);
+        if (exact) {
+          // The half-space's correction to the image: its kernels are symmetric under the
+          // exchange of the two segments, so Z stays symmetric.
+          const HalfSpacePair c = half_space->Moments(si.start, si.end, sj.start, sj.end);
+          PairMoments vector_part = c.vector;
+          if (j == i) Symmetrize(&vector_part);
+          scatter(i, j, vector_part, share, 0.0);
+          scatter(i, j, PairMoments{c.charge, 0.0, 0.0, 0.0}, 0.0, share);
+        }
       }
     }
   };

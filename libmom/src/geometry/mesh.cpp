@@ -172,27 +172,32 @@ namespace {
 // errs by more than a few percent in the self-interaction of a wire (docs/numerics.md).
 constexpr double kRealGroundWarnHeightWavelengths = 0.2;
 
-// A wire low over a real ground, or connected to it: say what the approximation misses.
+// A wire low over a real ground, or connected to it: say what the model misses. exact_m:
+// the height below which the matrix uses the exact half-space (0 when it does not).
 void RealGroundWarning(const WireSpec& spec, bool connected, double zmin_m, double wavelength_m,
-                       double frequency_hz, std::vector<Warning>* warnings) {
+                       double frequency_hz, double exact_m, std::vector<Warning>* warnings) {
+  const bool exact = zmin_m < exact_m;
   if (connected) {
     warnings->push_back(
         {spec.location,
          fmt::format("wire '{}' connects to the real ground: the connection is an ideal ground "
-                     "stake (no stake or radial loss), and the reflection-coefficient "
-                     "approximation is weak for wires this close to the ground; treat the "
-                     "impedance and the ground loss as estimates",
-                     spec.name)});
+                     "stake (no stake or radial loss){}; treat the impedance and the ground loss "
+                     "as estimates",
+                     spec.name,
+                     exact ? ""
+                           : ", and the reflection-coefficient approximation is weak for wires "
+                             "this close to the ground")});
     return;
   }
   const double h = zmin_m / wavelength_m;
-  if (h >= kRealGroundWarnHeightWavelengths) return;
+  if (h >= kRealGroundWarnHeightWavelengths || exact) return;
   warnings->push_back(
       {spec.location,
        fmt::format("wire '{}' comes down to {:.3g} wavelength ({:.3g} m at {:.4g} MHz) above the "
                    "real ground, where the reflection-coefficient approximation is weak (its "
                    "self-interaction error is a few percent at 0.2 wavelength and tens of percent "
-                   "at 0.1 wavelength); treat the impedance and the ground loss as estimates",
+                   "at 0.1 wavelength); treat the impedance and the ground loss as estimates, or "
+                   "use the exact ground (ground real ... method=exact)",
                    spec.name, h, zmin_m, frequency_hz / 1e6)});
 }
 
@@ -549,6 +554,23 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
             (from_on && to_on) ||
             (!from_on && !to_on && std::min(corners[i].z(), corners[i + 1].z()) < spec.radius_m);
       }
+      const bool real = model.ground.kind == GroundKind::kReal;
+      if (real && (zmin < -join_tol_m || too_close)) {
+        // Over a real ground a wire in or on the soil would be computed wrongly (the fill
+        // assumes both ends of every pair in the air): refuse it.
+        throw InputError(
+            spec.location,
+            zmin < -join_tol_m
+                ? fmt::format("wire '{}' goes below the real ground (z = {:.3g} m): wirefield "
+                              "models wires in the air above z = 0 only, not buried radials or "
+                              "wires in the soil; raise the wire above the ground",
+                              spec.name, zmin)
+                : fmt::format("wire '{}' lies on the real ground or runs closer to it than its "
+                              "radius ({:.3g} m): wirefield models wires in the air only, not "
+                              "wires on the soil; raise it by at least its radius (a wire end "
+                              "may touch the ground: that is a ground connection)",
+                              spec.name, spec.radius_m));
+      }
       if (zmin < -join_tol_m) {
         mesh.warnings.push_back(
             {spec.location,
@@ -561,8 +583,12 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
              fmt::format("wire '{}' runs closer to the ground than its radius ({:.3g} m): "
                          "the thin-wire model does not hold there; raise it",
                          spec.name, spec.radius_m)});
-      } else if (model.ground.kind == GroundKind::kReal) {
-        RealGroundWarning(spec, connected, zmin, wavelength_m, options.max_frequency_hz,
+      } else if (real) {
+        const double exact_m =
+            model.ground.method == GroundMethod::kExact
+                ? model.ground.exact_below_m.value_or(kDefaultExactBelowWavelengths * wavelength_m)
+                : 0.0;
+        RealGroundWarning(spec, connected, zmin, wavelength_m, options.max_frequency_hz, exact_m,
                           &mesh.warnings);
       }
     }

@@ -269,7 +269,13 @@ std::array<Complex, 4> Normalized(const HalfSpaceCorrection& c, double r, double
   return {c.horizontal * f, c.vertical * f, c.charge * f, c.coupling * f};
 }
 
-// Weights of the 4-point Lagrange interpolation at x from the nodes n[0..3].
+// Weights of the 4-point Lagrange interpolation on equally spaced nodes -1, 0, 1, 2 at u.
+std::array<double, 4> Lagrange(double u) {
+  const double up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
+  return {-u * um * um2 / 6.0, up * um * um2 / 2.0, -up * u * um2 / 2.0, up * u * um / 6.0};
+}
+
+// The same at x from any four nodes n[0..3].
 std::array<double, 4> Lagrange(const double* n, double x) {
   std::array<double, 4> w{};
   for (int a = 0; a < 4; ++a) {
@@ -353,13 +359,36 @@ bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
 HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) const {
   if (!Covers(rho_m, zeta_m)) return ground_.Correction(rho_m, zeta_m);
   const double r = std::hypot(rho_m, zeta_m);
+  const std::array<Complex, 4> v = Interpolate(rho_m, zeta_m);
+  const Complex image = std::polar(1.0 / r, -ground_.wavenumber() * r);
+  return {v[0] * image, v[1] * image, v[2] * image, v[3] * image};
+}
+
+std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double zeta_m) const {
+  double rho = std::max(rho_m, 0.0);
+  double zeta = std::max(zeta_m, zeta_min_);
+  const double r = std::hypot(rho, zeta);
+  if (r < r_min_ || r > r_max_) {
+    // Move along the ray from the image to the nearest end of the range.
+    const double scale = std::clamp(r, r_min_, r_max_) / r;
+    rho *= scale;
+    zeta = std::max(zeta * scale, zeta_min_);
+    rho = std::min(rho, std::sqrt(std::max(r_max_ * r_max_ - zeta * zeta, 0.0)));
+  }
+  return Interpolate(rho, zeta);
+}
+
+std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m) const {
+  const double r = std::sqrt(rho_m * rho_m + zeta_m * zeta_m);
   const double x = Map(r);
   const double y = std::sqrt(std::atan2(zeta_m, rho_m));
   const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
   const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
   const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
   const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
-  const std::array<double, 4> wx = Lagrange(&x_[i - 1], x), wy = Lagrange(&y_[j - 1], y);
+  // The x nodes are equally spaced; so are the y nodes but for the first (see the constructor).
+  const std::array<double, 4> wx = Lagrange((x - x_[i]) / dx);
+  const std::array<double, 4> wy = j > 1 ? Lagrange((y - y_[j]) / dy) : Lagrange(&y_[0], y);
   std::array<Complex, 4> v{};
   for (int a = 0; a < 4; ++a) {
     const std::array<Complex, 4>* row = &values_[(i - 1 + a) * y_.size() + j - 1];
@@ -368,8 +397,7 @@ HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) cons
       for (int c = 0; c < 4; ++c) v[c] += w * row[b][c];
     }
   }
-  const Complex image = std::polar(1.0 / r, -ground_.wavenumber() * r);
-  return {v[0] * image, v[1] * image, v[2] * image, v[3] * image};
+  return v;
 }
 
 Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,

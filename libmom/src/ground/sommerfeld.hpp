@@ -89,6 +89,11 @@ class HalfSpaceTable {
                  TableOptions options = {});
 
   HalfSpaceCorrection Correction(double rho_m, double zeta_m) const;
+  // The four corrections divided by the image's exp(-jkR')/R' (what the table holds), at the
+  // nearest point of the table's range: zeta is raised to the table's zeta_min and R' kept
+  // within [r_min, r_max]. Near the source these tend to constants (the static images), so the
+  // clamp changes little there; the caller multiplies by the true image factor.
+  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m) const;
   bool Covers(double rho_m, double zeta_m) const;
   int nodes() const { return static_cast<int>(values_.size()); }
   const HalfSpace& ground() const { return ground_; }
@@ -96,6 +101,8 @@ class HalfSpaceTable {
  private:
   HalfSpace ground_{Complex(1.0, 0.0), 1.0};
   double Map(double r) const { return std::log(r) + r / r_c_; }
+  // The tabulated (normalized) values at a point inside the range.
+  std::array<Complex, 4> Interpolate(double rho_m, double zeta_m) const;
   double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, r_c_ = 1.0;
   std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(psi)
   std::vector<std::array<Complex, 4>> values_;  // [i_x * y_.size() + i_y], image factored out

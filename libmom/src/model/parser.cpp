@@ -1377,7 +1377,7 @@ class Parser {
     Next();
     if (ground.kind == GroundKind::kReal) {
       std::optional<double> permittivity, conductivity;
-      std::optional<Token> preset_token;
+      std::optional<Token> preset_token, method_token;
       const GroundPreset* preset = nullptr;
       while (Peek().kind != TokenKind::kEnd) {
         const Token& setting = Peek();
@@ -1402,14 +1402,52 @@ class Parser {
           Next();
           continue;
         }
+        if (IsWord("method")) {
+          if (method_token) throw Error(setting, "ground real: method is given twice");
+          method_token = setting;
+          Next();
+          ExpectPunct("=", "ground real", "'=' after method");
+          const Token& name = Peek();
+          if (name.kind == TokenKind::kName && name.text == "exact") {
+            ground.method = GroundMethod::kExact;
+          } else if (name.kind == TokenKind::kName && name.text == "reflection") {
+            ground.method = GroundMethod::kReflection;
+          } else {
+            throw Error(name, fmt::format("ground real: unknown method {}{}; use method=exact (the "
+                                          "Sommerfeld half-space) or method=reflection (the "
+                                          "reflection-coefficient approximation)",
+                                          Quote(name),
+                                          name.kind == TokenKind::kName
+                                              ? DidYouMeanAside(name.text, {"exact", "reflection"})
+                                              : ""));
+          }
+          Next();
+          continue;
+        }
+        if (IsWord("exact_below")) {
+          if (ground.exact_below_m) throw Error(setting, "ground real: exact_below is given twice");
+          Next();
+          ExpectPunct("=", "ground real", "'=' after exact_below");
+          const Measured m = Expression();
+          const double h = As(m, LengthQuantity(), length_factor_, "ground real: exact_below");
+          if (!(h >= 0.0) || !std::isfinite(h)) {
+            throw Error(m.start, fmt::format("ground real: exact_below must be a height of 0 or "
+                                             "more (0 turns the exact ground off); got {} m",
+                                             FormatNumber(h)));
+          }
+          ground.exact_below_m = h;
+          continue;
+        }
         if (!is_eps && !IsWord("conductivity")) {
           throw Error(setting,
                       fmt::format("ground real: unknown setting {}{}; use preset=NAME, or "
-                                  "permittivity= and conductivity=",
+                                  "permittivity= and conductivity=, and optionally "
+                                  "method=exact|reflection and exact_below=HEIGHT",
                                   Quote(setting),
                                   setting.kind == TokenKind::kName
                                       ? DidYouMeanAside(setting.text,
-                                                        {"preset", "permittivity", "conductivity"})
+                                                        {"preset", "permittivity", "conductivity",
+                                                         "method", "exact_below"})
                                       : ""));
         }
         Next();

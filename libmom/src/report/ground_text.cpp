@@ -4,6 +4,25 @@
 #include <fmt/format.h>
 
 namespace wirefield::report {
+namespace {
+
+std::string ExactBelowText(const GroundSpec& ground) {
+  return ground.exact_below_m ? fmt::format("{:.4g} m", *ground.exact_below_m)
+                              : fmt::format("{:g} wavelength", kDefaultExactBelowWavelengths);
+}
+
+std::string MethodText(const GroundSpec& ground) {
+  if (ground.method == GroundMethod::kReflection ||
+      (ground.exact_below_m && *ground.exact_below_m == 0.0)) {
+    return "reflection-coefficient approximation";
+  }
+  return fmt::format(
+      "exact half-space (Sommerfeld integrals) for segment pairs below a mean height of {}, "
+      "reflection coefficients above it and in the far field",
+      ExactBelowText(ground));
+}
+
+}  // namespace
 
 std::string GroundText(const GroundSpec& ground) {
   switch (ground.kind) {
@@ -12,11 +31,9 @@ std::string GroundText(const GroundSpec& ground) {
     case GroundKind::kPerfect:
       return "perfectly conducting plane z = 0 (exact image)";
     case GroundKind::kReal:
-      return fmt::format(
-          "real, plane z = 0: {}relative permittivity {:.6g}, {:.6g} S/m "
-          "(reflection-coefficient approximation)",
-          ground.preset.empty() ? "" : ground.preset + ", ", ground.permittivity,
-          ground.conductivity_s_per_m);
+      return fmt::format("real, plane z = 0: {}relative permittivity {:.6g}, {:.6g} S/m ({})",
+                         ground.preset.empty() ? "" : ground.preset + ", ", ground.permittivity,
+                         ground.conductivity_s_per_m, MethodText(ground));
   }
   return "?";
 }
@@ -34,7 +51,18 @@ nlohmann::json GroundJson(const GroundSpec& ground) {
       break;
     case GroundKind::kReal:
       g["kind"] = "real";
-      g["method"] = "reflection_coefficient";
+      if (ground.method == GroundMethod::kReflection ||
+          (ground.exact_below_m && *ground.exact_below_m == 0.0)) {
+        g["method"] = "reflection_coefficient";
+      } else {
+        g["method"] = "exact_half_space";
+        if (ground.exact_below_m) {
+          g["exact_below_m"] = *ground.exact_below_m;
+        } else {
+          g["exact_below_wavelengths"] = kDefaultExactBelowWavelengths;
+        }
+        g["far_field_method"] = "reflection_coefficient";
+      }
       g["permittivity"] = ground.permittivity;
       g["conductivity_s_per_m"] = ground.conductivity_s_per_m;
       if (!ground.preset.empty()) g["preset"] = ground.preset;

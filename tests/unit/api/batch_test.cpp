@@ -303,22 +303,29 @@ TEST(BatchRows, LossyGroundTakesPowerThatAPerfectGroundReflects) {
 }
 
 TEST(BatchRows, EachWarningOnceHoweverManyBandsAndGrounds) {
-  // A dipole 1 m over real ground, run on two spans over two grounds: the mesher warns once
-  // per wire (from the sweep's mesh), not again for every band's pattern frequency.
+  // A vertical fed against the real ground, run on two spans over two grounds: the mesher
+  // warns once per wire that it connects to the ground (an ideal stake), from the sweep's
+  // mesh, not again for every band's pattern frequency.
+  const char* kGroundedVertical =
+      "units m\n"
+      "let height = 5m\n"
+      "wire v from (0, 0, 0) to (0, 0, height) radius 1mm segments 11\n"
+      "feed src at v@start\n"
+      "ground perfect\n";
   BatchOptions options = SmallOptions();
   SweepSpan low;
   low.name = "low";
   low.frequencies_hz = FrequencyPoints(6.5e6, 7.5e6, 3);
   options.spans.insert(options.spans.begin(), low);
   options.grounds = ParseGroundList("medium_dry,wet_ground");
-  options.fixed_overrides.push_back(Override{"height", "1m"});
-  const BatchResult result = RunBatch(kDipole, "low_dipole.wire", options);
+  options.fixed_overrides.push_back(Override{"height", "3m"});
+  const BatchResult result = RunBatch(kGroundedVertical, "low_vertical.wire", options);
   ASSERT_EQ(result.rows.size(), 2u);
-  int low_height = 0;
+  int connected = 0;
   for (const Warning& w : result.warnings) {
-    if (w.message.find("above the real ground") != std::string::npos) ++low_height;
+    if (w.message.find("connects to the real ground") != std::string::npos) ++connected;
   }
-  EXPECT_EQ(low_height, 1) << FormatBatchText(result);
+  EXPECT_EQ(connected, 1) << FormatBatchText(result);
   // Two spans and no fixed pattern frequency: a pattern per band, inside that band.
   for (const BatchRow& row : result.rows) {
     ASSERT_EQ(row.bands.size(), 2u);

@@ -220,6 +220,36 @@ TEST(ParseGround, PresetErrorsSayWhatToWrite) {
             "conductivity=, not both");
 }
 
+TEST(ParseGround, MethodAndExactHeightAreStored) {
+  const Model plain = Parse(kKit + "ground real preset=average\n");
+  EXPECT_EQ(plain.ground.method, GroundMethod::kExact);
+  EXPECT_FALSE(plain.ground.exact_below_m.has_value());
+  const Model fast = Parse(kKit + "ground real preset=average method=reflection\n");
+  EXPECT_EQ(fast.ground.method, GroundMethod::kReflection);
+  // A bare height is in the model's length unit; a suffix converts (1 ft = 0.3048 m exactly,
+  // NIST SP 811).
+  EXPECT_DOUBLE_EQ(*Parse(kKit + "ground real preset=average exact_below=3\n").ground.exact_below_m,
+                   3.0);
+  EXPECT_DOUBLE_EQ(*Parse(kKit + "ground real method=exact exact_below=10ft preset=average\n")
+                        .ground.exact_below_m,
+                   3.048);
+}
+
+TEST(ParseGround, MethodErrorsSayWhatToWrite) {
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=average method=sommerfeld\n"),
+            "kit.wire:3:35: error: ground real: unknown method 'sommerfeld'; use method=exact "
+            "(the Sommerfeld half-space) or method=reflection (the reflection-coefficient "
+            "approximation)");
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=average method=exact method=exact\n"),
+            "kit.wire:3:41: error: ground real: method is given twice");
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=average exact_below=-2\n"),
+            "kit.wire:3:40: error: ground real: exact_below must be a height of 0 or more (0 "
+            "turns the exact ground off); got -2 m");
+  EXPECT_EQ(ErrorOf(kKit + "ground real preset=average exact_below=5MHz\n"),
+            "kit.wire:3:40: error: ground real: exact_below needs a length (m, cm, mm, ft, in); "
+            "got a frequency (Hz)");
+}
+
 TEST(ParseFrequency, BareFrequencyIsHertzAndLocationIsKept) {
   const Model a = Parse(kKit + "frequency 7100000\n");
   EXPECT_DOUBLE_EQ(*a.frequency_hz, 7.1e6);
@@ -746,7 +776,8 @@ TEST(ParseError, RealGroundNeedsBothConstants) {
             "kit.wire:3:28: error: ground real: missing 'conductivity=SIGMA' (S/m)");
   EXPECT_EQ(ErrorOf(kKit + "ground real permitivity=13\n"),
             "kit.wire:3:13: error: ground real: unknown setting 'permitivity' (did you mean "
-            "'permittivity'?); use preset=NAME, or permittivity= and conductivity=");
+            "'permittivity'?); use preset=NAME, or permittivity= and conductivity=, and optionally "
+            "method=exact|reflection and exact_below=HEIGHT");
   EXPECT_EQ(ErrorOf(kKit + "ground wet\n"),
             "kit.wire:3:8: error: ground: unknown kind 'wet'; use free, perfect or real");
   EXPECT_EQ(ErrorOf(kKit + "ground perfekt\n"),

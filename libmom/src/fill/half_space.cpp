@@ -1,0 +1,209 @@
+// Fill stage: the half-space correction integrated over a pair of segments (half_space.hpp).
+// The correction varies on the scale of R', the distance from the observer to the source's
+// image, which is at least the sum of their heights; the quadrature follows that scale: two
+// Gauss points per segment when the segment and the other's image are two segment lengths
+// apart or more, four when closer, and below half a segment length a composite rule graded
+// toward the ground (for wires that come down to it), four points per piece.
+#include "fill/half_space.hpp"
+
+#include <algorithm>
+#include <array>
+#include <boost/math/quadrature/gauss.hpp>
+#include <cmath>
+#include <vector>
+
+#include "core/constants.hpp"
+
+namespace wirefield::fill {
+namespace {
+
+using Complex = std::complex<double>;
+
+template <int N>
+struct UnitGauss {
+  std::array<double, N> x{}, w{};
+  UnitGauss() {
+    using G = boost::math::quadrature::gauss<double, N>;
+    const auto& abs = G::abscissa();
+    const auto& wts = G::weights();
+    int k = 0;
+    for (int i = static_cast<int>(abs.size()) - 1; i >= 0; --i) {
+      if (abs[i] == 0.0) continue;
+      x[k] = 0.5 * (1.0 - abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+    for (size_t i = 0; i < abs.size(); ++i) {
+      x[k] = 0.5 * (1.0 + abs[i]);
+      w[k++] = 0.5 * wts[i];
+    }
+  }
+};
+
+template <int N>
+const UnitGauss<N>& Gauss() {
+  static const UnitGauss<N> rule;
+  return rule;
+}
+
+// The quadrature follows the image moments' (fill/kernel.cpp: six points per segment within
+// four segment lengths, four within ten, three beyond), so that where the half-space tends to
+// no ground or to a perfect ground the correction cancels or vanishes with the image to
+// rounding; far pairs with short segments take two points, exact for cubics: beyond ten segment
+// lengths the correction varies by under 10% across a segment and the two-point rule's error is
+// under 1e-6 of the pair's term. Closer than kGradedFactor segment lengths (wires that come
+// down to the ground): a composite rule graded toward the ground.
+constexpr double kGradedFactor = 0.5;
+constexpr double kSixPointFactor = 4.0;
+constexpr double kFourPointFactor = 10.0;
+// Two points only when the phase across the longer segment (k L, with the ground's k1 where its
+// wave reaches the pair) is below this: the rule's error on exp(-j k x) is (k L)^4 / 4320.
+constexpr double kTwoPointPhase = 0.2;
+// Width of a graded piece relative to the local scale (its height plus the other segment's).
+constexpr double kGradedWidth = 0.75;
+// The table's floor on heights, in wavelengths: below it the normalized correction is that of
+// the floor (it tends to the static images there; docs/numerics.md).
+constexpr double kFloorWavelengths = 2e-4;
+
+struct Node {
+  double t, w;
+  Vec3 p;
+};
+
+template <int N>
+void AddPieces(const Vec3& s0, const Vec3& s1, double lo, double hi, std::vector<Node>* nodes) {
+  const auto& g = Gauss<N>();
+  for (int i = 0; i < N; ++i) {
+    const double t = lo + (hi - lo) * g.x[i];
+    nodes->push_back({t, (hi - lo) * g.w[i], s0 + (s1 - s0) * t});
+  }
+}
+
+// The quadrature nodes on segment s0-s1: `points` Gauss points, or (points == 0) the composite
+// rule graded toward the ground, the other segment's lowest point being at other_low_m.
+std::vector<Node> SegmentNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m,
+                               double floor_m) {
+  std::vector<Node> nodes;
+  switch (points) {
+    case 2:
+      AddPieces<2>(s0, s1, 0.0, 1.0, &nodes);
+      return nodes;
+    case 3:
+      AddPieces<3>(s0, s1, 0.0, 1.0, &nodes);
+      return nodes;
+    case 4:
+      AddPieces<4>(s0, s1, 0.0, 1.0, &nodes);
+      return nodes;
+    case 6:
+      AddPieces<6>(s0, s1, 0.0, 1.0, &nodes);
+      return nodes;
+    default:
+      break;
+  }
+  // Graded from the lower end: each piece as wide as kGradedWidth times the local scale.
+  const double length = (s1 - s0).norm();
+  const bool start_low = s0.z() <= s1.z();
+  const double z_low = std::min(s0.z(), s1.z()), rise = std::abs(s1.z() - s0.z());
+  std::vector<double> breaks{0.0};  // distance from the lower end, in units of the length
+  constexpr int kMaxPieces = 64;
+  while (breaks.back() < 1.0 && static_cast<int>(breaks.size()) <= kMaxPieces) {
+    const double s = breaks.back();
+    const double scale_m = std::max(std::max(z_low, 0.0) + rise * s + other_low_m, floor_m);
+    breaks.push_back(std::min(1.0, s + kGradedWidth * scale_m / length));
+  }
+  breaks.back() = 1.0;
+  for (size_t b = 0; b + 1 < breaks.size(); ++b) {
+    const double lo = start_low ? breaks[b] : 1.0 - breaks[b + 1];
+    const double hi = start_low ? breaks[b + 1] : 1.0 - breaks[b];
+    AddPieces<4>(s0, s1, lo, hi, &nodes);
+  }
+  return nodes;
+}
+
+}  // namespace
+
+HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double wavenumber_per_m,
+                             double exact_below_m)
+    : wavenumber_(wavenumber_per_m), exact_below_m_(exact_below_m) {
+  const Complex k1 = wavenumber_per_m * std::sqrt(eps_c);
+  ground_wavenumber_ = std::abs(k1);
+  ground_wave_decay_ = std::abs(std::sqrt(k1 * k1 - wavenumber_per_m * wavenumber_per_m));
+  const double wavelength = 2.0 * core::kPi / wavenumber_per_m;
+  floor_m_ = kFloorWavelengths * wavelength;
+  // The range of the table: every pair of points of the mesh, R' = |p - mirror(q)|.
+  Eigen::Vector3d lo = Eigen::Vector3d::Constant(INFINITY), hi = -lo;
+  for (const geometry::Segment& s : mesh.segments) {
+    lo = lo.cwiseMin(s.start).cwiseMin(s.end);
+    hi = hi.cwiseMax(s.start).cwiseMax(s.end);
+  }
+  const double z_low = std::max(lo.z(), 0.0);
+  const double zeta_min = std::max(2.0 * z_low, floor_m_);
+  const double horizontal = std::hypot(hi.x() - lo.x(), hi.y() - lo.y());
+  const double r_max =
+      std::max(1.02 * std::hypot(horizontal, 2.0 * std::max(hi.z(), 0.0)), 2.0 * zeta_min);
+  table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
+                                                    zeta_min, r_max, zeta_min);
+}
+
+bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {
+  const double mean_height = 0.25 * (a.start.z() + a.end.z() + b.start.z() + b.end.z());
+  return mean_height < exact_below_m_;
+}
+
+HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3& b0,
+                                     const Vec3& b1) const {
+  const Vec3 mirror(1.0, 1.0, -1.0);
+  const double gap =
+      geometry::SegmentDistance(a0, a1, b0.cwiseProduct(mirror), b1.cwiseProduct(mirror), nullptr);
+  const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
+  const double a_low = std::max(std::min(a0.z(), a1.z()), 0.0);
+  const double b_low = std::max(std::min(b0.z(), b1.z()), 0.0);
+  int points = 0;
+  if (gap >= kFourPointFactor * longest) {
+    // The ground's own wave (wavenumber k1) decays away from the surface as
+    // exp(-|sqrt(k1^2 - k0^2)| zeta); where it still reaches the pair its phase counts too.
+    const double k = ground_wave_decay_ * (a_low + b_low) < 7.0
+                         ? std::max(wavenumber_, ground_wavenumber_)
+                         : wavenumber_;
+    points = k * longest < kTwoPointPhase ? 2 : 3;
+  } else if (gap >= kSixPointFactor * longest) {
+    points = 4;
+  } else if (gap >= kGradedFactor * longest) {
+    points = 6;
+  }
+  const std::vector<Node> obs = SegmentNodes(a0, a1, points, b_low, floor_m_);
+  const std::vector<Node> src = SegmentNodes(b0, b1, points, a_low, floor_m_);
+  const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
+  const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
+  const double vertical = ua.z() * ub.z();
+  HalfSpacePair out;
+  for (const Node& o : obs) {
+    Complex s0 = 0.0, s1 = 0.0, q0 = 0.0;
+    for (const Node& s : src) {
+      const double dx = o.p.x() - s.p.x(), dy = o.p.y() - s.p.y();
+      const double rho = std::sqrt(dx * dx + dy * dy), zeta = o.p.z() + s.p.z();
+      const double r = std::max(std::sqrt(rho * rho + zeta * zeta), 1e-12 * floor_m_);
+      const std::array<Complex, 4> n = table_->NormalizedClamped(rho, zeta);
+      const Complex image = std::polar(s.w / r, -wavenumber_ * r);
+      // The coupling's direction factor u_obs,z (u_src . rho_hat) - u_src,z (u_obs . rho_hat),
+      // rho_hat the horizontal unit vector from the source point toward the observer.
+      double coupling = 0.0;
+      if (rho > 0.0) {
+        const double ub_rho = (ub.x() * dx + ub.y() * dy) / rho;
+        const double ua_rho = (ua.x() * dx + ua.y() * dy) / rho;
+        coupling = ua.z() * ub_rho - ub.z() * ua_rho;
+      }
+      const Complex vector = (n[0] * horizontal + n[1] * vertical + n[3] * coupling) * image;
+      s0 += vector;
+      s1 += vector * s.t;
+      q0 += n[2] * image;
+    }
+    out.vector.m00 += o.w * s0;
+    out.vector.m10 += o.w * o.t * s0;
+    out.vector.m01 += o.w * s1;
+    out.vector.m11 += o.w * o.t * s1;
+    out.charge += o.w * q0;
+  }
+  return out;
+}
+
+}  // namespace wirefield::fill

@@ -1,0 +1,148 @@
+// Validation: the exact (Sommerfeld) half-space ground in the matrix. Checked against its two
+// closed-form limits (no contrast: free space; infinite conductivity: the perfect image),
+// reciprocity, the reflection-coefficient approximation far from the ground, where both must
+// agree (Fresnel's plane-wave reflection is the far-zone limit of the Sommerfeld integrals),
+// and the trend of a low dipole's feed resistance with height over average ground.
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "fill/assemble.hpp"
+#include "geometry/mesh.hpp"
+#include "validation/test_models.hpp"
+
+namespace wirefield {
+namespace {
+
+using testing::HorizontalDipole;
+using testing::kUnitWavelengthHz;
+
+constexpr double kC = 299792458.0;
+
+GroundSpec Exact(double permittivity, double conductivity, double exact_below_m = 1e9) {
+  GroundSpec g;
+  g.kind = GroundKind::kReal;
+  g.permittivity = permittivity;
+  g.conductivity_s_per_m = conductivity;
+  g.method = GroundMethod::kExact;
+  g.exact_below_m = exact_below_m;
+  return g;
+}
+
+// A horizontal dipole 0.2 wavelength up and a sloping wire above it (wavelength 1 m, segments
+// of about 1/40 wavelength): every direction of current, with its image pairs.
+Model TwoWires(const GroundSpec& ground) {
+  Model m = HorizontalDipole(0.5, 1e-3, 21, 0.2);
+  m.wires.push_back(testing::Wire("slant", {0.3, 0.2, 0.25}, {0.1, 0.5, 0.6}, 1e-3, 19));
+  m.ground = ground;
+  return m;
+}
+
+Eigen::MatrixXcd Matrix(const Model& m, double frequency_hz = kUnitWavelengthHz) {
+  geometry::MeshOptions o;
+  o.max_frequency_hz = frequency_hz;
+  return fill::AssembleImpedance(geometry::BuildMesh(m, o), frequency_hz);
+}
+
+double RelativeDifference(const Eigen::MatrixXcd& a, const Eigen::MatrixXcd& b) {
+  return (a - b).norm() / b.norm();
+}
+
+TEST(HalfSpaceGround, EmptySpaceBelowGivesTheFreeSpaceMatrix) {
+  // eps_r = 1, sigma = 0: the half-space is vacuum, the reflection coefficients R_TE, R_TM and
+  // R_q vanish, and the corrections cancel the perfect image exactly (Sommerfeld's identity,
+  // ground/sommerfeld.hpp), so the matrix must be the free-space one. Tolerance 1e-6, as
+  // required of the limit; the cancellation happens at the same quadrature points.
+  const Eigen::MatrixXcd free_space = Matrix(TwoWires({}));
+  const double error = RelativeDifference(Matrix(TwoWires(Exact(1.0, 0.0))), free_space);
+  EXPECT_LT(error, 1e-6);
+}
+
+TEST(HalfSpaceGround, InfiniteConductivityGivesThePerfectGroundMatrix) {
+  // As sigma grows, R_TE -> -1, R_TM -> 1 and R_q -> 0: the corrections vanish as
+  // 1/sqrt(|eps_c|) and the matrix tends to the perfect ground's (image theory). At
+  // sigma = 1e10 S/m, |eps_c| = 6e11 at this frequency: the departure must be below 1e-6, the
+  // bound required of this limit (1/sqrt(6e11) is about 1.3e-6 of the image, a fraction of Z).
+  GroundSpec perfect;
+  perfect.kind = GroundKind::kPerfect;
+  const Eigen::MatrixXcd image = Matrix(TwoWires(perfect));
+  double previous = INFINITY;
+  for (const double sigma : {1e4, 1e6, 1e8, 1e10}) {
+    const double error = RelativeDifference(Matrix(TwoWires(Exact(10.0, sigma))), image);
+    EXPECT_LT(error, previous) << "sigma " << sigma;
+    previous = error;
+  }
+  EXPECT_LT(previous, 1e-6);
+}
+
+TEST(HalfSpaceGround, MatrixIsSymmetric) {
+  // Reciprocity: the Galerkin matrix of a reciprocal medium is symmetric, Z = Z^T (Harrington,
+  // Field Computation by Moment Methods, 1968, from memory); the half-space kernels are
+  // symmetric under the exchange of source and observer. Here with a wire that comes down to
+  // the ground (graded quadrature) and a low sloping wire.
+  Model m = TwoWires(Exact(13.0, 5e-3));
+  m.wires.push_back(testing::Wire("mast", {-0.6, 0.0, 0.0}, {-0.6, 0.0, 0.25}, 1e-3, 10));
+  m.feeds.push_back(testing::Feed("base", "mast", PointKind::kStart, 0.0));
+  const Eigen::MatrixXcd z = Matrix(m);
+  EXPECT_LT((z - z.transpose()).norm(), 1e-12 * z.norm());
+}
+
+TEST(HalfSpaceGround, FarFromTheGroundItAgreesWithTheReflectionCoefficients) {
+  // A wavelength up, the Fresnel coefficients at the specular point describe the reflected
+  // field to O(1/(k R')) (the stationary-phase limit of the Sommerfeld integrals; Banos,
+  // Dipole Radiation in the Presence of a Conducting Half-Space, 1966, from memory): the feed
+  // impedances must agree to well under 1%: 0.5%, some ten times the O(1/(k R')^2) term here.
+  const double f = 14.2e6, lambda = kC / f;
+  for (const GroundSpec& g : {Exact(13.0, 5e-3), Exact(3.0, 1e-4), Exact(30.0, 1e-2)}) {
+    Model m = HorizontalDipole(0.48 * lambda, 1e-3, 21, lambda);
+    GroundSpec approx = g;
+    approx.method = GroundMethod::kReflection;
+    m.ground = g;
+    const Complex exact = testing::SolveFeedImpedance(m, f);
+    m.ground = approx;
+    const Complex reflection = testing::SolveFeedImpedance(m, f);
+    EXPECT_LT(std::abs(exact - reflection) / std::abs(exact), 0.005)
+        << exact << " vs " << reflection << " eps " << g.permittivity;
+  }
+}
+
+TEST(HalfSpaceGround, LowDipoleResistanceFallsThenRisesOverLossyGround) {
+  // A horizontal half-wave dipole over average ground (13, 5 mS/m; common practice): its feed
+  // resistance falls well below the free-space value (about 73 ohm) under about 0.15
+  // wavelength and rises again very close to the lossy ground, where the ground's loss
+  // dominates (REFERENCES.md §8, common practice).
+  const double f = 14.2e6, lambda = kC / f;
+  auto resistance = [&](double height_wavelengths) {
+    Model m = HorizontalDipole(0.48 * lambda, 1e-3, 21, height_wavelengths * lambda);
+    m.ground = Exact(13.0, 5e-3);
+    return testing::SolveFeedImpedance(m, f).real();
+  };
+  const double r02 = resistance(0.02), r05 = resistance(0.05), r10 = resistance(0.1),
+               r15 = resistance(0.15), r30 = resistance(0.3);
+  EXPECT_LT(r10, 60.0) << r10;
+  EXPECT_LT(r10, r30) << r10 << " " << r30;
+  EXPECT_LT(r15, r30) << r15 << " " << r30;
+  EXPECT_GT(r02, std::min(r05, r10)) << r02 << " " << r05 << " " << r10;
+}
+
+TEST(HalfSpaceGround, AWireInTheGroundIsRefused) {
+  // The fill assumes both points of every pair in the air: a wire below z = 0 or lying on the
+  // soil would be computed wrongly, so it is an input error naming the wire.
+  Model m = HorizontalDipole(0.5, 1e-3, 21, -0.1);
+  m.ground = Exact(13.0, 5e-3);
+  geometry::MeshOptions o;
+  o.max_frequency_hz = kUnitWavelengthHz;
+  try {
+    geometry::BuildMesh(m, o);
+    FAIL() << "a buried wire was accepted";
+  } catch (const InputError& e) {
+    EXPECT_NE(std::string(e.what()).find("goes below the real ground"), std::string::npos)
+        << e.what();
+  }
+  m = HorizontalDipole(0.5, 1e-3, 21, 0.0005);
+  m.ground = Exact(13.0, 5e-3);
+  EXPECT_THROW(geometry::BuildMesh(m, o), InputError);
+}
+
+}  // namespace
+}  // namespace wirefield
