@@ -220,45 +220,6 @@ SegmentNodes MakeSegmentNodes(const Vec3& start, const Vec3& end) {
 
 namespace {
 
-// Above this |k (R - R_c)| the series below would need more terms: the pair falls back to one
-// sine and cosine per point. 0.5 rad covers segments up to about a twelfth of a wavelength.
-constexpr double kSeriesPhaseLimit = 0.5;
-
-// Below this |k (R - R_c)| a shorter series serves: its first term left out, 0.05^8 / 8!, is
-// 1e-15.
-constexpr double kShortSeriesPhaseLimit = 0.05;
-
-// exp(-jx) by its Taylor series: through x^15 for |x| <= kSeriesPhaseLimit (the first term
-// left out, 0.5^16 / 16!, is 7e-19), through x^7 for |x| <= kShortSeriesPhaseLimit.
-template <bool kShort>
-inline void SeriesPhase(double x, double* c, double* s) {
-  const double x2 = x * x;
-  double cp = 0.0, sp = 0.0;
-  if constexpr (kShort) {
-    cp = -1.0 / 720.0;
-    sp = -1.0 / 5040.0;
-  } else {
-    cp = 1.0 / 87178291200.0;  // 1/14!
-    cp = cp * (-x2) + 1.0 / 479001600.0;
-    cp = cp * (-x2) + 1.0 / 3628800.0;
-    cp = cp * (-x2) + 1.0 / 40320.0;
-    cp = cp * x2 - 1.0 / 720.0;
-    sp = -1.0 / 1307674368000.0;  // -1/15!
-    sp = sp * x2 + 1.0 / 6227020800.0;
-    sp = sp * (-x2) + 1.0 / 39916800.0;
-    sp = sp * (-x2) + 1.0 / 362880.0;
-    sp = sp * x2 - 1.0 / 5040.0;
-  }
-  cp = cp * x2 + 1.0 / 24.0;
-  cp = cp * (-x2) + 1.0 / 2.0;
-  cp = cp * (-x2) + 1.0;
-  sp = sp * x2 + 1.0 / 120.0;
-  sp = sp * (-x2) + 1.0 / 6.0;
-  sp = sp * (-x2) + 1.0;
-  *c = cp;
-  *s = -x * sp;
-}
-
 // w exp(-jkR) / R at every point of a pair as real and imaginary parts, the phase from the
 // centres' and a series (|k (R - R_c)| <= k reach, FarMoments).
 template <bool kShort, int Count>

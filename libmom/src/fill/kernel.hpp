@@ -59,6 +59,45 @@ inline constexpr double kFarthestPhase = 0.04;
 PairMoments FarMoments(const SegmentNodes& a, const SegmentNodes& b, double radius2_m2,
                        double wavenumber_per_m);
 
+// Above this |x| the series below would need more terms (the fill then falls back to one sine
+// and cosine per point; 0.5 rad covers segments up to a twelfth of a wavelength).
+inline constexpr double kSeriesPhaseLimit = 0.5;
+
+// Below this |x| a shorter series serves: its first term left out, 0.05^8 / 8!, is
+// 1e-15.
+inline constexpr double kShortSeriesPhaseLimit = 0.05;
+
+// exp(-jx) by its Taylor series: through x^15 for |x| <= kSeriesPhaseLimit (the first term
+// left out, 0.5^16 / 16!, is 7e-19), through x^7 for |x| <= kShortSeriesPhaseLimit.
+template <bool kShort>
+inline void SeriesPhase(double x, double* c, double* s) {
+  const double x2 = x * x;
+  double cp = 0.0, sp = 0.0;
+  if constexpr (kShort) {
+    cp = -1.0 / 720.0;
+    sp = -1.0 / 5040.0;
+  } else {
+    cp = 1.0 / 87178291200.0;  // 1/14!
+    cp = cp * (-x2) + 1.0 / 479001600.0;
+    cp = cp * (-x2) + 1.0 / 3628800.0;
+    cp = cp * (-x2) + 1.0 / 40320.0;
+    cp = cp * x2 - 1.0 / 720.0;
+    sp = -1.0 / 1307674368000.0;  // -1/15!
+    sp = sp * x2 + 1.0 / 6227020800.0;
+    sp = sp * (-x2) + 1.0 / 39916800.0;
+    sp = sp * (-x2) + 1.0 / 362880.0;
+    sp = sp * x2 - 1.0 / 5040.0;
+  }
+  cp = cp * x2 + 1.0 / 24.0;
+  cp = cp * (-x2) + 1.0 / 2.0;
+  cp = cp * (-x2) + 1.0;
+  sp = sp * x2 + 1.0 / 120.0;
+  sp = sp * (-x2) + 1.0 / 6.0;
+  sp = sp * (-x2) + 1.0;
+  *c = cp;
+  *s = -x * sp;
+}
+
 // Same moments by brute-force high-order product quadrature (for tests of the fast path).
 PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Vec3& b0,
                                         const Vec3& b1, double radius2_m2, double wavenumber_per_m,
