@@ -180,7 +180,9 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   // equal triangle area; block t writes the rows of the bases on it, and a basis with pieces
   // in two blocks (block edges, junctions) has its row kept aside by each block and added
   // after, in block order. The blocks do not depend on the thread count, so neither does any
-  // rounding: the matrix is bit-identical for every fill_threads.
+  // rounding: the matrix is bit-identical for every fill_threads. W is stored transposed (its
+  // row of basis m as column m of z), so that a block writes down columns, one cache line
+  // after another, not across them (stride n) as rows of the column-major matrix would.
   const int blocks = std::clamp(kFillBlocks, 1, std::max(1, ns));
   const int threads = std::clamp(fill_threads, 1, blocks);
   std::vector<int> block_start(blocks + 1);
@@ -256,7 +258,7 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
           if (aside) {
             aside[pn.basis] += value;
           } else {
-            z(pm.basis, pn.basis) += value;
+            z(pn.basis, pm.basis) += value;  // W^T: basis m's row of W is its column here
           }
         }
       }
@@ -323,9 +325,9 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     for (std::thread& th : pool) th.join();
   }
   for (const SpillRows& spill : spills) {
-    for (const auto& [b, row] : spill) z.row(b) += row.transpose();
+    for (const auto& [b, row] : spill) z.col(b) += row;
   }
-  // Z = W + W^T, in place.
+  // z holds W^T; Z = W^T + W, in place.
   for (int c = 0; c < n; ++c) {
     for (int r = 0; r < c; ++r) {
       const Complex sum = z(r, c) + z(c, r);
