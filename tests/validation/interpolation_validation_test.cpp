@@ -4,6 +4,7 @@
 // reference is the same solver filling the matrix exactly at each frequency; the method is
 // Newman, "Generation of wide-band data from the method of moments by interpolating the
 // impedance matrix", IEEE Trans. Antennas Propag. 36(12), 1988 (volume and pages from memory).
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <complex>
@@ -55,7 +56,7 @@ TEST(MatrixInterpolation, DipoleSweepStaysWithinTwoTenthsOfAPercentOfTheExactFil
   EXPECT_LT(c.worst, kMaxRelativeError);
   EXPECT_EQ(c.interpolated, 351);
   EXPECT_LE(c.fills, 6);  // one window of three anchors holds the whole 2.5% sweep
-  RecordProperty("worst_relative_error", std::to_string(c.worst));
+  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
 }
 
 TEST(MatrixInterpolation, CoilLoadedEndFedWithTransformerStaysWithinBound) {
@@ -72,7 +73,7 @@ TEST(MatrixInterpolation, CoilLoadedEndFedWithTransformerStaysWithinBound) {
       7.0e6, 7.35e6);
   EXPECT_LT(c.worst, kMaxRelativeError);
   EXPECT_EQ(c.interpolated, 351);
-  RecordProperty("worst_relative_error", std::to_string(c.worst));
+  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
 }
 
 TEST(MatrixInterpolation, VerticalOverRealGroundStaysWithinBound) {
@@ -86,7 +87,7 @@ TEST(MatrixInterpolation, VerticalOverRealGroundStaysWithinBound) {
       14.0e6, 14.35e6);
   EXPECT_LT(c.worst, kMaxRelativeError);
   EXPECT_EQ(c.interpolated, 351);
-  RecordProperty("worst_relative_error", std::to_string(c.worst));
+  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
 }
 
 }  // namespace
