@@ -104,19 +104,33 @@ NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh) {
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   NearFieldCache cache;
   cache.by_observation.resize(ns);
+  // A pair is near only if its centres lie within both half-lengths plus the longer length
+  // (IsNearPair): farther pairs are passed over without a square root. The margin keeps
+  // rounding from passing over a pair IsNearPair would take.
+  std::vector<geometry::Vec3> centre(ns);
+  std::vector<double> length(ns);
+  for (int s = 0; s < ns; ++s) {
+    centre[s] = 0.5 * (mesh.segments[s].start + mesh.segments[s].end);
+    length[s] = mesh.segments[s].length_m();
+  }
+  auto may_be_near = [&](int i, int j, const geometry::Vec3& centre_j) {
+    const double reach = 0.5 * (length[i] + length[j]) + std::max(length[i], length[j]);
+    return (centre[i] - centre_j).squaredNorm() <= 1.01 * reach * reach;
+  };
   for (int i = 0; i < ns; ++i) {
     const geometry::Segment& si = mesh.segments[i];
     for (int j = i; j < ns; ++j) {
       const geometry::Segment& sj = mesh.segments[j];
       const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
-      if (IsNearPair(si.start, si.end, sj.start, sj.end)) {
+      if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
         cache.by_observation[i].push_back(
             {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
       }
       if (mesh.ground_images) {
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-        if (IsNearPair(si.start, si.end, img0, img1)) {
+        if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
+            IsNearPair(si.start, si.end, img0, img1)) {
           cache.by_observation[i].push_back(
               {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
         }
