@@ -142,7 +142,9 @@ int SimulationAccess::FillThreads(const Simulation& simulation) {
 }
 
 SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double frequency_hz,
-                                          Eigen::MatrixXcd z, double fill_time_s) {
+                                          Eigen::MatrixXcd z, double fill_time_s,
+                                          const ReducedSpace* reduced, Eigen::VectorXcd* currents,
+                                          bool* projected) {
   const Model& model = simulation.impl_->model;
   const geometry::Mesh& mesh = simulation.impl_->mesh;
   CheckFrequency(model, frequency_hz);
@@ -157,9 +159,26 @@ SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double f
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
   r.fill_time_s = fill_time_s + Seconds(t0);
   t0 = std::chrono::steady_clock::now();
-  const solve::DenseSolution sol = solve::SolveDense(std::move(z), v);
+  solve::DenseSolution sol;
+  bool from_reduced = false;
+  if (reduced && reduced->basis.cols() > 0 && v.norm() > 0.0) {
+    const Eigen::MatrixXcd zq = z * reduced->basis;
+    const Eigen::VectorXcd y = zq.householderQr().solve(v);
+    const double residual = (zq * y - v).norm() / v.norm();
+    if (residual <= reduced->max_relative_residual && y.allFinite()) {
+      sol.currents = reduced->basis * y;
+      sol.relative_residual = residual;
+      r.condition_number = reduced->condition_number;
+      from_reduced = true;
+    }
+  }
+  if (!from_reduced) {
+    sol = solve::SolveDense(std::move(z), v);
+    r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond < 1e-14
+  }
+  if (projected) *projected = from_reduced;
+  if (currents) *currents = sol.currents;
   r.solve_time_s = Seconds(t0);
-  r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond below 1e-14
   r.relative_residual = sol.relative_residual;
 
   const double z0 = model.z0_ohm.value_or(kDefaultZ0Ohm);

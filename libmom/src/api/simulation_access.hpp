@@ -19,8 +19,22 @@ struct SimulationAccess {
   // Solve() from the antenna's own matrix z (as fill::AssembleImpedance returns it, or
   // interpolated): adds the loads and the conductor loss at frequency_hz, solves, and reports.
   // fill_time_s is the time already spent on z (reported as part of the fill time).
+  //
+  // reduced (optional): currents of nearby frequencies as orthonormal columns. The solve then
+  // first tries the least-squares currents in their span, min |Z Q y - V|, and keeps them when
+  // their relative residual |Z I - V| / |V| is at most reduced->max_relative_residual (the
+  // condition number reported is then reduced->condition_number, that of the dense solves the
+  // columns came from); else it solves densely. currents (optional) receives the currents;
+  // projected (optional) says whether the reduced solve served.
+  struct ReducedSpace {
+    Eigen::MatrixXcd basis;
+    double max_relative_residual = 0.0;
+    double condition_number = 0.0;
+  };
   static SolveResult SolveFilled(const Simulation& simulation, double frequency_hz,
-                                 Eigen::MatrixXcd z, double fill_time_s);
+                                 Eigen::MatrixXcd z, double fill_time_s,
+                                 const ReducedSpace* reduced = nullptr,
+                                 Eigen::VectorXcd* currents = nullptr, bool* projected = nullptr);
 };
 
 }  // namespace wirefield

@@ -60,6 +60,14 @@ namespace {
 // impedance error of a 10% window was 5e-6 over the tested models, 400 times below 0.2%, and
 // it grows as the cube of the width.
 constexpr double kWindowFraction = 0.10;
+// Reduced solve (SimulationAccess::ReducedSpace): a window of at least
+// kMinPointsForReducedSolve points solves kSnapshots of them densely and the others, where the
+// residual allows, in the span of those currents. The residual bound keeps the currents'
+// error (at most the condition number times the residual) far below the interpolation's
+// own; measured against the exact sweep in tests/validation/interpolation_validation_test.cpp.
+constexpr size_t kSnapshots = 8;
+constexpr size_t kMinPointsForReducedSolve = 3 * kSnapshots;
+constexpr double kReducedMaxRelativeResidual = 1e-8;
 // A window with fewer points than this is solved exactly: three anchor fills would not pay.
 constexpr size_t kMinPointsPerWindow = 8;
 // The anchors of a window (3 matrices, 6 over a ground) may take at most this much memory;
@@ -183,15 +191,58 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
                                                 {low_hz, 0.5 * (low_hz + high_hz), high_hz},
                                                 fill_threads);
     out.matrix_fills += 3;
-    ParallelFor(threads, window.size(), [&](size_t w) {
+    // Dense solves at kSnapshots points spread over the window; every other point then first
+    // tries the currents in the span of theirs (SimulationAccess::ReducedSpace), which costs
+    // a product of Z with kSnapshots vectors instead of a factorisation. The snapshots do not
+    // depend on the threads, so neither does any result.
+    auto solve_point = [&](size_t w, const SimulationAccess::ReducedSpace* reduced,
+                           Eigen::VectorXcd* currents, bool* projected) {
       const size_t i = window[w];
       const auto t0 = std::chrono::steady_clock::now();
       Eigen::MatrixXcd z;
       interpolator.At(frequencies_hz[i], &z);
       const double fill_s =
           std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
-      record(i, SimulationAccess::SolveFilled(simulation, frequencies_hz[i], std::move(z), fill_s));
+      return SimulationAccess::SolveFilled(simulation, frequencies_hz[i], std::move(z), fill_s,
+                                           reduced, currents, projected);
+    };
+    const size_t snapshots = window.size() >= kMinPointsForReducedSolve ? kSnapshots : 0;
+    std::vector<bool> is_snapshot(window.size(), false);
+    std::vector<size_t> snapshot_at;
+    for (size_t s = 0; s < snapshots; ++s) {
+      snapshot_at.push_back(s * (window.size() - 1) / (snapshots - 1));
+      is_snapshot[snapshot_at.back()] = true;
+    }
+    std::vector<Eigen::VectorXcd> snapshot_currents(snapshots);
+    std::vector<double> snapshot_condition(snapshots, 0.0);
+    ParallelFor(threads, snapshots, [&](size_t s) {
+      const SolveResult r = solve_point(snapshot_at[s], nullptr, &snapshot_currents[s], nullptr);
+      snapshot_condition[s] = r.condition_number;
+      record(window[snapshot_at[s]], r);
     });
+    SimulationAccess::ReducedSpace reduced;
+    if (snapshots > 0) {
+      const Eigen::Index n = snapshot_currents[0].size();
+      const Eigen::Index m = static_cast<Eigen::Index>(snapshots);
+      Eigen::MatrixXcd columns(n, m);
+      for (Eigen::Index s = 0; s < m; ++s) columns.col(s) = snapshot_currents[s];
+      reduced.basis = columns.householderQr().householderQ() * Eigen::MatrixXcd::Identity(n, m);
+      reduced.max_relative_residual = kReducedMaxRelativeResidual;
+      reduced.condition_number =
+          *std::max_element(snapshot_condition.begin(), snapshot_condition.end());
+    }
+    std::vector<size_t> rest;
+    for (size_t w = 0; w < window.size(); ++w) {
+      if (!is_snapshot[w]) rest.push_back(w);
+    }
+    std::atomic<int> projected_count{0};
+    ParallelFor(threads, rest.size(), [&](size_t e) {
+      bool projected = false;
+      record(window[rest[e]],
+             solve_point(rest[e], snapshots > 0 ? &reduced : nullptr, nullptr, &projected));
+      if (projected) ++projected_count;
+    });
+    out.projected_points += projected_count;
     out.interpolated_points += static_cast<int>(window.size());
   }
   ParallelFor(threads, plan.exact.size(), [&](size_t e) {

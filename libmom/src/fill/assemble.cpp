@@ -35,6 +35,12 @@ constexpr int kFillBlocks = 32;
 constexpr double kOpenRelativeAdmittance = 1e-12;
 constexpr double kOpenStandInOhm = 1e12;
 
+// a b by the textbook formula. The operator's C99 Annex G checks for infinite parts (which
+// cannot occur here: every factor is finite) cost the fill's inner loop a branch and a call.
+inline Complex Multiply(Complex a, Complex b) {
+  return {a.real() * b.real() - a.imag() * b.imag(), a.real() * b.imag() + a.imag() * b.real()};
+}
+
 // A segment's interaction with itself (or its own image) is symmetric in t and t'; the
 // quadrature is not exactly, so average the two mixed moments to keep Z = Z^T to rounding.
 void Symmetrize(PairMoments* m) {
@@ -100,19 +106,33 @@ NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh) {
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   NearFieldCache cache;
   cache.by_observation.resize(ns);
+  // A pair is near only if its centres lie within both half-lengths plus the longer length
+  // (IsNearPair): farther pairs are passed over without a square root. The margin keeps
+  // rounding from passing over a pair IsNearPair would take.
+  std::vector<geometry::Vec3> centre(ns);
+  std::vector<double> length(ns);
+  for (int s = 0; s < ns; ++s) {
+    centre[s] = 0.5 * (mesh.segments[s].start + mesh.segments[s].end);
+    length[s] = mesh.segments[s].length_m();
+  }
+  auto may_be_near = [&](int i, int j, const geometry::Vec3& centre_j) {
+    const double reach = 0.5 * (length[i] + length[j]) + std::max(length[i], length[j]);
+    return (centre[i] - centre_j).squaredNorm() <= 1.01 * reach * reach;
+  };
   for (int i = 0; i < ns; ++i) {
     const geometry::Segment& si = mesh.segments[i];
     for (int j = i; j < ns; ++j) {
       const geometry::Segment& sj = mesh.segments[j];
       const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
-      if (IsNearPair(si.start, si.end, sj.start, sj.end)) {
+      if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
         cache.by_observation[i].push_back(
             {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
       }
       if (mesh.ground_images) {
         const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
         const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-        if (IsNearPair(si.start, si.end, img0, img1)) {
+        if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
+            IsNearPair(si.start, si.end, img0, img1)) {
           cache.by_observation[i].push_back(
               {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
         }
@@ -185,7 +205,9 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   // equal triangle area; block t writes the rows of the bases on it, and a basis with pieces
   // in two blocks (block edges, junctions) has its row kept aside by each block and added
   // after, in block order. The blocks do not depend on the thread count, so neither does any
-  // rounding: the matrix is bit-identical for every fill_threads.
+  // rounding: the matrix is bit-identical for every fill_threads. W is stored transposed (its
+  // row of basis m as column m of z), so that a block writes down columns, one cache line
+  // after another, not across them (stride n) as rows of the column-major matrix would.
   const int blocks = std::clamp(kFillBlocks, 1, std::max(1, ns));
   const int threads = std::clamp(fill_threads, 1, blocks);
   std::vector<int> block_start(blocks + 1);
@@ -207,17 +229,26 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     }
   }
 
-  // Cached static part (near pairs) plus the frequency-dependent part.
-  auto Moments = [&](int i, int j, bool image, const geometry::Vec3& a0, const geometry::Vec3& a1,
-                     const geometry::Vec3& b0, const geometry::Vec3& b1, double radius2) {
-    const NearFieldCache::Entry* near = cache.Find(i, j, image);
-    PairMoments m = FrequencyMoments(a0, a1, b0, b1, radius2, k, near != nullptr);
-    if (near) {
-      m.m00 += near->statics.m00;
-      m.m10 += near->statics.m10;
-      m.m01 += near->statics.m01;
-      m.m11 += near->statics.m11;
+  // Each segment's Gauss points, and those of its mirror image, once per fill.
+  const bool with_images = mesh.ground_images && images;
+  std::vector<SegmentNodes> nodes(ns), image_nodes(with_images ? ns : 0);
+  for (int s = 0; s < ns; ++s) {
+    nodes[s] = MakeSegmentNodes(mesh.segments[s].start, mesh.segments[s].end);
+    if (with_images) {
+      image_nodes[s] = MakeSegmentNodes(mesh.segments[s].start.cwiseProduct(mirror),
+                                        mesh.segments[s].end.cwiseProduct(mirror));
     }
+  }
+
+  // Cached static part (near pairs) plus the frequency-dependent part.
+  auto Moments = [&](const NearFieldCache::Entry* near, const SegmentNodes& a,
+                     const SegmentNodes& b, double radius2) {
+    if (!near) return FarMoments(a, b, radius2, k);
+    PairMoments m = FrequencyMoments(a.start, a.end, b.start, b.end, radius2, k, true);
+    m.m00 += near->statics.m00;
+    m.m10 += near->statics.m10;
+    m.m01 += near->statics.m01;
+    m.m11 += near->statics.m11;
     return m;
   };
 
@@ -242,14 +273,17 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
       const Complex s_part = c_scalar * charge_weight;
       for (const PieceRef& pm : on_segment[i]) {
         Complex* aside = row_of(pm.basis);
+        // value(pn) = a_part (pm.alpha pn.alpha m00 + pm.alpha pn.beta m01 + pm.beta pn.alpha
+        // m10 + pm.beta pn.beta m11) + s_part pm.beta pn.beta m00 = pn.alpha p + pn.beta q.
+        const Complex p = Multiply(a_part, pm.alpha * m.m00 + pm.beta * m.m10);
+        const Complex q = Multiply(a_part, pm.alpha * m.m01 + pm.beta * m.m11) +
+                          Multiply(s_part * pm.beta, m.m00);
         for (const PieceRef& pn : on_segment[j]) {
-          const Complex vec = pm.alpha * pn.alpha * m.m00 + pm.alpha * pn.beta * m.m01 +
-                              pm.beta * pn.alpha * m.m10 + pm.beta * pn.beta * m.m11;
-          const Complex value = a_part * vec + s_part * (pm.beta * pn.beta) * m.m00;
+          const Complex value = pn.alpha * p + pn.beta * q;
           if (aside) {
             aside[pn.basis] += value;
           } else {
-            z(pm.basis, pn.basis) += value;
+            z(pn.basis, pm.basis) += value;  // W^T: basis m's row of W is its column here
           }
         }
       }
@@ -257,20 +291,33 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     for (int i = block_start[t]; i < block_start[t + 1]; ++i) {
       if (on_segment[i].empty()) continue;
       const geometry::Segment& si = mesh.segments[i];
+      // The near pairs of row i, in increasing source order (NearFieldCache): one pass.
+      const std::vector<NearFieldCache::Entry>& near_row = cache.by_observation[i];
+      size_t cursor = 0;
+      auto near_entry = [&](int j, bool image) -> const NearFieldCache::Entry* {
+        while (cursor < near_row.size() &&
+               (near_row[cursor].source < j ||
+                (near_row[cursor].source == j && near_row[cursor].image < image))) {
+          ++cursor;
+        }
+        if (cursor < near_row.size() && near_row[cursor].source == j &&
+            near_row[cursor].image == image) {
+          return &near_row[cursor];
+        }
+        return nullptr;
+      };
       for (int j = i; j < ns; ++j) {
         if (on_segment[j].empty()) continue;
         const geometry::Segment& sj = mesh.segments[j];
         const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
         const double share = j == i ? 0.5 : 1.0;  // F_ii is counted twice by W + W^T
         if (direct) {
-          PairMoments m = Moments(i, j, false, si.start, si.end, sj.start, sj.end, radius2);
+          PairMoments m = Moments(near_entry(j, false), nodes[i], nodes[j], radius2);
           if (j == i) Symmetrize(&m);
           scatter(i, j, m, share * unit[i].dot(unit[j]), share);
         }
         if (!mesh.ground_images || !images) continue;
-        const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
-        const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-        PairMoments mi = Moments(i, j, true, si.start, si.end, img0, img1, radius2);
+        PairMoments mi = Moments(near_entry(j, true), nodes[i], image_nodes[j], radius2);
         if (j == i) Symmetrize(&mi);
         Complex vector_weight, charge_weight;
         const bool exact = half_space && half_space->Applies(si, sj);
@@ -313,17 +360,23 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     for (std::thread& th : pool) th.join();
   }
   for (const SpillRows& spill : spills) {
-    for (const auto& [b, row] : spill) z.row(b) += row.transpose();
+    for (const auto& [b, row] : spill) z.col(b) += row;
   }
-  // Z = W + W^T, in place.
-  for (int c = 0; c < n; ++c) {
-    for (int r = 0; r < c; ++r) {
-      const Complex sum = z(r, c) + z(c, r);
-      z(r, c) = sum;
-      z(c, r) = sum;
+  // z holds W^T; Z = W^T + W, in place, in tiles that stay in the cache (column by column,
+  // z(c, r) would touch one entry per cache line).
+  constexpr int kTile = 64;
+  for (int c0 = 0; c0 < n; c0 += kTile) {
+    for (int r0 = 0; r0 <= c0; r0 += kTile) {
+      for (int c = c0; c < std::min(n, c0 + kTile); ++c) {
+        for (int r = r0; r < std::min(c, r0 + kTile); ++r) {
+          const Complex sum = z(r, c) + z(c, r);
+          z(r, c) = sum;
+          z(c, r) = sum;
+        }
+      }
     }
-    z(c, c) *= 2.0;
   }
+  for (int c = 0; c < n; ++c) z(c, c) *= 2.0;
   return z;
 }
 

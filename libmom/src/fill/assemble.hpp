@@ -30,7 +30,9 @@ struct NearFieldCache {
     bool image = false;
     PairMoments statics;
   };
-  std::vector<std::vector<Entry>> by_observation;  // indexed by the observation segment
+  // Indexed by the observation segment; each list in increasing (source, image) order, which
+  // the fill relies on to walk a row's near pairs in one pass.
+  std::vector<std::vector<Entry>> by_observation;
   const Entry* Find(int observation, int source, bool image) const;
 };
 NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh);

@@ -6,8 +6,10 @@
 // separately. Method: Newman (1988), Virga and Rahmat-Samii (1999); docs/numerics.md.
 #include "fill/interpolate.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <complex>
+#include <limits>
 
 #include "core/constants.hpp"
 #include "wirefield/model.hpp"
@@ -19,11 +21,11 @@ double Wavenumber(double frequency_hz) {
   return 2.0 * core::kPi * frequency_hz / core::kSpeedOfLight_m_per_s;
 }
 
-// A = omega Z e^{+jkR} in place, from the nodes of the bases (image: the source node
-// mirrored in z = 0).
+// A = omega Z e^{+j(k - k_ref)R} in place, from the nodes of the bases (image: the source
+// node mirrored in z = 0): the phase of the entry removed, that of the reference put back.
 void RemovePhase(const std::vector<Eigen::Vector3d>& nodes, bool mirror, double frequency_hz,
-                 Eigen::MatrixXcd* z) {
-  const double k = Wavenumber(frequency_hz);
+                 double reference_wavenumber_per_m, Eigen::MatrixXcd* z) {
+  const double dk = Wavenumber(frequency_hz) - reference_wavenumber_per_m;
   const double omega = 2.0 * core::kPi * frequency_hz;
   const Eigen::Index n = z->rows();
   const Eigen::Vector3d flip(1.0, 1.0, mirror ? -1.0 : 1.0);
@@ -31,7 +33,7 @@ void RemovePhase(const std::vector<Eigen::Vector3d>& nodes, bool mirror, double 
     const Eigen::Vector3d source = nodes[static_cast<size_t>(c)].cwiseProduct(flip);
     for (Eigen::Index r = 0; r < n; ++r) {
       const double distance_m = (nodes[static_cast<size_t>(r)] - source).norm();
-      (*z)(r, c) *= omega * std::polar(1.0, k * distance_m);
+      (*z)(r, c) *= omega * std::polar(1.0, dk * distance_m);
     }
   }
 }
@@ -50,12 +52,24 @@ MatrixInterpolator::MatrixInterpolator(const geometry::Mesh& mesh, const NearFie
     const geometry::Segment& segment = mesh.segments[static_cast<size_t>(piece.segment)];
     nodes_m_.push_back(piece.node_at_end ? segment.end : segment.start);
   }
+  const auto [low_hz, high_hz] = std::minmax({anchors_hz[0], anchors_hz[1], anchors_hz[2]});
+  reference_wavenumber_per_m_ = Wavenumber(0.5 * (low_hz + high_hz));
+  // No two nodes, nor a node and a mirrored node, lie farther apart than the diagonal of the
+  // box around all of them.
+  Eigen::Vector3d lo = Eigen::Vector3d::Constant(std::numeric_limits<double>::max());
+  Eigen::Vector3d hi = -lo;
+  for (const Eigen::Vector3d& p : nodes_m_) {
+    const Eigen::Vector3d q(p.x(), p.y(), images_ ? -std::abs(p.z()) : p.z());
+    lo = lo.cwiseMin(p).cwiseMin(q);
+    hi = hi.cwiseMax(p).cwiseMax(q);
+  }
+  max_distance_m_ = nodes_m_.empty() ? 0.0 : (hi - lo).norm();
   for (size_t a = 0; a < 3; ++a) {
     ImpedanceParts parts = AssembleImpedanceParts(mesh, anchors_hz[a], cache, fill_threads);
-    RemovePhase(nodes_m_, false, anchors_hz[a], &parts.direct);
+    RemovePhase(nodes_m_, false, anchors_hz[a], reference_wavenumber_per_m_, &parts.direct);
     direct_[a] = std::move(parts.direct);
     if (images_) {
-      RemovePhase(nodes_m_, true, anchors_hz[a], &parts.image);
+      RemovePhase(nodes_m_, true, anchors_hz[a], reference_wavenumber_per_m_, &parts.image);
       image_[a] = std::move(parts.image);
     }
   }
@@ -74,7 +88,25 @@ void MatrixInterpolator::At(double frequency_hz, Eigen::MatrixXcd* z) const {
   const double w0 = (f - x[1]) * (f - x[2]) / ((x[0] - x[1]) * (x[0] - x[2])) / omega;
   const double w1 = (f - x[0]) * (f - x[2]) / ((x[1] - x[0]) * (x[1] - x[2])) / omega;
   const double w2 = (f - x[0]) * (f - x[1]) / ((x[2] - x[0]) * (x[2] - x[1])) / omega;
-  const double k = Wavenumber(f);
+  // The phase e^{-j(k - k_ref)R} of each entry by the series of kernel.hpp: |(k - k_ref) R| is
+  // at most |k - k_ref| max_distance_m_; the angle is halved until the series applies, and
+  // the factor squared back as often (each squaring doubles a rounding error of 1e-16).
+  const double dk = Wavenumber(f) - reference_wavenumber_per_m_;
+  int halvings = 0;
+  for (double bound = std::abs(dk) * max_distance_m_; bound > kSeriesPhaseLimit; bound *= 0.5) {
+    ++halvings;
+  }
+  const double scaled_dk = std::ldexp(dk, -halvings);
+  auto phase = [&](double distance_m) {
+    double c = 0.0, s = 0.0;
+    SeriesPhase<false>(scaled_dk * distance_m, &c, &s);
+    for (int h = 0; h < halvings; ++h) {
+      const double c2 = c * c - s * s;
+      s = 2.0 * c * s;
+      c = c2;
+    }
+    return Complex(c, s);
+  };
   const Eigen::Index n = direct_[0].rows();
   z->resize(n, n);
   const Eigen::Vector3d flip(1.0, 1.0, -1.0);
@@ -84,13 +116,22 @@ void MatrixInterpolator::At(double frequency_hz, Eigen::MatrixXcd* z) const {
     for (Eigen::Index r = c; r < n; ++r) {
       const Eigen::Vector3d& observer = nodes_m_[static_cast<size_t>(r)];
       Complex value = (w0 * direct_[0](r, c) + w1 * direct_[1](r, c) + w2 * direct_[2](r, c)) *
-                      std::polar(1.0, -k * (observer - source).norm());
+                      phase((observer - source).norm());
       if (images_) {
         value += (w0 * image_[0](r, c) + w1 * image_[1](r, c) + w2 * image_[2](r, c)) *
-                 std::polar(1.0, -k * (observer - image).norm());
+                 phase((observer - image).norm());
       }
       (*z)(r, c) = value;
-      (*z)(c, r) = value;
+    }
+  }
+  // The upper triangle from the lower, in tiles that stay in the cache (a column-by-column
+  // copy would write one entry per cache line).
+  constexpr Eigen::Index kTile = 64;
+  for (Eigen::Index c0 = 0; c0 < n; c0 += kTile) {
+    for (Eigen::Index r0 = 0; r0 <= c0; r0 += kTile) {
+      for (Eigen::Index c = c0; c < std::min(n, c0 + kTile); ++c) {
+        for (Eigen::Index r = r0; r < std::min(c, r0 + kTile); ++r) (*z)(r, c) = (*z)(c, r);
+      }
     }
   }
 }

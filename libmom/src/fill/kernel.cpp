@@ -160,7 +160,12 @@ PairMoments StaticNear(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec
 }  // namespace
 
 bool IsNearPair(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1) {
-  const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
+  const double la = (a1 - a0).norm(), lb = (b1 - b0).norm();
+  const double longest = std::max(la, lb);
+  // The segments lie no closer than their centres' distance less both half-lengths: beyond
+  // the near distance by a margin for rounding, the exact distance is not needed.
+  const double lower = 0.5 * (a0 + a1 - b0 - b1).norm() - 0.5 * (la + lb);
+  if (lower > kNearFactor * longest * (1.0 + 1e-9)) return false;
   return geometry::SegmentDistance(a0, a1, b0, b1, nullptr) < kNearFactor * longest;
 }
 
@@ -196,6 +201,118 @@ PairMoments SegmentPairMoments(const Vec3& a0, const Vec3& a1, const Vec3& b0, c
     m.m11 += s.m11;
   }
   return m;
+}
+
+SegmentNodes MakeSegmentNodes(const Vec3& start, const Vec3& end) {
+  SegmentNodes s;
+  s.start = start;
+  s.end = end;
+  s.centre = 0.5 * (start + end);
+  s.length_m = (end - start).norm();
+  const Vec3 d = end - start;
+  // The same expressions as ProductRule's points, so the nodes agree to the last bit.
+  for (int i = 0; i < 2; ++i) s.p2[i] = start + d * Rule<2>().x[i];
+  for (int i = 0; i < 3; ++i) s.p3[i] = start + d * Rule<3>().x[i];
+  for (int i = 0; i < 4; ++i) s.p4[i] = start + d * Rule<4>().x[i];
+  for (int i = 0; i < 6; ++i) s.p6[i] = start + d * Rule<6>().x[i];
+  return s;
+}
+
+namespace {
+
+// w exp(-jkR) / R at every point of a pair as real and imaginary parts, the phase from the
+// centres' and a series (|k (R - R_c)| <= k reach, FarMoments).
+template <bool kShort, int Count>
+void PhasedKernel(const std::array<double, Count>& distance,
+                  const std::array<double, Count>& weight, double k, double rc,
+                  std::array<double, Count>* gr, std::array<double, Count>* gi) {
+  const Complex e0 = std::polar(1.0, -k * rc);
+  for (int q = 0; q < Count; ++q) {
+    double c, s;
+    SeriesPhase<kShort>(k * (distance[q] - rc), &c, &s);
+    const double scale = weight[q] / distance[q];
+    (*gr)[q] = scale * (e0.real() * c - e0.imag() * s);
+    (*gi)[q] = scale * (e0.real() * s + e0.imag() * c);
+  }
+}
+
+// ProductRule<N> with the full kernel, from precomputed points.
+template <int N>
+PairMoments FarProduct(const std::array<Vec3, N>& pa, const std::array<Vec3, N>& pb, double radius2,
+                       double k, double centre_distance, double reach) {
+  const auto& r = Rule<N>();
+  std::array<double, N * N> distance;
+  for (int i = 0; i < N; ++i) {
+    for (int j = 0; j < N; ++j) {
+      distance[i * N + j] = std::sqrt((pa[i] - pb[j]).squaredNorm() + radius2);
+    }
+  }
+  // g = w_j exp(-jkR) / R, as real and imaginary parts.
+  std::array<double, N * N> gr, gi, weight;
+  for (int q = 0; q < N * N; ++q) weight[q] = r.w[q % N];
+  const double rc = std::sqrt(centre_distance * centre_distance + radius2);
+  if (k * reach <= kShortSeriesPhaseLimit) {
+    PhasedKernel<true, N * N>(distance, weight, k, rc, &gr, &gi);
+  } else if (k * reach <= kSeriesPhaseLimit) {
+    PhasedKernel<false, N * N>(distance, weight, k, rc, &gr, &gi);
+  } else {
+    for (int q = 0; q < N * N; ++q) {
+      const Complex g = weight[q] * FullKernel{k}(distance[q]);
+      gr[q] = g.real();
+      gi[q] = g.imag();
+    }
+  }
+  PairMoments m;
+  for (int i = 0; i < N; ++i) {
+    double s0r = 0.0, s0i = 0.0, s1r = 0.0, s1i = 0.0;
+    for (int j = 0; j < N; ++j) {
+      s0r += gr[i * N + j];
+      s0i += gi[i * N + j];
+      s1r += gr[i * N + j] * r.x[j];
+      s1i += gi[i * N + j] * r.x[j];
+    }
+    const Complex s0(s0r, s0i), s1(s1r, s1i);
+    m.m00 += r.w[i] * s0;
+    m.m10 += r.w[i] * r.x[i] * s0;
+    m.m01 += r.w[i] * s1;
+    m.m11 += r.w[i] * r.x[i] * s1;
+  }
+  return m;
+}
+
+}  // namespace
+
+PairMoments FarMoments(const SegmentNodes& a, const SegmentNodes& b, double radius2_m2,
+                       double wavenumber_per_m) {
+  const double longest = std::max(a.length_m, b.length_m);
+  const double centres = (a.centre - b.centre).norm();
+  // Every point of a lies within half its length of its centre, and so for b: the segments'
+  // distance lies in [centres - reach, centres], and |R - R_c| <= reach for every pair of points.
+  const double reach = 0.5 * (a.length_m + b.length_m);
+  // The bounds decide only with a margin, so that rounding never picks another rule than the
+  // exact distance would.
+  constexpr double kMargin = 1.0 + 1e-9;
+  const double lower = centres - reach;
+  int points = 0;
+  if (lower > kFarFactor * longest * kMargin) {
+    points = 3;
+  } else if (centres * kMargin < kMidFactor * longest) {
+    points = 6;
+  } else {
+    const double gap = geometry::SegmentDistance(a.start, a.end, b.start, b.end, nullptr);
+    points = gap < kMidFactor * longest ? 6 : gap < kFarFactor * longest ? 4 : 3;
+  }
+  if (points == 3 && lower > kFarthestFactor * longest &&
+      wavenumber_per_m * longest <= kFarthestPhase) {
+    return FarProduct<2>(a.p2, b.p2, radius2_m2, wavenumber_per_m, centres, reach);
+  }
+  if (points == 3) {
+    return FarProduct<3>(a.p3, b.p3, radius2_m2, wavenumber_per_m, centres, reach);
+  }
+  if (points == 4) {
+    return FarProduct<4>(a.p4, b.p4, radius2_m2, wavenumber_per_m, centres, reach);
+  }
+  return FarProduct<6>(a.p6, b.p6, radius2_m2, wavenumber_per_m, centres, reach);
 }
 
 PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Vec3& b0,
