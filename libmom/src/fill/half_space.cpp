@@ -80,7 +80,7 @@ void AddPieces(const Vec3& s0, const Vec3& s1, double lo, double hi, std::vector
 
 // The quadrature nodes on segment s0-s1: `points` Gauss points, or (points == 0) the composite
 // rule graded toward the ground, the other segment's lowest point being at other_low_m.
-std::vector<Node> SegmentNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m,
+std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m,
                                double floor_m) {
   std::vector<Node> nodes;
   switch (points) {
@@ -170,8 +170,8 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   } else if (gap >= kGradedFactor * longest) {
     points = 6;
   }
-  const std::vector<Node> obs = SegmentNodes(a0, a1, points, b_low, floor_m_);
-  const std::vector<Node> src = SegmentNodes(b0, b1, points, a_low, floor_m_);
+  const std::vector<Node> obs = CorrectionNodes(a0, a1, points, b_low, floor_m_);
+  const std::vector<Node> src = CorrectionNodes(b0, b1, points, a_low, floor_m_);
   const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
   const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
   const double vertical = ua.z() * ub.z();
