@@ -49,7 +49,6 @@ Model Vertical(const GroundSpec& ground) {
   return m;
 }
 
-
 TEST(RealGround, HighConductivityGivesThePerfectGroundImpedance) {
   // As sigma grows the Fresnel coefficients tend to the perfect-ground image (standard
   // texts; REFERENCES.md §2.2), so the matrix, and the feed impedance, must tend to the
@@ -186,9 +185,9 @@ TEST(RealGround, VerticalOverMediumDryLosesGainAndLiftsItsTakeOffAngle) {
 
 TEST(RealGround, PowerGoesIntoRadiationAndGroundOnly) {
   // Energy: for a lossless antenna over lossy ground, input = radiated + ground loss, so the
-  // radiated power must stay below the input (conservation of energy). A dipole half a wavelength up over average
-  // ground (13, 5 mS/m, common practice) loses a modest share to the ground, and as the ground
-  // becomes a better conductor that share falls.
+  // radiated power must stay below the input (conservation of energy). A dipole half a wavelength
+  // up over average ground (13, 5 mS/m, common practice) loses a modest share to the ground, and as
+  // the ground becomes a better conductor that share falls.
   const double f = 7.1e6, lambda = 299792458.0 / f;
   double previous_loss = 1.0;
   for (const double sigma : {5e-3, 5e-2, 5.0}) {
@@ -224,7 +223,10 @@ TEST(RealGround, LowWireIsWarnedAboutWithItsHeightInWavelengths) {
   }
   EXPECT_TRUE(found);
   m.wires[0].from_m[2] = m.wires[0].to_m[2] = 0.3;
-  for (const Warning& w : Simulation(m, o).warnings()) {
+  // A named Simulation: a range-for over warnings() of a temporary reads freed memory (the
+  // temporary dies before the loop runs), which the AddressSanitizer suite caught here.
+  const Simulation raised(m, o);
+  for (const Warning& w : raised.warnings()) {
     EXPECT_EQ(w.message.find("reflection-coefficient"), std::string::npos) << w.message;
   }
 }
