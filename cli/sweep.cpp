@@ -89,6 +89,7 @@ int RunSweepCommand(const SweepFlags& flags) {
   report.region_given = region_given;
   report.warnings = simulation.warnings();
   std::vector<std::pair<double, double>> ranges_hz;
+  ranges_hz.reserve(spans.size());
   for (const SweepSpan& span : spans) {
     ranges_hz.emplace_back(span.frequencies_hz.front(), span.frequencies_hz.back());
   }

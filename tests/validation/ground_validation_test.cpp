@@ -226,7 +226,10 @@ TEST(RealGround, LowWireIsWarnedAboutWithItsHeightInWavelengths) {
   }
   EXPECT_TRUE(found);
   m.wires[0].from_m[2] = m.wires[0].to_m[2] = 0.3;
-  for (const Warning& w : Simulation(m, o).warnings()) {
+  // A named Simulation: a range-for over warnings() of a temporary reads freed memory (the
+  // temporary dies before the loop runs), which the AddressSanitizer suite caught here.
+  const Simulation raised(m, o);
+  for (const Warning& w : raised.warnings()) {
     EXPECT_EQ(w.message.find("reflection-coefficient"), std::string::npos) << w.message;
   }
 }

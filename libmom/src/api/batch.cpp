@@ -608,6 +608,7 @@ BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOpti
   const double per_model = BatchRowCount(options);
   const int total = static_cast<int>(per_model * static_cast<double>(paths.size()));
   std::vector<std::string> texts;  // read every file before any row runs
+  texts.reserve(paths.size());
   for (const std::string& path : paths) texts.push_back(ReadModelFileText(path));
   std::vector<BatchResult> results;
   BatchVariable model_variable;

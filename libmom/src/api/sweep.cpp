@@ -35,6 +35,7 @@ std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz)
                                  count));
   }
   std::vector<double> f;
+  f.reserve(static_cast<size_t>(count));
   for (int i = 0; i < static_cast<int>(count); ++i) f.push_back(from_hz + i * step_hz);
   return f;
 }
@@ -48,6 +49,7 @@ std::vector<double> FrequencyPoints(double from_hz, double to_hz, int points) {
                                  from_hz, to_hz, points));
   }
   std::vector<double> f;
+  f.reserve(static_cast<size_t>(points));
   for (int i = 0; i < points; ++i) f.push_back(from_hz + (to_hz - from_hz) * i / (points - 1));
   return f;
 }

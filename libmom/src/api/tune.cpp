@@ -250,7 +250,7 @@ std::optional<Root> RefineRoot(Trials& trials, size_t i, double frequency_hz, co
     auto sample_at = [&](double v) {
       const auto hit = seen.find(v);
       if (hit != seen.end()) return hit->second;
-      const Sample s = trials.SolveAt(i, v, frequency_hz);
+      Sample s = trials.SolveAt(i, v, frequency_hz);
       if (!s.ok) throw InputError(trials.spec(i).location, s.why);
       seen[v] = s;
       return s;

@@ -65,6 +65,7 @@ const Material* FindMaterial(std::string_view name) {
 
 std::vector<std::string> MaterialNames() {
   std::vector<std::string> names;
+  names.reserve(kMaterials.size() + kAliases.size());
   for (const Material& m : kMaterials) names.emplace_back(m.name);
   for (const Alias& a : kAliases) names.emplace_back(a.alias);
   return names;

@@ -356,7 +356,8 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
 
   // Joints: cluster wire ends; each cluster of m ends gets m - 1 bases through its first end.
   std::vector<std::vector<EndRef>> joints;
-  std::vector<int> end_joint(2 * wire_count, -1);  // index 2w + at_end -> joint
+  std::vector<int> end_joint(2 * static_cast<size_t>(wire_count),
+                             -1);  // index 2w + at_end -> joint
   for (int w = 0; w < wire_count; ++w) {
     for (int e = 0; e < 2; ++e) {
       const Vec3 p = e ? layout[w].to : layout[w].from;
@@ -497,8 +498,9 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
     const auto& corners = layout[w].corners;
     for (size_t i = 0; i + 1 < corners.size(); ++i) {
       Leg leg{w, corners[i], corners[i + 1], 0, 0};
-      leg.from_id = i == 0 ? end_joint[2 * w] : next_bend_id - 1;
-      leg.to_id = i + 2 == corners.size() ? end_joint[2 * w + 1] : next_bend_id++;
+      leg.from_id = i == 0 ? end_joint[2 * static_cast<size_t>(w)] : next_bend_id - 1;
+      leg.to_id =
+          i + 2 == corners.size() ? end_joint[2 * static_cast<size_t>(w) + 1] : next_bend_id++;
       legs.push_back(leg);
     }
   }

@@ -229,6 +229,10 @@ class Evaluator {
       throw Error(t,
                   "missing a value at the end of the line (a number, a variable, a function "
                   "call or a parenthesis)");
+    } else if (t.kind == TokenKind::kPunct && t.text == "=") {
+      throw Error(t,
+                  "expected a value; got '=': a keyword takes its value after a space, without "
+                  "'=' (radius 1mm, frequency 14.2MHz)");
     } else {
       throw Error(t, fmt::format("expected a value (a number, a variable, a function call or "
                                  "'('); got {}",

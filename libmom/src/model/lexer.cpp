@@ -84,6 +84,9 @@ std::string NonAsciiHint(long cp) {
       return "; the language has no quotes";
     case 0x00A0:
       return "; a no-break space: use an ordinary space";
+    case 0xFEFF:
+      return "; a byte order mark in the middle of the file (pasted from another file?): "
+             "delete it";
     default:
       return "; names, numbers and operators use ASCII only (comments may hold any text)";
   }
@@ -133,6 +136,9 @@ std::string NonAsciiHint(long cp) {
       break;
     case '.':
       hint = "; a decimal number needs a digit after its point (.5, 2.0)";
+      break;
+    case '\\':
+      hint = "; a statement is written on one line, without continuation";
       break;
     default:
       break;

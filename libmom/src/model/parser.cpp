@@ -165,10 +165,28 @@ class Parser {
   void ExpectEnd(const std::string& statement) const {
     const Token& t = Peek();
     if (t.kind != TokenKind::kEnd) {
+      if (IsDecimalComma()) throw DecimalCommaError();
       throw Error(t, fmt::format("unexpected {} at the end of the {} statement; remove it or "
                                  "start a new line",
                                  Quote(t), statement));
     }
+  }
+  // "1,5": a ',' right between two numbers, with no space around it, is a decimal comma.
+  bool IsDecimalComma() const {
+    if (pos_ == 0 || pos_ + 1 >= tokens_.size()) return false;
+    const Token& comma = tokens_[pos_];
+    const Token& before = tokens_[pos_ - 1];
+    const Token& after = tokens_[pos_ + 1];
+    return comma.kind == TokenKind::kPunct && comma.text == "," && !comma.space_before &&
+           before.kind == TokenKind::kNumber && after.kind == TokenKind::kNumber &&
+           !after.space_before;
+  }
+  InputError DecimalCommaError() const {
+    const Token& before = tokens_[pos_ - 1];
+    const Token& after = tokens_[pos_ + 1];
+    return Error(Peek(), fmt::format("unexpected ',' in '{},{}'; write a decimal number with a "
+                                     "point: {}.{}",
+                                     before.text, after.text, before.text, after.text));
   }
   std::string Line(const SourceLocation& l) const { return fmt::format("line {}", l.line); }
 
@@ -199,6 +217,13 @@ class Parser {
   // ---- names --------------------------------------------------------------------------
   std::string Name(const std::string& statement, const std::string& what) {
     const Token& t = Peek();
+    if (t.kind == TokenKind::kNumber && pos_ + 1 < tokens_.size() &&
+        tokens_[pos_ + 1].kind == TokenKind::kName && !tokens_[pos_ + 1].space_before) {
+      throw Error(t, fmt::format("{}: expected {}; got '{}{}': a name starts with a letter or "
+                                 "'_' ({}_{})",
+                                 statement, what, t.text, tokens_[pos_ + 1].text,
+                                 tokens_[pos_ + 1].text, t.text));
+    }
     if (t.kind != TokenKind::kName) throw Expected(statement, what);
     Next();
     return t.text;
@@ -216,6 +241,9 @@ class Parser {
   void Statement() {
     const Token& keyword = Peek();
     if (keyword.kind != TokenKind::kName) {
+      if (keyword.kind == TokenKind::kPunct && keyword.text == "/") {
+        throw Error(keyword, "unexpected '/' at the start of the line; a comment starts with '#'");
+      }
       throw Error(
           keyword,
           fmt::format("expected a statement ({}) at the start of the line; "
@@ -455,6 +483,7 @@ class Parser {
       } else if (IsWord("material") || IsWord("conductivity") || IsWord("permeability")) {
         Conductor(context, &conductor);
       } else if (!extra_clause || !extra_clause()) {
+        if (IsDecimalComma()) throw DecimalCommaError();
         throw Error(clause,
                     fmt::format("{}: unexpected {}; {}", context, Quote(clause), clause_help));
       }
@@ -1370,6 +1399,13 @@ class Parser {
     } else if (kind.text == "real") {
       ground.kind = GroundKind::kReal;
     } else {
+      for (const GroundPreset& p : GroundPresets()) {
+        if (p.name == kind.text) {
+          throw Error(kind, fmt::format("ground: '{}' is a preset of a real ground; write "
+                                        "'ground real preset={}'",
+                                        p.name, p.name));
+        }
+      }
       throw Error(kind, fmt::format("ground: unknown kind '{}'{}; use free, perfect or real",
                                     Shorten(kind.text),
                                     DidYouMeanAside(kind.text, {"free", "perfect", "real"})));
@@ -1564,7 +1600,7 @@ double ParseArgument(const std::string& text, const std::string& option_name, co
   }
   Scope no_variables;
   size_t pos = 0;
-  const Token start = tokens[0];
+  const Token& start = tokens[0];
   const Value v = EvaluateExpression(tokens, &pos, no_variables, source);
   if (tokens[pos].kind != TokenKind::kEnd) {
     throw InputError(At(source, tokens[pos].column),
@@ -1669,7 +1705,7 @@ double ParseVariableArgument(const std::string& text, const std::string& option_
   }
   model::Scope no_variables;
   size_t pos = 0;
-  const model::Token start = tokens[0];
+  const model::Token& start = tokens[0];
   const model::Value v = model::EvaluateExpression(tokens, &pos, no_variables, source);
   if (tokens[pos].kind != model::TokenKind::kEnd) {
     throw InputError(model::At(source, tokens[pos].column),

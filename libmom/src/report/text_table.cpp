@@ -45,6 +45,7 @@ std::string TextTable::Render(int indent) const {
   };
   std::string out = render_row(headers_);
   std::vector<std::string> rule;
+  rule.reserve(widths.size());
   for (std::size_t w : widths) rule.emplace_back(w, '-');
   out += render_row(rule);
   for (const auto& row : rows_) out += render_row(row);

@@ -3,8 +3,8 @@
 // another exception, a crash or a hang; an accepted model holds only finite numbers.
 #include <gtest/gtest.h>
 
-#include <chrono>
 #include <cmath>
+#include <ctime>
 #include <random>
 #include <string>
 
@@ -173,7 +173,14 @@ TEST(Fuzz, RandomBytesAreRefusedWithAnInputError) {
 TEST(Fuzz, TenMegabytesOfJunkEndQuickly) {
   // Budget: the parser reads a line and stops at its first defect, so even 10 MB must finish
   // in well under a second on any machine; 10 s only catches a hang or quadratic behaviour.
+  // The time is the process's CPU time (std::clock), so other builds on a shared machine do
+  // not count; under the address and undefined-behaviour sanitizers the code runs a few times
+  // slower (about 2x for AddressSanitizer, from memory), so the budget is tripled there.
+#ifdef WIREFIELD_SANITIZED
+  constexpr double kBudget_s = 30.0;
+#else
   constexpr double kBudget_s = 10.0;
+#endif
   std::mt19937 rng(3);
   std::string junk(10u << 20, ' ');
   for (char& c : junk) c = "ab1(+ \n"[rng() % 7];
@@ -183,14 +190,13 @@ TEST(Fuzz, TenMegabytesOfJunkEndQuickly) {
       t += "let v" + std::to_string(i) + " = " + std::to_string(i) + "*1m + 2cm\n";
     return t;
   }();
-  const auto t0 = std::chrono::steady_clock::now();
+  const std::clock_t t0 = std::clock();
   EXPECT_EQ(ParseOrRefuse(junk), Outcome::kInputError);
   EXPECT_EQ(ParseOrRefuse(std::string(10u << 20, '(')), Outcome::kInputError);
   EXPECT_EQ(ParseOrRefuse(std::string(10u << 20, 'x')), Outcome::kInputError);
   const Model many = ParseModelText(valid_lines, "many.wire");  // 200 000 lets, each unused
   EXPECT_EQ(many.warnings.size(), 200000u);
-  const double elapsed_s =
-      std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  const double elapsed_s = static_cast<double>(std::clock() - t0) / CLOCKS_PER_SEC;
   EXPECT_LT(elapsed_s, kBudget_s);
 }
 
