@@ -4,6 +4,8 @@
 #include "command.hpp"
 
 #include <fmt/format.h>
+#include <sys/stat.h>
+#include <unistd.h>
 
 #include <algorithm>
 #include <cerrno>
@@ -35,16 +37,30 @@ void WriteFilesAtomically(const std::vector<OutputFile>& files) {
   auto clean_up = [&written] {
     for (const std::string& tmp : written) RemoveQuietly(tmp);
   };
+  // The permissions a plainly created file would get (mkstemp makes its file private).
+  const mode_t mask = ::umask(0);
+  ::umask(mask);
   for (const OutputFile& file : files) {
-    const std::string tmp = file.path + ".tmp";
-    std::FILE* out = std::fopen(tmp.c_str(), "wb");
-    if (out == nullptr) {
+    // A fresh name beside the target (same folder, so the rename is atomic): never a file the
+    // user owns, never one a concurrent run is writing.
+    std::string tmp = file.path + ".wirefield-XXXXXX";
+    const int fd = ::mkstemp(tmp.data());
+    if (fd < 0) {
       const std::string reason = std::strerror(errno);
       clean_up();
       FailToWrite(file, reason);
     }
     written.push_back(tmp);
-    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size();
+    ::fchmod(fd, static_cast<mode_t>(0666 & ~mask));
+    std::FILE* out = ::fdopen(fd, "wb");
+    if (out == nullptr) {
+      const std::string reason = std::strerror(errno);
+      ::close(fd);
+      clean_up();
+      FailToWrite(file, reason);
+    }
+    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size() &&
+                    std::fflush(out) == 0 && ::fsync(fd) == 0;
     const int errno_after_write = errno;
     const bool closed = std::fclose(out) == 0;
     if (!ok || !closed) {

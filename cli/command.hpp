@@ -116,7 +116,8 @@ Command AddBatchCommand(CLI::App& program);
 Command AddCoilCommand(CLI::App& program);
 Command AddTuneCommand(CLI::App& program);
 
-// A file to write whole: first to PATH.tmp, renamed over PATH only when every file is ready.
+// A file to write whole: first to a fresh temporary file beside PATH (PATH.wirefield-XXXXXX),
+// renamed over PATH only when every file is ready.
 struct OutputFile {
   std::string path;
   std::string text;

@@ -132,7 +132,7 @@ TEST(BatchInterrupt, CtrlCWritesTheFinishedRowsToAPartialFileAndKeepsTheOldCsv) 
   ASSERT_TRUE(run.exited) << run.err;
   EXPECT_EQ(run.exit_code, 130) << run.err;  // 128 + SIGINT, as a shell reports it
   EXPECT_EQ(ReadFile(csv), "old results\n") << "the final CSV must be left as it was";
-  EXPECT_FALSE(std::filesystem::exists(csv + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
   ASSERT_TRUE(std::filesystem::exists(partial)) << run.err;
   const std::vector<std::string> lines = Lines(ReadFile(partial));
   ASSERT_GE(lines.size(), 1u);

@@ -352,7 +352,7 @@ void ExpectCsvRows(const std::string& ground, const std::string& step, double sp
   EXPECT_EQ(elevation_rows, rows_for(span_elevation_deg)) << ground << " step " << step;
   EXPECT_EQ(azimuth_rows, rows_for(360.0)) << ground << " step " << step;
   EXPECT_EQ(lines.size(), 1 + elevation_rows + azimuth_rows);
-  EXPECT_FALSE(std::filesystem::exists(csv + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
 }
 
 TEST(PatternCsv, OneRowPerAngleOfEachCutOverGroundAtOneDegree) {
@@ -377,7 +377,7 @@ TEST(PatternSvg, IsWellFormedWithTheTitleAndTheMaximumMarker) {
   EXPECT_NE(text.find("beamwidth"), std::string::npos);
   EXPECT_EQ(text.find("<script"), std::string::npos);
   EXPECT_FALSE(std::regex_search(text, std::regex("\\b(nan|inf)\\b", std::regex::icase)));
-  EXPECT_FALSE(std::filesystem::exists(svg + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(svg));
   EXPECT_NE(run.out.find("Wrote the SVG file " + svg), std::string::npos);
 }
 
@@ -400,10 +400,10 @@ TEST(PatternSvg, UnwritablePathExitsTwoAndLeavesNoFileBehind) {
   EXPECT_EQ(run.exit_code, 2);
   EXPECT_EQ(run.err.rfind(svg + ": error: cannot write the SVG file: ", 0), 0u) << run.err;
   EXPECT_EQ(run.out, "");
-  EXPECT_FALSE(std::filesystem::exists(svg + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(svg));
   // Nothing is written unless everything can be: the good CSV is not left either.
   EXPECT_FALSE(std::filesystem::exists(csv));
-  EXPECT_FALSE(std::filesystem::exists(csv + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
 }
 
 }  // namespace

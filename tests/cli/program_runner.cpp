@@ -56,6 +56,16 @@ std::string ReadFile(const std::string& path) {
   return text.str();
 }
 
+bool TemporaryLeftBeside(const std::string& path) {
+  const std::filesystem::path target(path);
+  const std::string prefix = target.filename().string() + ".wirefield-";
+  std::error_code error;
+  for (const auto& entry : std::filesystem::directory_iterator(target.parent_path(), error)) {
+    if (entry.path().filename().string().rfind(prefix, 0) == 0) return true;
+  }
+  return false;
+}
+
 std::string WriteScratchFile(const std::string& name, const std::string& text) {
   const std::filesystem::path path = ScratchDir() / name;
   std::ofstream out(path, std::ios::binary | std::ios::trunc);

@@ -42,6 +42,10 @@ std::string ModelsDir();
 // Reads a whole file (empty when it cannot be read).
 std::string ReadFile(const std::string& path);
 
+// True when a temporary file of the program's atomic writes (PATH.wirefield-XXXXXX) is left
+// beside `path`.
+bool TemporaryLeftBeside(const std::string& path);
+
 // Runs wirefield with `args`, adds a gtest failure unless it exits 2 with nothing on stdout,
 // and returns its stderr.
 std::string RunBadInput(const std::vector<std::string>& args);

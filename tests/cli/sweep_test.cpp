@@ -233,6 +233,9 @@ std::string Scratch(const std::string& name) {
 
 TEST(SweepFiles, CsvHasAHeaderAndOneRowPerPoint) {
   const std::string csv = Scratch("sweep.csv");
+  // A file of the user's own beside the target, named as a temporary file often is, must
+  // survive the atomic write.
+  const std::string own = WriteScratchFile("sweep.csv.tmp", "mine\n");
   const ProgramRun run = RunWirefield(
       {"sweep", DipolePath(), "--from", "28MHz", "--to", "29MHz", "--points", "9", "--csv", csv});
   ASSERT_EQ(run.exit_code, 0) << run.err;
@@ -245,7 +248,8 @@ TEST(SweepFiles, CsvHasAHeaderAndOneRowPerPoint) {
   int rows = 0;
   while (std::getline(in, line)) ++rows;
   EXPECT_EQ(rows, 9);
-  EXPECT_FALSE(std::filesystem::exists(csv + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
+  EXPECT_EQ(ReadFile(own), "mine\n");
 }
 
 TEST(SweepFiles, SvgIsOneDocumentWithBothPlots) {
@@ -289,7 +293,7 @@ TEST(SweepFiles, UnwritableSvgExitsTwoNamingTheFileAndLeavesNothing) {
   EXPECT_EQ(err.rfind("/nonexistent/folder/s.svg: error: cannot write the SVG file: ", 0), 0u)
       << err;
   EXPECT_FALSE(std::filesystem::exists(csv));
-  EXPECT_FALSE(std::filesystem::exists(csv + ".tmp"));
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
 }
 
 // --- bad options -----------------------------------------------------------------------------
