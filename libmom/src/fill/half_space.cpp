@@ -81,7 +81,7 @@ void AddPieces(const Vec3& s0, const Vec3& s1, double lo, double hi, std::vector
 // The quadrature nodes on segment s0-s1: `points` Gauss points, or (points == 0) the composite
 // rule graded toward the ground, the other segment's lowest point being at other_low_m.
 std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m,
-                                  double floor_m) {
+                               double floor_m) {
   std::vector<Node> nodes;
   switch (points) {
     case 2:
