@@ -132,6 +132,10 @@ struct GroundSpec {
   // half-space; unset means kDefaultExactBelowWavelengths wavelengths at each frequency.
   // Raising it costs fill time (a table lookup per quadrature point of every such pair).
   std::optional<double> exact_below_m;
+  // Real ground, kExact: false integrates the half-space correction at every quadrature point
+  // instead of interpolating it from the table built once per frequency; the fill then costs
+  // some hundred times more. For checking what the table adds (not in the model language).
+  bool half_space_table = true;
   SourceLocation location;
 };
 

@@ -196,7 +196,10 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
       mesh.ground.method == GroundMethod::kExact) {
     const double exact_below_m = mesh.ground.exact_below_m.value_or(
         kDefaultExactBelowWavelengths * core::kSpeedOfLight_m_per_s / frequency_hz);
-    if (exact_below_m > 0.0) half_space.emplace(mesh, ground.permittivity(), k, exact_below_m);
+    if (exact_below_m > 0.0) {
+      half_space.emplace(mesh, ground.permittivity(), k, exact_below_m,
+                         mesh.ground.half_space_table);
+    }
   }
 
   // Parallel fill. Z = sum over ordered segment pairs (i, j) of their contributions F_ij, and

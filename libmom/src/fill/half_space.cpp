@@ -122,7 +122,7 @@ std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, do
 }  // namespace
 
 HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double wavenumber_per_m,
-                             double exact_below_m)
+                             double exact_below_m, bool tabulate)
     : wavenumber_(wavenumber_per_m), exact_below_m_(exact_below_m) {
   const Complex k1 = wavenumber_per_m * std::sqrt(eps_c);
   ground_wavenumber_ = std::abs(k1);
@@ -140,8 +140,10 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   const double horizontal = std::hypot(hi.x() - lo.x(), hi.y() - lo.y());
   const double r_max =
       std::max(1.02 * std::hypot(horizontal, 2.0 * std::max(hi.z(), 0.0)), 2.0 * zeta_min);
+  ground::TableOptions options;
+  options.direct = !tabulate;
   table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
-                                                    zeta_min, r_max, zeta_min);
+                                                    zeta_min, r_max, zeta_min, options);
 }
 
 bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {

@@ -28,9 +28,10 @@ struct HalfSpacePair {
 class HalfSpaceFill {
  public:
   // The table covers every pair of the mesh; pairs whose mean height is below exact_below_m
-  // use it. Costs one table (some 0.05 s, two threads).
+  // use it. Costs one table (some 0.05 s, two threads). tabulate = false builds no table and
+  // integrates the correction at every quadrature point instead (checks of the table).
   HalfSpaceFill(const geometry::Mesh& mesh, std::complex<double> eps_c, double wavenumber_per_m,
-                double exact_below_m);
+                double exact_below_m, bool tabulate = true);
 
   // True when the pair (observation a, source b) is low enough for the exact ground.
   bool Applies(const geometry::Segment& a, const geometry::Segment& b) const;

@@ -292,7 +292,12 @@ std::array<double, 4> Lagrange(const double* n, double x) {
 
 HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r_max_m,
                                double zeta_min_m, TableOptions options)
-    : ground_(ground), r_min_(r_min_m), r_max_(r_max_m), zeta_min_(zeta_min_m) {
+    : ground_(ground),
+      r_min_(r_min_m),
+      r_max_(r_max_m),
+      zeta_min_(zeta_min_m),
+      direct_(options.direct) {
+  if (direct_) return;  // no nodes: every lookup integrates
   // x = ln R' + R'/R_c, uniform: log-spaced near the source, evenly spaced far from it, where
   // the lateral wave of the ground's branch point k1 beats with the image as
   // exp(-j (k1 - k0) R') (R_c: some 8 nodes per beat, and not below a quarter wavelength, as
@@ -375,6 +380,8 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
     zeta = std::max(zeta * scale, zeta_min_);
     rho = std::min(rho, std::sqrt(std::max(r_max_ * r_max_ - zeta * zeta, 0.0)));
   }
+  if (direct_)
+    return Normalized(ground_.Correction(rho, zeta), std::hypot(rho, zeta), ground_.wavenumber());
   return Interpolate(rho, zeta);
 }
 

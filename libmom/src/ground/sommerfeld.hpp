@@ -79,6 +79,10 @@ struct TableOptions {
   int angle_nodes = 20;
   // Threads building the table (1 or 2).
   int threads = 2;
+  // Build no table: every lookup integrates the corrections directly (at the same clamped
+  // point). Exact up to the quadrature, some hundred times slower in a fill; for measuring
+  // what the interpolation adds.
+  bool direct = false;
 };
 
 class HalfSpaceTable {
@@ -96,6 +100,7 @@ class HalfSpaceTable {
   std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m) const;
   bool Covers(double rho_m, double zeta_m) const;
   int nodes() const { return static_cast<int>(values_.size()); }
+  bool direct() const { return direct_; }
   const HalfSpace& ground() const { return ground_; }
 
  private:
@@ -104,6 +109,7 @@ class HalfSpaceTable {
   // The tabulated (normalized) values at a point inside the range.
   std::array<Complex, 4> Interpolate(double rho_m, double zeta_m) const;
   double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, r_c_ = 1.0;
+  bool direct_ = false;
   std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(psi)
   std::vector<std::array<Complex, 4>> values_;  // [i_x * y_.size() + i_y], image factored out
 };
