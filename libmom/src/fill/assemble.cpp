@@ -288,6 +288,25 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
         }
       }
     };
+    // The same with the vector-potential moments weighted already and a charge moment of its
+    // own (the image and the half-space correction of a pair, added before they are scattered).
+    auto scatter_split = [&](int i, int j, const PairMoments& m, Complex charge, double share) {
+      const Complex a_part = c_vector * (length[i] * length[j] * share);
+      const Complex s_part = c_scalar * (share * charge);
+      for (const PieceRef& pm : on_segment[i]) {
+        Complex* aside = row_of(pm.basis);
+        const Complex p = Multiply(a_part, pm.alpha * m.m00 + pm.beta * m.m10);
+        const Complex q = Multiply(a_part, pm.alpha * m.m01 + pm.beta * m.m11) + s_part * pm.beta;
+        for (const PieceRef& pn : on_segment[j]) {
+          const Complex value = pn.alpha * p + pn.beta * q;
+          if (aside) {
+            aside[pn.basis] += value;
+          } else {
+            z(pn.basis, pm.basis) += value;
+          }
+        }
+      }
+    };
     for (int i = block_start[t]; i < block_start[t + 1]; ++i) {
       if (on_segment[i].empty()) continue;
       const geometry::Segment& si = mesh.segments[i];
@@ -332,17 +351,22 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
           vector_weight = unit[i].cast<Complex>().dot(w.vector_dyadic * unit[j].cast<Complex>());
           charge_weight = w.charge_factor;
         }
-        // M is symmetric and the specular angle is the same both ways: Z stays symmetric.
-        scatter(i, j, mi, share * vector_weight, share * charge_weight);
         if (exact) {
           // The half-space's correction to the image: its kernels are symmetric under the
-          // exchange of the two segments, so Z stays symmetric.
+          // exchange of the two segments, so Z stays symmetric. Added to the image's moments
+          // and scattered with them.
           const HalfSpacePair c = half_space->Moments(si.start, si.end, sj.start, sj.end);
           PairMoments vector_part = c.vector;
           if (j == i) Symmetrize(&vector_part);
-          scatter(i, j, vector_part, share, 0.0);
-          scatter(i, j, PairMoments{c.charge, 0.0, 0.0, 0.0}, 0.0, share);
+          const PairMoments sum{Multiply(mi.m00, vector_weight) + vector_part.m00,
+                                Multiply(mi.m10, vector_weight) + vector_part.m10,
+                                Multiply(mi.m01, vector_weight) + vector_part.m01,
+                                Multiply(mi.m11, vector_weight) + vector_part.m11};
+          scatter_split(i, j, sum, Multiply(mi.m00, charge_weight) + c.charge, share);
+          continue;
         }
+        // M is symmetric and the specular angle is the same both ways: Z stays symmetric.
+        scatter(i, j, mi, share * vector_weight, share * charge_weight);
       }
     }
   };
