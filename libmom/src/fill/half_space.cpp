@@ -141,8 +141,11 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   const double horizontal = std::hypot(hi.x() - lo.x(), hi.y() - lo.y());
   const double r_max =
       std::max(1.02 * std::hypot(horizontal, 2.0 * std::max(hi.z(), 0.0)), 2.0 * zeta_min);
+  // Height sums above twice the highest point are never looked up: the table skips them.
+  ground::TableOptions table_options;
+  table_options.zeta_max_m = std::max(2.0 * std::max(hi.z(), 0.0), zeta_min);
   table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
-                                                    zeta_min, r_max, zeta_min);
+                                                    zeta_min, r_max, zeta_min, table_options);
 }
 
 bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {

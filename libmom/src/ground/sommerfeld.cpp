@@ -19,6 +19,7 @@
 #include <boost/math/special_functions/detail/bessel_j0.hpp>
 #include <boost/math/special_functions/detail/bessel_j1.hpp>
 #include <cmath>
+#include <limits>
 #include <thread>
 #include <vector>
 
@@ -86,11 +87,15 @@ struct CorrectionKernel {
     const Complex kz0 = p.kz0;
     const Complex kz1 = Kz(k1_2, p.k_rho);
     const Complex te = kz0 + kz1, tm = eps * kz0 + kz1;
-    const Complex rq = 2.0 * kz0 * kz0 * (1.0 - eps) / (te * tm);
-    const Complex horizontal = 2.0 * kz0 / te;  // R_TE + 1
-    const Complex vertical = -2.0 * kz1 / tm;   // R_TM - 1
+    // One reciprocal, 2 / (te tm), for the four quotients below (by its real formula: the
+    // complex division's checks for infinite parts cost the table a sixth of its time).
+    const Complex d = te * tm;
+    const Complex inv = std::conj(d) * (2.0 / std::norm(d));
+    const Complex rq = kz0 * kz0 * (1.0 - eps) * inv;
+    const Complex horizontal = kz0 * tm * inv;  // R_TE + 1 = 2 kz0 / te
+    const Complex vertical = -kz1 * te * inv;   // R_TM - 1 = -2 kz1 / tm
     // R_TE + R_TM = 2 k_rho^2 (1 - eps) / (te tm), written without the cancellation.
-    const Complex sum_rc = 2.0 * (1.0 - eps) / (te * tm);
+    const Complex sum_rc = (1.0 - eps) * inv;
     const double j0 = J0(p.k_rho * rho);
     const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
     const Complex e = std::exp(-kJ * kz0 * zeta);
@@ -335,11 +340,26 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
     }
     first_y_scale_[a] = 1.0 / p;
   }
-  values_.resize(x_.size() * y_.size());
+  // The nodes a lookup can reach: a point in cell (i, j) reads nodes i-1..i+2 and j-1..j+2,
+  // so node (i, j) serves R' between the radii of nodes i-2 and i+2 and y between nodes j-2
+  // and j+2; it is needed where that window meets zeta_min <= R' sin(psi) <= zeta_max.
+  zeta_max_ = std::max(options.zeta_max_m, zeta_min_m);
+  const size_t nx = x_.size(), ny = y_.size();
+  auto y_of = [](double psi) { return std::sqrt(std::tan(0.5 * psi)); };
+  auto needed = [&](size_t i, size_t j) {
+    const double r_lo = radius[i < 2 ? 0 : i - 2], r_hi = radius[std::min(i + 2, nx - 1)];
+    const double y_low = y_of(std::asin(std::min(1.0, zeta_min_m / r_hi)));
+    const double y_high = zeta_max_ >= r_lo ? INFINITY : y_of(std::asin(zeta_max_ / r_lo));
+    return y_[std::min(j + 2, ny - 1)] >= y_low && y_[j < 2 ? 0 : j - 2] <= y_high;
+  };
+  const double not_built = std::numeric_limits<double>::quiet_NaN();
+  values_.assign(nx * ny, {Complex(not_built, not_built), Complex(not_built, not_built),
+                           Complex(not_built, not_built), Complex(not_built, not_built)});
   auto build = [&](size_t first, size_t step) {
     for (size_t i = first; i < x_.size(); i += step) {
       const double r = radius[i];
       for (size_t j = 0; j < y_.size(); ++j) {
+        if (!needed(i, j)) continue;
         const double psi = 2.0 * std::atan(y_[j] * y_[j]);
         const double rho = r * std::cos(psi), zeta = r * std::sin(psi);
         // Past the zenith rho < 0: the functions are even in rho but for the coupling, odd.
@@ -360,7 +380,7 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
 
 bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
   const double r = std::hypot(rho_m, zeta_m);
-  return !x_.empty() && r >= r_min_ && r <= r_max_ && zeta_m >= zeta_min_;
+  return !x_.empty() && r >= r_min_ && r <= r_max_ && zeta_m >= zeta_min_ && zeta_m <= zeta_max_;
 }
 
 HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) const {
@@ -374,13 +394,13 @@ HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) cons
 std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double zeta_m,
                                                          int parts) const {
   double rho = std::max(rho_m, 0.0);
-  double zeta = std::max(zeta_m, zeta_min_);
+  double zeta = std::clamp(zeta_m, zeta_min_, zeta_max_);
   double r = std::sqrt(rho * rho + zeta * zeta);
   if (r < r_min_ || r > r_max_) {
     // Move along the ray from the image to the nearest end of the range.
     const double scale = std::clamp(r, r_min_, r_max_) / r;
     rho *= scale;
-    zeta = std::max(zeta * scale, zeta_min_);
+    zeta = std::clamp(zeta * scale, zeta_min_, zeta_max_);
     rho = std::min(rho, std::sqrt(std::max(r_max_ * r_max_ - zeta * zeta, 0.0)));
     r = std::sqrt(rho * rho + zeta * zeta);
   }

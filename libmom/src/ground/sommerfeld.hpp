@@ -80,12 +80,17 @@ struct TableOptions {
   int angle_nodes = 20;
   // Threads building the table (1 or 2).
   int threads = 2;
+  // The highest height sum zeta (m) that will be looked up: nodes that serve only points
+  // above it (at long R' and steep elevation) are not integrated, which saves up to half the
+  // build for a low model; they hold NaN, so a lookup there could not go unnoticed, and
+  // lookups clamp zeta to it. Infinity (the default): the whole range.
+  double zeta_max_m = INFINITY;
 };
 
 class HalfSpaceTable {
  public:
   HalfSpaceTable() = default;
-  // Covers r_min_m <= R' <= r_max_m and zeta >= zeta_min_m.
+  // Covers r_min_m <= R' <= r_max_m and zeta_min_m <= zeta <= options.zeta_max_m.
   HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r_max_m, double zeta_min_m,
                  TableOptions options = {});
 
@@ -109,7 +114,7 @@ class HalfSpaceTable {
   // of horizontal, charge, coupling, vertical (the order of values_).
   template <int kParts>
   std::array<Complex, 4> Interpolate(double rho_m, double zeta_m, double r_m) const;
-  double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, r_c_ = 1.0;
+  double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, zeta_max_ = INFINITY, r_c_ = 1.0;
   std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(tan(psi/2))
   std::array<double, 4> first_y_scale_{};       // 1 / prod (y_a - y_b), first y stencil
   std::vector<std::array<Complex, 4>> values_;  // [i_x * y_.size() + i_y], image factored out;
