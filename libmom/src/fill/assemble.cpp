@@ -101,7 +101,7 @@ const NearFieldCache::Entry* NearFieldCache::Find(int observation, int source, b
   return nullptr;
 }
 
-NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh) {
+NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh, int threads) {
   const int ns = static_cast<int>(mesh.segments.size());
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   NearFieldCache cache;
@@ -119,26 +119,34 @@ NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh) {
     const double reach = 0.5 * (length[i] + length[j]) + std::max(length[i], length[j]);
     return (centre[i] - centre_j).squaredNorm() <= 1.01 * reach * reach;
   };
-  for (int i = 0; i < ns; ++i) {
-    const geometry::Segment& si = mesh.segments[i];
-    for (int j = i; j < ns; ++j) {
-      const geometry::Segment& sj = mesh.segments[j];
-      const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
-      if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
-        cache.by_observation[i].push_back(
-            {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
-      }
-      if (mesh.ground_images) {
-        const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
-        const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-        if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
-            IsNearPair(si.start, si.end, img0, img1)) {
+  // Row i is written by one thread only; rows interleaved, since row i scans ns - i pairs.
+  auto rows = [&](int first, int step) {
+    for (int i = first; i < ns; i += step) {
+      const geometry::Segment& si = mesh.segments[i];
+      for (int j = i; j < ns; ++j) {
+        const geometry::Segment& sj = mesh.segments[j];
+        const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
+        if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
           cache.by_observation[i].push_back(
-              {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
+              {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
+        }
+        if (mesh.ground_images) {
+          const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
+          const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
+          if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
+              IsNearPair(si.start, si.end, img0, img1)) {
+            cache.by_observation[i].push_back(
+                {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
+          }
         }
       }
     }
-  }
+  };
+  const int used = std::clamp(threads, 1, std::max(1, ns / 64));  // small meshes: one thread
+  std::vector<std::thread> pool;
+  for (int t = 1; t < used; ++t) pool.emplace_back(rows, t, used);
+  rows(0, used);
+  for (std::thread& th : pool) th.join();
   return cache;
 }
 
