@@ -10,8 +10,13 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <optional>
 #include <thread>
+
+#if defined(__linux__)
+#include <sys/mman.h>
+#endif
 
 #include "core/constants.hpp"
 #include "fill/conductor.hpp"
@@ -20,6 +25,25 @@
 
 namespace wirefield::fill {
 namespace {
+
+// Asks the kernel to back the 2 MiB-aligned part of [data, data + bytes) with transparent huge
+// pages (Linux, where they are enabled for madvise'd memory): the first touch of a large matrix
+// then costs a few page faults instead of one per 4 KiB, which on this machine's virtual CPUs
+// took a tenth of a 1000-unknown solve. Only a hint: if the kernel declines, nothing changes.
+void AdviseHugePages(void* data, std::size_t bytes) {
+#if defined(__linux__) && defined(MADV_HUGEPAGE)
+  constexpr std::uintptr_t kHuge = std::uintptr_t{1} << 21;
+  const std::uintptr_t start = reinterpret_cast<std::uintptr_t>(data);
+  const std::uintptr_t begin = (start + kHuge - 1) & ~(kHuge - 1);
+  const std::uintptr_t end = (start + bytes) & ~(kHuge - 1);
+  if (end > begin) {
+    (void)madvise(reinterpret_cast<void*>(begin), end - begin, MADV_HUGEPAGE);  // a hint only
+  }
+#else
+  (void)data;
+  (void)bytes;
+#endif
+}
 
 struct PieceRef {
   int basis;
@@ -260,7 +284,9 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     return m;
   };
 
-  Eigen::MatrixXcd z = Eigen::MatrixXcd::Zero(n, n);
+  Eigen::MatrixXcd z(n, n);
+  AdviseHugePages(z.data(), static_cast<std::size_t>(z.size()) * sizeof(Complex));
+  z.setZero();
   using SpillRows = std::vector<std::pair<int, Eigen::VectorXcd>>;
   auto work = [&](int t, SpillRows* spill) {
     auto row_of = [&](int basis) -> Complex* {
