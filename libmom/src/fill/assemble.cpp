@@ -32,12 +32,12 @@ namespace {
 // took a tenth of a 1000-unknown solve. Only a hint: if the kernel declines, nothing changes.
 void AdviseHugePages(void* data, std::size_t bytes) {
 #if defined(__linux__) && defined(MADV_HUGEPAGE)
-  constexpr std::uintptr_t kHuge = std::uintptr_t{1} << 21;
-  const std::uintptr_t start = reinterpret_cast<std::uintptr_t>(data);
-  const std::uintptr_t begin = (start + kHuge - 1) & ~(kHuge - 1);
-  const std::uintptr_t end = (start + bytes) & ~(kHuge - 1);
-  if (end > begin) {
-    (void)madvise(reinterpret_cast<void*>(begin), end - begin, MADV_HUGEPAGE);  // a hint only
+  constexpr std::size_t kHuge = std::size_t{1} << 21;
+  const std::size_t misalignment = reinterpret_cast<std::uintptr_t>(data) % kHuge;
+  const std::size_t lead = misalignment == 0 ? 0 : kHuge - misalignment;
+  if (bytes > lead) {
+    const std::size_t length = (bytes - lead) / kHuge * kHuge;
+    if (length > 0) (void)madvise(static_cast<char*>(data) + lead, length, MADV_HUGEPAGE);
   }
 #else
   (void)data;

@@ -19,6 +19,7 @@
 #include <boost/math/special_functions/detail/bessel_j0.hpp>
 #include <boost/math/special_functions/detail/bessel_j1.hpp>
 #include <cmath>
+#include <cstddef>
 #include <limits>
 #include <thread>
 #include <vector>
@@ -434,7 +435,8 @@ std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, 
   const double* base = reinterpret_cast<const double*>(values_.data());
   double v[8] = {};
   for (int a = 0; a < 4; ++a) {
-    const double* row = base + 8 * ((i - 1 + a) * static_cast<int>(y_.size()) + j - 1);
+    const double* row =
+        base + std::ptrdiff_t{8} * ((i - 1 + a) * static_cast<std::ptrdiff_t>(y_.size()) + j - 1);
     double t[kDoubles] = {};
     for (int b = 0; b < 4; ++b) {
       for (int c = 0; c < kDoubles; ++c) t[c] += wy[b] * row[8 * b + c];
