@@ -36,8 +36,8 @@ run: build
 test: build
 	cd $(BUILD) && ctest --output-on-failure -j $(JOBS)
 
-# The summary table of docs/performance.md (a few minutes); the single-stage Google Benchmark
-# programs are $(BUILD)/bin/wirefield_bench.
+# The summary table of docs/performance.md (a few minutes): Google Benchmark runs of every row,
+# then the table computed from them; single stages: $(BUILD)/bin/wirefield_bench.
 bench: build
 	$(BUILD)/bin/wirefield_perf
 

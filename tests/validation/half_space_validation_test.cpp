@@ -134,8 +134,8 @@ TEST(HalfSpaceGround, TheTableAddsUnderAHundredthOfAPercentToALowModel) {
   // wire beside it, filled once through the table and once with the correction integrated
   // directly at every quadrature point (GroundSpec::half_space_table = false). The reference
   // is the same Sommerfeld integrals without interpolation, so the difference is the table's.
-  // Measured (30 unknowns), very dry / average / wet: matrix 8.9e-9 / 2.6e-9 / 2.5e-9
-  // relative (Frobenius), feed impedance 2.5e-6 / 3.7e-6 / 4.4e-6 relative (75.31 - j6.80,
+  // Measured (30 unknowns), very dry / average / wet: matrix 1.1e-8 / 2.6e-9 / 2.6e-9
+  // relative (Frobenius), feed impedance 2.7e-6 / 2.1e-6 / 3.6e-6 relative (75.31 - j6.80,
   // 60.41 - j7.81, 47.98 - j12.84 ohm). Bounds 1e-6 and 1e-4: the table's pointwise error is
   // under 1e-3 of the image (tests/unit/ground/sommerfeld_test.cpp) and the corrections are a
   // small part of Z; 1e-4 of the impedance is a three-hundredth of the 3% to which the exact

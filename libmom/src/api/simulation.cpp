@@ -79,7 +79,10 @@ Simulation::Simulation(Model model, SimulationOptions options) : impl_(std::make
   mo.max_matrix_bytes =
       options.max_matrix_bytes ? *options.max_matrix_bytes : DefaultMatrixBudgetBytes();
   impl_->mesh = geometry::BuildMesh(m, mo);
-  impl_->near_field = fill::BuildNearFieldCache(impl_->mesh);
+  impl_->near_field = fill::BuildNearFieldCache(
+      impl_->mesh, options.fill_threads > 0
+                       ? options.fill_threads
+                       : static_cast<int>(std::max(1u, std::thread::hardware_concurrency())));
   impl_->warnings = m.warnings;
   impl_->warnings.insert(impl_->warnings.end(), impl_->mesh.warnings.begin(),
                          impl_->mesh.warnings.end());

@@ -35,7 +35,8 @@ struct NearFieldCache {
   std::vector<std::vector<Entry>> by_observation;
   const Entry* Find(int observation, int source, bool image) const;
 };
-NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh);
+// Built on `threads` threads (rows interleaved; each row's list is the same for any count).
+NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh, int threads = 1);
 
 // The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric, filled by
 // fill_threads threads (at most 32 help; the matrix is bit-identical for any count).

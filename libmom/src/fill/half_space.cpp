@@ -78,24 +78,25 @@ void AddPieces(const Vec3& s0, const Vec3& s1, double lo, double hi, std::vector
   }
 }
 
-// The quadrature nodes on segment s0-s1: `points` Gauss points, or (points == 0) the composite
-// rule graded toward the ground, the other segment's lowest point being at other_low_m.
-std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m,
-                               double floor_m) {
-  std::vector<Node> nodes;
+// The quadrature nodes on segment s0-s1 (into *nodes, emptied first): `points` Gauss points,
+// or (points == 0) the composite rule graded toward the ground, the other segment's lowest
+// point being at other_low_m.
+void CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m, double floor_m,
+                     std::vector<Node>* nodes) {
+  nodes->clear();
   switch (points) {
     case 2:
-      AddPieces<2>(s0, s1, 0.0, 1.0, &nodes);
-      return nodes;
+      AddPieces<2>(s0, s1, 0.0, 1.0, nodes);
+      return;
     case 3:
-      AddPieces<3>(s0, s1, 0.0, 1.0, &nodes);
-      return nodes;
+      AddPieces<3>(s0, s1, 0.0, 1.0, nodes);
+      return;
     case 4:
-      AddPieces<4>(s0, s1, 0.0, 1.0, &nodes);
-      return nodes;
+      AddPieces<4>(s0, s1, 0.0, 1.0, nodes);
+      return;
     case 6:
-      AddPieces<6>(s0, s1, 0.0, 1.0, &nodes);
-      return nodes;
+      AddPieces<6>(s0, s1, 0.0, 1.0, nodes);
+      return;
     default:
       break;
   }
@@ -103,7 +104,8 @@ std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, do
   const double length = (s1 - s0).norm();
   const bool start_low = s0.z() <= s1.z();
   const double z_low = std::min(s0.z(), s1.z()), rise = std::abs(s1.z() - s0.z());
-  std::vector<double> breaks{0.0};  // distance from the lower end, in units of the length
+  thread_local std::vector<double> breaks;  // distance from the lower end, in lengths
+  breaks.assign(1, 0.0);
   constexpr int kMaxPieces = 64;
   while (breaks.back() < 1.0 && static_cast<int>(breaks.size()) <= kMaxPieces) {
     const double s = breaks.back();
@@ -114,9 +116,8 @@ std::vector<Node> CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, do
   for (size_t b = 0; b + 1 < breaks.size(); ++b) {
     const double lo = start_low ? breaks[b] : 1.0 - breaks[b + 1];
     const double hi = start_low ? breaks[b + 1] : 1.0 - breaks[b];
-    AddPieces<4>(s0, s1, lo, hi, &nodes);
+    AddPieces<4>(s0, s1, lo, hi, nodes);
   }
-  return nodes;
 }
 
 }  // namespace
@@ -140,10 +141,12 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   const double horizontal = std::hypot(hi.x() - lo.x(), hi.y() - lo.y());
   const double r_max =
       std::max(1.02 * std::hypot(horizontal, 2.0 * std::max(hi.z(), 0.0)), 2.0 * zeta_min);
-  ground::TableOptions options;
-  options.direct = !tabulate;
+  // Height sums above twice the highest point are never looked up: the table skips them.
+  ground::TableOptions table_options;
+  table_options.direct = !tabulate;
+  table_options.zeta_max_m = std::max(2.0 * std::max(hi.z(), 0.0), zeta_min);
   table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
-                                                    zeta_min, r_max, zeta_min, options);
+                                                    zeta_min, r_max, zeta_min, table_options);
 }
 
 bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {
@@ -172,11 +175,22 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   } else if (gap >= kGradedFactor * longest) {
     points = 6;
   }
-  const std::vector<Node> obs = CorrectionNodes(a0, a1, points, b_low, floor_m_);
-  const std::vector<Node> src = CorrectionNodes(b0, b1, points, a_low, floor_m_);
+  // The node lists are reused from pair to pair (one pair at a time per thread).
+  thread_local std::vector<Node> obs, src;
+  CorrectionNodes(a0, a1, points, b_low, floor_m_, &obs);
+  CorrectionNodes(b0, b1, points, a_low, floor_m_, &src);
   const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
   const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
   const double vertical = ua.z() * ub.z();
+  // Two horizontal segments need neither the vertical nor the coupling kernel; one horizontal
+  // segment no vertical kernel.
+  const int parts = ua.z() == 0.0 && ub.z() == 0.0 ? 2 : (vertical == 0.0 ? 3 : 4);
+  // The image factor exp(-jkR')/R' from one sine and cosine at the centres and the series of
+  // fill/kernel.hpp in k (R' - R'_c) at each pair of points (one sine and cosine per pair of
+  // points where the phase difference exceeds the series' range).
+  const Vec3 centre_a = 0.5 * (a0 + a1), centre_b = 0.5 * (b0 + b1);
+  const double r_centre = (centre_a - centre_b.cwiseProduct(mirror)).norm();
+  const Complex phase_centre = std::polar(1.0, -wavenumber_ * r_centre);
   HalfSpacePair out;
   for (const Node& o : obs) {
     Complex s0 = 0.0, s1 = 0.0, q0 = 0.0;
@@ -184,20 +198,35 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
       const double dx = o.p.x() - s.p.x(), dy = o.p.y() - s.p.y();
       const double rho = std::sqrt(dx * dx + dy * dy), zeta = o.p.z() + s.p.z();
       const double r = std::max(std::sqrt(rho * rho + zeta * zeta), 1e-12 * floor_m_);
-      const std::array<Complex, 4> n = table_->NormalizedClamped(rho, zeta);
-      const Complex image = std::polar(s.w / r, -wavenumber_ * r);
+      const std::array<Complex, 4> n = table_->NormalizedClamped(rho, zeta, parts);
+      const double x = wavenumber_ * (r - r_centre);
+      double c = 0.0, sn = 0.0;
+      if (std::abs(x) <= kShortSeriesPhaseLimit) {
+        SeriesPhase<true>(x, &c, &sn);
+      } else if (std::abs(x) <= kSeriesPhaseLimit) {
+        SeriesPhase<false>(x, &c, &sn);
+      } else {
+        c = std::cos(x);
+        sn = -std::sin(x);
+      }
+      const double scale = s.w / r;
+      const Complex image(scale * (phase_centre.real() * c - phase_centre.imag() * sn),
+                          scale * (phase_centre.real() * sn + phase_centre.imag() * c));
       // The coupling's direction factor u_obs,z (u_src . rho_hat) - u_src,z (u_obs . rho_hat),
       // rho_hat the horizontal unit vector from the source point toward the observer.
       double coupling = 0.0;
-      if (rho > 0.0) {
-        const double ub_rho = (ub.x() * dx + ub.y() * dy) / rho;
-        const double ua_rho = (ua.x() * dx + ua.y() * dy) / rho;
-        coupling = ua.z() * ub_rho - ub.z() * ua_rho;
+      if (parts > 2 && rho > 0.0) {
+        const double inv_rho = 1.0 / rho;
+        coupling =
+            (ua.z() * (ub.x() * dx + ub.y() * dy) - ub.z() * (ua.x() * dx + ua.y() * dy)) * inv_rho;
       }
-      const Complex vector = (n[0] * horizontal + n[1] * vertical + n[3] * coupling) * image;
+      const Complex kernel = n[0] * horizontal + n[1] * vertical + n[3] * coupling;
+      const Complex vector(kernel.real() * image.real() - kernel.imag() * image.imag(),
+                           kernel.real() * image.imag() + kernel.imag() * image.real());
       s0 += vector;
       s1 += vector * s.t;
-      q0 += n[2] * image;
+      q0 += Complex(n[2].real() * image.real() - n[2].imag() * image.imag(),
+                    n[2].real() * image.imag() + n[2].imag() * image.real());
     }
     out.vector.m00 += o.w * s0;
     out.vector.m10 += o.w * o.t * s0;

@@ -68,14 +68,15 @@ class HalfSpace {
 
 // The four corrections tabulated once per ground and frequency over R' = sqrt(rho^2 + zeta^2)
 // (log-spaced near the source, evenly spaced far away) and the elevation angle psi = atan(zeta /
-// rho) (uniform in sqrt(psi)), with the image's exp(-jkR')/R' factored out (what remains is smooth:
-// it tends to constants as k0 R' -> 0 and to the Fresnel factors as k0 R' -> inf), and interpolated
-// by tensor cubic Lagrange polynomials. Points outside the table are integrated directly.
+// rho) (uniform in sqrt(tan(psi / 2)), close to sqrt(psi / 2) at low angles), with the image's
+// exp(-jkR')/R' factored out (what remains is smooth: it tends to constants as k0 R' -> 0 and to
+// the Fresnel factors as k0 R' -> inf), and interpolated by tensor cubic Lagrange polynomials.
+// Points outside the table are integrated directly.
 struct TableOptions {
   // Nodes per factor of 2 in R'; more costs build time linearly and cuts the interpolation
   // error as the fourth power.
   int nodes_per_octave = 4;
-  // Nodes in sqrt(psi) over [psi_min, pi/2]; same trade.
+  // Nodes in sqrt(tan(psi / 2)) over [psi_min, pi/2]; same trade.
   int angle_nodes = 20;
   // Threads building the table (1 or 2).
   int threads = 2;
@@ -83,12 +84,17 @@ struct TableOptions {
   // point). Exact up to the quadrature, some hundred times slower in a fill; for measuring
   // what the interpolation adds.
   bool direct = false;
+  // The highest height sum zeta (m) that will be looked up: nodes that serve only points
+  // above it (at long R' and steep elevation) are not integrated, which saves up to half the
+  // build for a low model; they hold NaN, so a lookup there could not go unnoticed, and
+  // lookups clamp zeta to it. Infinity (the default): the whole range.
+  double zeta_max_m = INFINITY;
 };
 
 class HalfSpaceTable {
  public:
   HalfSpaceTable() = default;
-  // Covers r_min_m <= R' <= r_max_m and zeta >= zeta_min_m.
+  // Covers r_min_m <= R' <= r_max_m and zeta_min_m <= zeta <= options.zeta_max_m.
   HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r_max_m, double zeta_min_m,
                  TableOptions options = {});
 
@@ -96,8 +102,11 @@ class HalfSpaceTable {
   // The four corrections divided by the image's exp(-jkR')/R' (what the table holds), at the
   // nearest point of the table's range: zeta is raised to the table's zeta_min and R' kept
   // within [r_min, r_max]. Near the source these tend to constants (the static images), so the
-  // clamp changes little there; the caller multiplies by the true image factor.
-  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m) const;
+  // clamp changes little there; the caller multiplies by the true image factor. parts = 2:
+  // only the horizontal and charge parts are interpolated (all that two horizontal segments
+  // need, at half the cost), 3: the coupling too (enough when one of the two is horizontal:
+  // the vertical part's weight u_obs,z u_src,z is zero), 4: all; the parts left out are zero.
+  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m, int parts = 4) const;
   bool Covers(double rho_m, double zeta_m) const;
   int nodes() const { return static_cast<int>(values_.size()); }
   bool direct() const { return direct_; }
@@ -106,12 +115,16 @@ class HalfSpaceTable {
  private:
   HalfSpace ground_{Complex(1.0, 0.0), 1.0};
   double Map(double r) const { return std::log(r) + r / r_c_; }
-  // The tabulated (normalized) values at a point inside the range.
-  std::array<Complex, 4> Interpolate(double rho_m, double zeta_m) const;
-  double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, r_c_ = 1.0;
+  // The tabulated (normalized) values at a point inside the range, R' = r_m: the first kParts
+  // of horizontal, charge, coupling, vertical (the order of values_).
+  template <int kParts>
+  std::array<Complex, 4> Interpolate(double rho_m, double zeta_m, double r_m) const;
+  double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, zeta_max_ = INFINITY, r_c_ = 1.0;
   bool direct_ = false;
-  std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(psi)
-  std::vector<std::array<Complex, 4>> values_;  // [i_x * y_.size() + i_y], image factored out
+  std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(tan(psi/2))
+  std::array<double, 4> first_y_scale_{};       // 1 / prod (y_a - y_b), first y stencil
+  std::vector<std::array<Complex, 4>> values_;  // [i_x * y_.size() + i_y], image factored out;
+                                                // horizontal, charge, coupling, vertical
 };
 
 // The Sommerfeld identity's integral int_0^inf J0(k_rho rho) exp(-j k_z0 zeta) k_rho/(j k_z0)

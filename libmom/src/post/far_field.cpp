@@ -5,6 +5,7 @@
 // points that grows with the electrical size k * extent of the antenna and its image.
 #include "post/far_field.hpp"
 
+#include <atomic>
 #include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
 
@@ -23,10 +24,37 @@ void LinearPhaseIntegrals(double psi, Complex e_s, Complex e_e, Complex* a0, Com
     *a1 = e_s * Complex(0.5 - p2 / 8.0 + p2 * p2 / 144.0, psi / 3.0 - p2 * psi / 30.0);
     return;
   }
-  const Complex minus_j_over_psi(0.0, -1.0 / psi);  // 1 / (j psi)
+  // a0 = (e_e - e_s) / (j psi), a1 = e_e / (j psi) + (e_e - e_s) / psi^2, written out.
+  const double inv = 1.0 / psi, inv2 = inv * inv;
   const Complex diff = e_e - e_s;
-  *a0 = diff * minus_j_over_psi;
-  *a1 = e_e * minus_j_over_psi + diff / (psi * psi);
+  *a0 = Complex(diff.imag() * inv, -diff.real() * inv);
+  *a1 = Complex(e_e.imag() * inv + diff.real() * inv2, -e_e.real() * inv + diff.imag() * inv2);
+}
+
+// Sum over elements of delta (i0 a0 + (i1 - i0) a1), a0 and a1 as LinearPhaseIntegrals gives
+// them from the phases of the ends, with the products written out in real arithmetic (the
+// complex operators' checks for infinite parts, which cannot occur here, cost the loop a
+// branch per product, and Eigen multiplies the real delta as a complex vector).
+template <typename Element>
+CVec3 SumElements(const std::vector<Element>& elements, const std::vector<Complex>& phase,
+                  const Vec3& k_rhat) {
+  double sx_re = 0.0, sx_im = 0.0, sy_re = 0.0, sy_im = 0.0, sz_re = 0.0, sz_im = 0.0;
+  for (const Element& e : elements) {
+    Complex a0, a1;
+    LinearPhaseIntegrals(k_rhat.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
+    const Complex di = e.i1 - e.i0;
+    const double c_re = e.i0.real() * a0.real() - e.i0.imag() * a0.imag() + di.real() * a1.real() -
+                        di.imag() * a1.imag();
+    const double c_im = e.i0.real() * a0.imag() + e.i0.imag() * a0.real() + di.real() * a1.imag() +
+                        di.imag() * a1.real();
+    sx_re += e.delta.x() * c_re;
+    sx_im += e.delta.x() * c_im;
+    sy_re += e.delta.y() * c_re;
+    sy_im += e.delta.y() * c_im;
+    sz_re += e.delta.z() * c_re;
+    sz_im += e.delta.z() * c_im;
+  }
+  return CVec3(Complex(sx_re, sx_im), Complex(sy_re, sy_im), Complex(sz_re, sz_im));
 }
 
 }  // namespace
@@ -43,6 +71,8 @@ FarFieldSource::FarFieldSource(const std::vector<SegmentCurrent>& currents, doub
     // The image doubles the extent of the source for the band limit of the pattern.
     extent_m_ = std::max({extent_m_, a.norm(), b.norm()});
   }
+  static std::atomic<std::uint64_t> next_id{1};
+  id_ = next_id++;
 }
 
 int FarFieldSource::PointIndex(const Vec3& p) {
@@ -59,23 +89,32 @@ void FarFieldSource::RadiationVectors(const Vec3& rhat, CVec3* direct, CVec3* mi
   thread_local std::vector<Complex> phase;
   phase.resize(points_.size());
   for (size_t i = 0; i < points_.size(); ++i) phase[i] = std::polar(1.0, k_ * rhat.dot(points_[i]));
-  *direct = CVec3::Zero();
-  for (const Element& e : elements_) {
-    Complex a0, a1;
-    LinearPhaseIntegrals(k_ * rhat.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
-    // int_0^1 (i0 + (i1 - i0) t) exp(jk rhat.(start + delta t)) dt, times the length vector.
-    *direct += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
-  }
+  // int_0^1 (i0 + (i1 - i0) t) exp(jk rhat.(start + delta t)) dt, times the length vector.
+  *direct = SumElements(elements_, phase, k_ * rhat);
   if (!mirrored) return;
-  // Mirrored points: rhat . (x, y, -z) = (rhat_x, rhat_y, -rhat_z) . (x, y, z).
-  const Vec3 rm(rhat.x(), rhat.y(), -rhat.z());
-  for (size_t i = 0; i < points_.size(); ++i) phase[i] = std::polar(1.0, k_ * rm.dot(points_[i]));
-  *mirrored = CVec3::Zero();
-  for (const Element& e : elements_) {
-    Complex a0, a1;
-    LinearPhaseIntegrals(k_ * rm.dot(e.delta), phase[e.start], phase[e.end], &a0, &a1);
-    *mirrored += e.delta.cast<Complex>() * (e.i0 * a0 + (e.i1 - e.i0) * a1);
+  // Mirrored points: rhat . (x, y, -z) = rhat . (x, y, z) - 2 rhat_z z, so each mirrored phase
+  // is the direct one times exp(-2jk rhat_z z). Those factors depend on the elevation only, and
+  // the pattern grid and the power integration sweep the azimuth at one elevation: they are
+  // kept per thread while the source and rhat_z stay the same (one sine and cosine per point
+  // and direction instead of two).
+  thread_local std::vector<Complex> lift;
+  thread_local std::uint64_t lift_source = 0;
+  thread_local double lift_rz = 0.0;
+  if (lift_source != id_ || lift_rz != rhat.z() || lift.size() != points_.size()) {
+    lift.resize(points_.size());
+    for (size_t i = 0; i < points_.size(); ++i) {
+      lift[i] = std::polar(1.0, -2.0 * k_ * rhat.z() * points_[i].z());
+    }
+    lift_source = id_;
+    lift_rz = rhat.z();
   }
+  const Vec3 rm(rhat.x(), rhat.y(), -rhat.z());
+  for (size_t i = 0; i < points_.size(); ++i) {
+    const Complex p = phase[i], f = lift[i];
+    phase[i] = Complex(p.real() * f.real() - p.imag() * f.imag(),
+                       p.real() * f.imag() + p.imag() * f.real());
+  }
+  *mirrored = SumElements(elements_, phase, k_ * rm);
 }
 
 CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {

@@ -9,6 +9,7 @@
 
 #include <Eigen/Core>
 #include <complex>
+#include <cstdint>
 #include <vector>
 
 #include "ground/reflection.hpp"
@@ -55,6 +56,9 @@ class FarFieldSource {
   double extent_m_ = 0.0;  // largest distance of any element end from the origin
   bool upper_half_only_ = false;
   ground::Ground ground_;
+  // Identifies the points_ of this source (copies share it) for the per-thread cache of the
+  // mirrored phases' factors in RadiationVectors.
+  std::uint64_t id_ = 0;
 };
 
 }  // namespace wirefield::post
