@@ -147,7 +147,7 @@ void BM_SolveSymmetric(benchmark::State& state) {
 BENCHMARK(BM_SolveSymmetric)->Arg(250)->Arg(500)->Arg(1000)->Unit(benchmark::kMillisecond);
 #endif
 
-// Fill and solve of 1000 unknowns together (the 2 s budget on one core).
+// Fill and solve of 1000 unknowns together (the budget: 2 s on one core).
 void BM_FillAndSolve1000(benchmark::State& state) {
   const wirefield::Model m = LongWire(1001);
   wirefield::Simulation sim(m);
@@ -156,7 +156,7 @@ void BM_FillAndSolve1000(benchmark::State& state) {
 BENCHMARK(BM_FillAndSolve1000)->Unit(benchmark::kMillisecond);
 
 // The default pattern (1 degree grid, cuts, power integration) of a 200-unknown model over
-// a perfect ground, including its solve: the budget is one second.
+// a perfect ground, including its solve: the budget is one second.
 void BM_Pattern200(benchmark::State& state) {
   wirefield::Model m = LongWire(201);
   m.ground.kind = wirefield::GroundKind::kPerfect;
@@ -168,7 +168,7 @@ void BM_Pattern200(benchmark::State& state) {
 }
 BENCHMARK(BM_Pattern200)->Unit(benchmark::kMillisecond);
 
-// The sweep: 351 points (1 kHz steps, 14.00-14.35 MHz) of a 100-unknown dipole,
+// The reference sweep: 351 points (1 kHz steps, 14.00-14.35 MHz) of a 100-unknown dipole,
 // mesh included, on all cores (argument: threads, 0 = all).
 void BM_Sweep351Points100Unknowns(benchmark::State& state) {
   wirefield::Model m = LongWire(101);

@@ -389,7 +389,7 @@ std::vector<MalformedCase> Cases() {
 
 TEST(MalformedInputs, EachEndsWithExitTwoAndTheLineAndColumnOfTheMistake) {
   const std::vector<MalformedCase> cases = Cases();
-  ASSERT_GE(cases.size(), 60u);  // the issue asks for at least 60 malformed models
+  ASSERT_GE(cases.size(), 60u);  // at least 60 malformed models are required
   for (const MalformedCase& c : cases) {
     SCOPED_TRACE(c.name);
     const std::string path = WriteScratchFile("malformed_" + c.name + ".wire", c.text);

@@ -63,7 +63,7 @@ TEST(QuarterWaveMonopole, HasHalfTheImpedanceOfTheDipoleOfTwiceItsLength) {
   // Image theory (Balanis, 3rd ed., §4.7.4, from memory; REFERENCES.md §1): a monopole of
   // height h on a perfect ground has half the impedance of the dipole of length 2h. The mesh
   // of the dipole's upper half equals the monopole's, so the agreement is limited only by
-  // rounding; the 0.5% is far looser than the 1e-6 checked here.
+  // rounding; the required 0.5% is far looser than the 1e-6 checked here.
   for (double height : {0.2, 0.25, 0.3}) {
     Model mono;
     mono.file = "monopole";

@@ -17,7 +17,6 @@ using testing::kUnitWavelengthHz;
 using testing::Solved;
 using testing::SolveModel;
 
-
 TEST(HalfWaveDipole, GainIsTheTextbookDirectivity) {
   // D = 4 / Cin(2 pi) = 1.6409 -> 2.151 dBi (Balanis, 3rd ed., eq. 4-91, from memory;
   // REFERENCES.md §1), for the sinusoidal current of a vanishing radius. Tolerance 0.05 dB:
@@ -104,7 +103,7 @@ TEST(HorizontalDipoleInFreeSpace, ReportsItsMaximumOnTheHorizonBroadside) {
 
 TEST(PowerBalance, LosslessModelsRadiateTheirInputPower) {
   // Energy conservation (Poynting's theorem): with no losses the power integrated over the
-  // far-field sphere (or half-space over a perfect ground) equals the feed power. The issue's
+  // far-field sphere (or half-space over a perfect ground) equals the feed power. The required
   // tolerance is 1%; the Galerkin solution meets it far more tightly.
   std::vector<Model> models = {Dipole(0.5, 1e-4, 41), Dipole(1.3, 1e-3, 61)};
   Model bent = HorizontalDipole(0.7, 1e-3, 31, 0.3);

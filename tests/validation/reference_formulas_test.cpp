@@ -84,7 +84,7 @@ std::vector<double> SpecialFunctionGrid() {
   return grid;
 }
 
-// The brief for these functions: 1e-12 relative on 1e-6 <= x <= 100.
+// The required accuracy of these functions: 1e-12 relative on 1e-6 <= x <= 100.
 constexpr double kSpecialFunctionRelativeTolerance = 1e-12;
 // Near the zeros of Ci (x = 0.6165, 3.3842, 6.4270, ...) a relative bound means nothing: there
 // terms of size ~1 cancel, and the answer can be no better than a few ulps of them (2.2e-16
@@ -202,7 +202,7 @@ TEST(CosineIntegral, RejectsZeroAndNegativeArgumentsWithAMessage) {
 }
 
 // Analytic comparisons against values printed to 0.01 ohm: half a unit of the last printed
-// digit is 0.005 ohm, and the brief allows 0.05 ohm.
+// digit is 0.005 ohm, and 0.05 ohm is allowed.
 constexpr double kTwoDecimalsTolerance_ohm = 0.05;
 // Values printed to 0.1 ohm (brief: 0.1 ohm).
 constexpr double kOneDecimalTolerance_ohm = 0.1;

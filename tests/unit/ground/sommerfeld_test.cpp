@@ -43,7 +43,7 @@ TEST(SommerfeldIdentity, IntegralMatchesExpMinusJkROverR) {
 TEST(HalfSpace, NoGroundCancelsThePerfectImage) {
   // eps_c = 1: no reflection (R_TE = R_TM = R_q = 0), so the corrections are minus the
   // perfect-ground image (-1, +1, -1, 0) x exp(-jkR')/R' (image theory: Balanis, Antenna Theory,
-  // 3rd ed., §4.7, from memory, and the Sommerfeld identity). 1e-6 relative as the brief asks.
+  // 3rd ed., §4.7, from memory, and the Sommerfeld identity). 1e-6 relative: the required bound.
   const HalfSpace free(Complex(1.0, 0.0), kK0);
   for (const auto& [rho, zeta] : kPoints) {
     const Complex image = Image(rho, zeta);
@@ -61,7 +61,7 @@ TEST(HalfSpace, InfiniteConductivityGivesThePerfectImage) {
   // (Balanis, Antenna Theory, 3rd ed., §4.7, from memory): the corrections vanish, as
   // 1/(|k1| zeta), the skin depth over the height (the spectrum of a source at height zeta/2
   // reaches k_rho ~ 1/zeta). |eps_c| = 1e18 (sigma ~ 1e11 S/m at 14 MHz) puts them below
-  // 1e-7 of the image at the lowest point here; the bound 1e-6 is the brief's.
+  // 1e-7 of the image at the lowest point here; the required bound is 1e-6.
   const HalfSpace metal(Complex(1.0, -1e18), kK0);
   for (const auto& [rho, zeta] : kPoints) {
     const double scale = std::abs(Image(rho, zeta));
