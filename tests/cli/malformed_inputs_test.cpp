@@ -384,6 +384,15 @@ std::vector<MalformedCase> Cases() {
        "use R=, L= or C="},
       {"unit_in_the_plural", kGood + "load l at dip@25% series R=50ohms\n", 5, 30,
        "did you mean 'ohm'?"},
+      // A wire in the soil is refused over a real ground, at the point that goes below it.
+      {"bent_wire_into_real_ground",
+       kUnits + "wire dip through (0, 0, 10), (5, 0, 10), (5, 0, -1) radius 1mm\n" + kFeed +
+           kFrequency + "ground real preset=average\n",
+       2, 42, "goes below the real ground (z = -1 m)"},
+      {"straight_wire_into_real_ground",
+       kUnits + "wire dip from (-5, 0, 10) to (5, 0, -0.5) radius 1mm\n" + kFeed + kFrequency +
+           "ground real preset=average\n",
+       2, 30, "not buried radials or wires in the soil"},
   };
 }
 

@@ -78,6 +78,9 @@ struct WireSpec {
   std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
   double relative_permeability = 1.0;          // steel > 1
   SourceLocation location;
+  // Where each corner of WirePath was written (the '(' of its point), in path order; empty
+  // when the corners were computed (a `shape`).
+  std::vector<SourceLocation> point_locations;
 };
 
 // The corners of a wire from its start to its end: from_m, the bends, to_m.

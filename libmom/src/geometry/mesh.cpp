@@ -543,9 +543,13 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       const WireSpec& spec = model.wires[w];
       const auto& corners = layout[w].corners;
       double zmin = INFINITY;
+      size_t lowest = 0;
       bool too_close = false, connected = false;
       for (size_t i = 0; i < corners.size(); ++i) {
-        zmin = std::min(zmin, corners[i].z());
+        if (corners[i].z() < zmin) {
+          zmin = corners[i].z();
+          lowest = i;
+        }
         if (i + 1 == corners.size()) break;
         auto on_ground = [&](size_t c) {
           return (c == 0 || c + 1 == corners.size()) && std::abs(corners[c].z()) <= join_tol_m;
@@ -560,8 +564,12 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       if (real && (zmin < -join_tol_m || too_close)) {
         // Over a real ground a wire in or on the soil would be computed wrongly (the fill
         // assumes both ends of every pair in the air): refuse it.
+        // Below the ground: at the lowest point as written, when the model wrote it.
+        const SourceLocation& where = zmin < -join_tol_m && lowest < spec.point_locations.size()
+                                          ? spec.point_locations[lowest]
+                                          : spec.location;
         throw InputError(
-            spec.location,
+            where,
             zmin < -join_tol_m
                 ? fmt::format("wire '{}' goes below the real ground (z = {:.3g} m): wirefield "
                               "models wires in the air above z = 0 only, not buried radials or "
@@ -575,7 +583,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       }
       if (zmin < -join_tol_m) {
         mesh.warnings.push_back(
-            {spec.location,
+            {lowest < spec.point_locations.size() ? spec.point_locations[lowest] : spec.location,
              fmt::format("wire '{}' goes below the ground (z = {:.3g} m): the ground is the "
                          "plane z = 0 and the solver assumes wires above it; raise the wire",
                          spec.name, zmin)});

@@ -372,7 +372,8 @@ class Parser {
   }
 
   // `through (X, Y, Z), (X, Y, Z), ...`: the corners of a bent wire, at least two, checked.
-  std::vector<Point> ThroughPoints(const std::string& context) {
+  std::vector<Point> ThroughPoints(const std::string& context,
+                                   std::vector<SourceLocation>* written_at = nullptr) {
     std::vector<Point> points;
     std::vector<SourceLocation> locations;
     while (true) {
@@ -393,6 +394,7 @@ class Parser {
       throw InputError(locations.front(),
                        fmt::format("{}: the length is not a finite number", context));
     }
+    if (written_at != nullptr) *written_at = std::move(locations);
     return points;
   }
 
@@ -405,16 +407,18 @@ class Parser {
     const std::string context = fmt::format("wire '{}'", wire.name);
     if (IsWord("through")) {
       Next();
-      SetWirePath(ThroughPoints(context), &wire);
+      SetWirePath(ThroughPoints(context, &wire.point_locations), &wire);
       const double length_m = WireLength(wire);
       WireClauses(context, length_m, &wire);
       return AddWire(std::move(wire));
     }
     if (!IsWord("from")) throw Expected(context, "'from (X, Y, Z)' or 'through (X, Y, Z), ...'");
     Next();
+    wire.point_locations.push_back(Loc(Peek()));
     wire.from_m = ParsePoint(context, "from");
     if (!IsWord("to")) throw Expected(context, "'to (X, Y, Z)'");
     Next();
+    wire.point_locations.push_back(Loc(Peek()));
     wire.to_m = ParsePoint(context, "to");
     const double length_m = std::hypot(wire.to_m[0] - wire.from_m[0], wire.to_m[1] - wire.from_m[1],
                                        wire.to_m[2] - wire.from_m[2]);
