@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "command.hpp"
+#include "wirefield/simulation.hpp"
 
 namespace {
 
@@ -82,6 +83,8 @@ int Run(int argc, char** argv) {
 }  // namespace
 
 int main(int argc, char** argv) {
+  // Nothing has entered BLAS yet: its idle workers would only compete with the fill's threads.
+  (void)wirefield::ParkIdleBlasThreads();
   try {
     return Run(argc, argv);
   } catch (const std::exception& error) {

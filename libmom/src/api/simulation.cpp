@@ -257,4 +257,6 @@ const std::vector<Warning>& Simulation::warnings() const { return impl_->warning
 
 std::string Version() { return WIREFIELD_VERSION; }
 
+bool ParkIdleBlasThreads() { return solve::ParkIdleBlasThreads(); }
+
 }  // namespace wirefield

@@ -14,36 +14,14 @@
 #include <optional>
 #include <thread>
 
-#if defined(__linux__)
-#include <sys/mman.h>
-#endif
-
 #include "core/constants.hpp"
+#include "core/fresh_memory.hpp"
 #include "fill/conductor.hpp"
 #include "fill/half_space.hpp"
 #include "ground/reflection.hpp"
 
 namespace wirefield::fill {
 namespace {
-
-// Asks the kernel to back the 2 MiB-aligned part of [data, data + bytes) with transparent huge
-// pages (Linux, where they are enabled for madvise'd memory): the first touch of a large matrix
-// then costs a few page faults instead of one per 4 KiB, which on this machine's virtual CPUs
-// took a tenth of a 1000-unknown solve. Only a hint: if the kernel declines, nothing changes.
-void AdviseHugePages(void* data, std::size_t bytes) {
-#if defined(__linux__) && defined(MADV_HUGEPAGE)
-  constexpr std::size_t kHuge = std::size_t{1} << 21;
-  const std::size_t misalignment = reinterpret_cast<std::uintptr_t>(data) % kHuge;
-  const std::size_t lead = misalignment == 0 ? 0 : kHuge - misalignment;
-  if (bytes > lead) {
-    const std::size_t length = (bytes - lead) / kHuge * kHuge;
-    if (length > 0) (void)madvise(static_cast<char*>(data) + lead, length, MADV_HUGEPAGE);
-  }
-#else
-  (void)data;
-  (void)bytes;
-#endif
-}
 
 struct PieceRef {
   int basis;
@@ -288,7 +266,7 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   };
 
   Eigen::MatrixXcd z(n, n);
-  AdviseHugePages(z.data(), static_cast<std::size_t>(z.size()) * sizeof(Complex));
+  core::PrepareFreshMemory(z.data(), static_cast<std::size_t>(z.size()) * sizeof(Complex));
   z.setZero();
   using SpillRows = std::vector<std::pair<int, Eigen::VectorXcd>>;
   auto work = [&](int t, SpillRows* spill) {

@@ -7,11 +7,17 @@
 
 #include <fmt/format.h>
 
+#if defined(__linux__)
+#include <dlfcn.h>
+#endif
+
 #include <algorithm>
 #include <cmath>
 #include <complex>
+#include <cstring>
 #include <vector>
 
+#include "core/fresh_memory.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield::solve {
@@ -108,16 +114,17 @@ Eigen::VectorXcd FactorAndSolveInPlace(Eigen::MatrixXcd* z, const Eigen::VectorX
   Complex size_query = 0.0;
   LAPACKE_zsytrf_work(LAPACK_COL_MAJOR, 'L', n, a, n, pivots.data(),
                       reinterpret_cast<lapack_complex_double*>(&size_query), -1);
-  const lapack_int lwork = std::max<lapack_int>(1, static_cast<lapack_int>(size_query.real()));
-  std::vector<Complex> work(static_cast<size_t>(lwork));
+  // The workspace (n times the block size, 1 MB at 1000 unknowns, and at least the 2 n of
+  // zsycon) is left uninitialized: LAPACK writes before it reads.
+  const lapack_int lwork = std::max<lapack_int>(2 * n, static_cast<lapack_int>(size_query.real()));
+  Eigen::VectorXcd work(lwork);
+  core::PrepareFreshMemory(work.data(), static_cast<size_t>(lwork) * sizeof(Complex));
   auto* w = reinterpret_cast<lapack_complex_double*>(work.data());
   const lapack_int info =
       LAPACKE_zsytrf_work(LAPACK_COL_MAJOR, 'L', n, a, n, pivots.data(), w, lwork);
   if (info > 0) ThrowSingular(0.0);  // an exactly zero pivot block
   if (info < 0) throw ComputationError(fmt::format("zsytrf rejected argument {}", -info));
   double rcond = 0.0;
-  if (work.size() < 2 * static_cast<size_t>(n)) work.resize(2 * static_cast<size_t>(n));
-  w = reinterpret_cast<lapack_complex_double*>(work.data());
   const lapack_int info_con =
       LAPACKE_zsycon_work(LAPACK_COL_MAJOR, 'L', n, a, n, pivots.data(), anorm_1, &rcond, w);
   if (info_con != 0 || !(rcond >= kMinReciprocalCondition)) ThrowSingular(rcond);
@@ -154,6 +161,23 @@ Eigen::VectorXcd SolveSymmetric(const Eigen::MatrixXcd& z, const Eigen::VectorXc
   return FactorAndSolveInPlace(&factor, v, OneNorm(z), &rcond);
 }
 #endif
+
+bool ParkIdleBlasThreads() {
+#if defined(__linux__)
+  // OpenBLAS's threaded build exports the shutdown of its pool (it uses it around fork); it
+  // starts the pool again on the next call that wants threads. Looked up at run time, so that
+  // any other BLAS, which has no such symbol, links and runs unchanged.
+  using Shutdown = int (*)();
+  void* symbol = dlsym(RTLD_DEFAULT, "blas_thread_shutdown_");
+  if (symbol == nullptr) return false;
+  Shutdown shutdown = nullptr;
+  static_assert(sizeof(shutdown) == sizeof(symbol));
+  std::memcpy(&shutdown, &symbol, sizeof(shutdown));  // object to function pointer, as POSIX allows
+  return shutdown() == 0;
+#else
+  return false;
+#endif
+}
 
 DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v) {
   if (!z.allFinite() || !v.allFinite()) {

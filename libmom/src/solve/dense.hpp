@@ -14,13 +14,17 @@ struct DenseSolution {
   // Estimate of 1 / (|Z|_1 |Z^-1|_1) from the LU factors (LAPACK zgecon, else Eigen's rcond):
   // near 1 for a well-posed model; about 1e-16 means no digit of the currents is left.
   double reciprocal_condition = 0.0;
-  bool symmetric = false;          // solved by the symmetric factorization (else by LU)
+  bool symmetric = false;  // solved by the symmetric factorization (else by LU)
 };
 
 // Solves Z I = V (Z square, V of matching size). Throws ComputationError on failure. Z is
 // taken by value: pass it with std::move and a symmetric Z is factored in place (the peak
 // memory is then one matrix).
 DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v);
+
+// Stops the BLAS library's idle worker pool where it has one (wirefield::ParkIdleBlasThreads
+// in wirefield/simulation.hpp says when that is safe). Returns whether there was one.
+bool ParkIdleBlasThreads();
 
 // True when Z = Z^T to rounding (1e-13 relative per entry pair).
 bool IsSymmetric(const Eigen::MatrixXcd& z);
