@@ -17,6 +17,7 @@
 #include "fill/conductor.hpp"
 #include "geometry/mesh.hpp"
 #include "post/network.hpp"
+#include "solve/blas_threads.hpp"
 #include "solve/dense.hpp"
 #include "wirefield/network.hpp"
 

@@ -7,17 +7,14 @@
 
 #include <fmt/format.h>
 
-#if defined(__linux__)
-#include <dlfcn.h>
-#endif
-
 #include <algorithm>
 #include <cmath>
 #include <complex>
-#include <cstring>
+#include <optional>
 #include <vector>
 
 #include "core/fresh_memory.hpp"
+#include "solve/blas_threads.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield::solve {
@@ -31,6 +28,10 @@ constexpr double kMinReciprocalCondition = 1e-14;
 // Two entries Z_mn, Z_nm count as equal (the matrix as symmetric) within this relative
 // difference: the fill makes them equal to the last bit, so any real asymmetry is far larger.
 constexpr double kSymmetryTolerance = 1e-13;
+// Below this many unknowns the factorization runs on one BLAS thread: OpenBLAS's second thread
+// costs more than it brings there (make bench, 2 cores: ours at 250 unknowns 1.28 ms on one
+// thread against 1.63 ms on two, at 500 6.6 ms against 7.4 ms; at 1000, 40.6 ms against 35.1).
+constexpr Eigen::Index kOneBlasThreadBelow = 750;
 
 using Complex = std::complex<double>;
 
@@ -38,15 +39,54 @@ using Complex = std::complex<double>;
 // fifth of a 100-unknown interpolated sweep (measured with perf).
 double Magnitude(Complex z) { return std::sqrt(std::norm(z)); }
 
-double OneNorm(const Eigen::MatrixXcd& z) {
-  double best = 0.0;
-  for (Eigen::Index c = 0; c < z.cols(); ++c) {
-    double sum = 0.0;
-    for (Eigen::Index r = 0; r < z.rows(); ++r) sum += Magnitude(z(r, c));
-    best = std::max(best, sum);
+// What the solve needs to know of the matrix before it factors it, found in one pass over
+// entry pairs (z(r, c), z(c, r)) in cache-sized tiles: at 1000 unknowns and more, three
+// separate passes (one of them along rows, across cache lines) cost a tenth of the
+// factorization (measured with make bench).
+struct MatrixSurvey {
+  bool finite = true;
+  bool symmetric = true;  // z(r, c) = z(c, r) within kSymmetryTolerance, relative
+  double one_norm = 0.0;  // largest column sum of |z(r, c)|
+};
+
+MatrixSurvey Survey(const Eigen::MatrixXcd& z) {
+  MatrixSurvey out;
+  const Eigen::Index n = z.rows();
+  std::vector<double> column_sum(static_cast<size_t>(n), 0.0);
+  constexpr double kTolerance2 = kSymmetryTolerance * kSymmetryTolerance;
+  constexpr Eigen::Index kTile = 64;
+  double magnitude_total = 0.0;  // not finite if any entry is not
+  for (Eigen::Index c0 = 0; c0 < n; c0 += kTile) {
+    const Eigen::Index c1 = std::min(n, c0 + kTile);
+    for (Eigen::Index r0 = 0; r0 <= c0; r0 += kTile) {
+      for (Eigen::Index c = c0; c < c1; ++c) {
+        const Eigen::Index r1 = std::min(c, r0 + kTile);
+        for (Eigen::Index r = r0; r < r1; ++r) {
+          const Complex upper = z(r, c), lower = z(c, r);
+          const double upper2 = std::norm(upper), lower2 = std::norm(lower);
+          // |a - b|^2 <= tol^2 (|a|^2 + |b|^2): the test on squares, within a factor sqrt(2).
+          if (std::norm(upper - lower) > kTolerance2 * (upper2 + lower2)) out.symmetric = false;
+          const double upper_abs = std::sqrt(upper2), lower_abs = std::sqrt(lower2);
+          column_sum[static_cast<size_t>(c)] += upper_abs;
+          column_sum[static_cast<size_t>(r)] += lower_abs;
+          magnitude_total += upper_abs + lower_abs;
+        }
+      }
+    }
   }
-  return best;
+  for (Eigen::Index c = 0; c < n; ++c) {
+    const double diagonal_abs = Magnitude(z(c, c));
+    column_sum[static_cast<size_t>(c)] += diagonal_abs;
+    magnitude_total += diagonal_abs;
+  }
+  // A NaN or an infinity anywhere makes the total NaN or infinite (|z|^2 of a finite entry
+  // overflows only above 1e154 ohm, far beyond any impedance).
+  out.finite = std::isfinite(magnitude_total);
+  for (const double sum : column_sum) out.one_norm = std::max(out.one_norm, sum);
+  return out;
 }
+
+double OneNorm(const Eigen::MatrixXcd& z) { return Survey(z).one_norm; }
 
 [[noreturn]] void ThrowSingular(double rcond) {
   throw ComputationError(
@@ -59,26 +99,27 @@ double OneNorm(const Eigen::MatrixXcd& z) {
 // Reciprocal condition number in the 1-norm from the LU factors. With LAPACK, zgecon
 // (O(n^2)); Eigen's own estimator costs far more (measured: 1.9 s after a 0.3 s LU at 1000
 // unknowns).
-double ReciprocalCondition(const Eigen::MatrixXcd& z,
-                           const Eigen::PartialPivLU<Eigen::MatrixXcd>& lu) {
+// anorm_1: the 1-norm of the matrix the LU factors came from.
+double ReciprocalCondition(double anorm_1, const Eigen::PartialPivLU<Eigen::MatrixXcd>& lu) {
 #ifdef EIGEN_USE_LAPACKE
   double rcond = 0.0;
-  const lapack_int n = static_cast<lapack_int>(z.rows());
+  const lapack_int n = static_cast<lapack_int>(lu.matrixLU().rows());
   const lapack_int info = LAPACKE_zgecon(
       LAPACK_COL_MAJOR, '1', n,
-      reinterpret_cast<const lapack_complex_double*>(lu.matrixLU().data()), n, OneNorm(z), &rcond);
+      reinterpret_cast<const lapack_complex_double*>(lu.matrixLU().data()), n, anorm_1, &rcond);
   return info == 0 ? rcond : 0.0;
 #else
-  (void)z;
+  (void)anorm_1;
   return lu.rcond();
 #endif
 }
 
-Eigen::VectorXcd SolveLu(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v, double* rcond_out) {
+Eigen::VectorXcd SolveLu(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v, double anorm_1,
+                         double* rcond_out) {
   Eigen::PartialPivLU<Eigen::MatrixXcd> lu(z);
   // Reciprocal condition number estimate (O(n^2) after the factorization). Below
   // kMinReciprocalCondition the answer has no correct digits left.
-  const double rcond = ReciprocalCondition(z, lu);
+  const double rcond = ReciprocalCondition(anorm_1, lu);
   if (!(rcond >= kMinReciprocalCondition)) ThrowSingular(rcond);
   *rcond_out = rcond;
   return lu.solve(v);
@@ -86,19 +127,7 @@ Eigen::VectorXcd SolveLu(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v, d
 
 }  // namespace
 
-bool IsSymmetric(const Eigen::MatrixXcd& z) {
-  if (z.rows() != z.cols()) return false;
-  for (Eigen::Index c = 0; c < z.cols(); ++c) {
-    for (Eigen::Index r = c + 1; r < z.rows(); ++r) {
-      // |a - b|^2 <= tol^2 (|a|^2 + |b|^2): the test on squares, within a factor sqrt(2).
-      const double scale2 = std::norm(z(r, c)) + std::norm(z(c, r));
-      if (std::norm(z(r, c) - z(c, r)) > kSymmetryTolerance * kSymmetryTolerance * scale2) {
-        return false;
-      }
-    }
-  }
-  return true;
-}
+bool IsSymmetric(const Eigen::MatrixXcd& z) { return z.rows() == z.cols() && Survey(z).symmetric; }
 
 #ifdef EIGEN_USE_LAPACKE
 namespace {
@@ -162,45 +191,34 @@ Eigen::VectorXcd SolveSymmetric(const Eigen::MatrixXcd& z, const Eigen::VectorXc
 }
 #endif
 
-bool ParkIdleBlasThreads() {
-#if defined(__linux__)
-  // OpenBLAS's threaded build exports the shutdown of its pool (it uses it around fork); it
-  // starts the pool again on the next call that wants threads. Looked up at run time, so that
-  // any other BLAS, which has no such symbol, links and runs unchanged.
-  using Shutdown = int (*)();
-  void* symbol = dlsym(RTLD_DEFAULT, "blas_thread_shutdown_");
-  if (symbol == nullptr) return false;
-  Shutdown shutdown = nullptr;
-  static_assert(sizeof(shutdown) == sizeof(symbol));
-  std::memcpy(&shutdown, &symbol, sizeof(shutdown));  // object to function pointer, as POSIX allows
-  return shutdown() == 0;
-#else
-  return false;
-#endif
-}
-
 DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v) {
-  if (!z.allFinite() || !v.allFinite()) {
+  if (z.rows() != z.cols() || v.size() != z.rows()) {
+    throw ComputationError(fmt::format("internal: a {} x {} matrix with {} right-hand sides",
+                                       z.rows(), z.cols(), v.size()));
+  }
+  const MatrixSurvey survey = Survey(z);
+  if (!survey.finite || !v.allFinite()) {
     throw ComputationError("the impedance matrix has non-finite entries (coincident segments?)");
   }
   DenseSolution out;
   const double vnorm = v.norm();
+  std::optional<SingleThreadedBlas> one_thread;
+  if (z.rows() < kOneBlasThreadBelow) one_thread.emplace();
 #ifdef EIGEN_USE_LAPACKE
-  out.symmetric = IsSymmetric(z);
+  out.symmetric = survey.symmetric;
   if (out.symmetric) {
     // In place: the one matrix is all the memory the solve needs. The residual uses the
     // untouched upper triangle and the saved diagonal.
     const Eigen::VectorXcd diagonal = z.diagonal();
-    const double anorm = OneNorm(z);
-    out.currents = FactorAndSolveInPlace(&z, v, anorm, &out.reciprocal_condition);
+    out.currents = FactorAndSolveInPlace(&z, v, survey.one_norm, &out.reciprocal_condition);
     out.relative_residual =
         vnorm > 0.0 ? (SymmetricProduct(z, diagonal, out.currents) - v).norm() / vnorm : 0.0;
   } else {
-    out.currents = SolveLu(z, v, &out.reciprocal_condition);
+    out.currents = SolveLu(z, v, survey.one_norm, &out.reciprocal_condition);
     out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
   }
 #else
-  out.currents = SolveLu(z, v, &out.reciprocal_condition);
+  out.currents = SolveLu(z, v, survey.one_norm, &out.reciprocal_condition);
   out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
 #endif
   if (!out.currents.allFinite() || !(out.relative_residual <= kMaxRelativeResidual)) {

@@ -22,10 +22,6 @@ struct DenseSolution {
 // memory is then one matrix).
 DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v);
 
-// Stops the BLAS library's idle worker pool where it has one (wirefield::ParkIdleBlasThreads
-// in wirefield/simulation.hpp says when that is safe). Returns whether there was one.
-bool ParkIdleBlasThreads();
-
 // True when Z = Z^T to rounding (1e-13 relative per entry pair).
 bool IsSymmetric(const Eigen::MatrixXcd& z);
 
