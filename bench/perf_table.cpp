@@ -457,7 +457,7 @@ class TableReporter : public benchmark::ConsoleReporter {
     fmt::print(
         "   zsytrf+trs = the symmetric factorization and one solve alone, timed as zgesv is (with\n"
         "   a copy of the matrix); ours = SolveDense: symmetric-matrix check + zsytrf + the\n"
-        "   condition estimate zsycon (about five sequential O(n^2) solves) + zsytrs + residual\n"
+        "   condition estimate zsycon (about ten sequential O(n^2) solves) + zsytrs + residual\n"
         "   check\n");
 
     if (fit_n.size() >= 2) {

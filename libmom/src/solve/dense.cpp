@@ -46,7 +46,7 @@ double Magnitude(Complex z) { return std::sqrt(std::norm(z)); }
 struct MatrixSurvey {
   bool finite = true;
   bool symmetric = true;  // z(r, c) = z(c, r) within kSymmetryTolerance, relative
-  double one_norm = 0.0;  // largest column sum of |z(r, c)|
+  double one_norm = 0.0;  // largest column sum of |z(r, c)| (when symmetric; else OneNorm)
 };
 
 MatrixSurvey Survey(const Eigen::MatrixXcd& z) {
@@ -55,7 +55,9 @@ MatrixSurvey Survey(const Eigen::MatrixXcd& z) {
   std::vector<double> column_sum(static_cast<size_t>(n), 0.0);
   constexpr double kTolerance2 = kSymmetryTolerance * kSymmetryTolerance;
   constexpr Eigen::Index kTile = 64;
-  double magnitude_total = 0.0;  // not finite if any entry is not
+  // 0 * x is 0 for every finite x and NaN for an infinity or a NaN: the probe stays 0 exactly
+  // when every entry is finite.
+  double probe = 0.0;
   for (Eigen::Index c0 = 0; c0 < n; c0 += kTile) {
     const Eigen::Index c1 = std::min(n, c0 + kTile);
     for (Eigen::Index r0 = 0; r0 <= c0; r0 += kTile) {
@@ -66,27 +68,35 @@ MatrixSurvey Survey(const Eigen::MatrixXcd& z) {
           const double upper2 = std::norm(upper), lower2 = std::norm(lower);
           // |a - b|^2 <= tol^2 (|a|^2 + |b|^2): the test on squares, within a factor sqrt(2).
           if (std::norm(upper - lower) > kTolerance2 * (upper2 + lower2)) out.symmetric = false;
-          const double upper_abs = std::sqrt(upper2), lower_abs = std::sqrt(lower2);
-          column_sum[static_cast<size_t>(c)] += upper_abs;
-          column_sum[static_cast<size_t>(r)] += lower_abs;
-          magnitude_total += upper_abs + lower_abs;
+          // Symmetric to rounding, |z(c, r)| = |z(r, c)|: one square root serves both columns
+          // (a matrix that is not symmetric gets its exact 1-norm from OneNorm instead).
+          const double pair_abs = std::sqrt(upper2);
+          column_sum[static_cast<size_t>(c)] += pair_abs;
+          column_sum[static_cast<size_t>(r)] += pair_abs;
+          probe += 0.0 * (upper.real() + upper.imag() + lower.real() + lower.imag());
         }
       }
     }
   }
   for (Eigen::Index c = 0; c < n; ++c) {
-    const double diagonal_abs = Magnitude(z(c, c));
-    column_sum[static_cast<size_t>(c)] += diagonal_abs;
-    magnitude_total += diagonal_abs;
+    column_sum[static_cast<size_t>(c)] += Magnitude(z(c, c));
+    probe += 0.0 * (z(c, c).real() + z(c, c).imag());
   }
-  // A NaN or an infinity anywhere makes the total NaN or infinite (|z|^2 of a finite entry
-  // overflows only above 1e154 ohm, far beyond any impedance).
-  out.finite = std::isfinite(magnitude_total);
+  out.finite = probe == 0.0;
   for (const double sum : column_sum) out.one_norm = std::max(out.one_norm, sum);
   return out;
 }
 
-double OneNorm(const Eigen::MatrixXcd& z) { return Survey(z).one_norm; }
+// The exact 1-norm of any matrix (Survey's assumes symmetry).
+double OneNorm(const Eigen::MatrixXcd& z) {
+  double best = 0.0;
+  for (Eigen::Index c = 0; c < z.cols(); ++c) {
+    double sum = 0.0;
+    for (Eigen::Index r = 0; r < z.rows(); ++r) sum += Magnitude(z(r, c));
+    best = std::max(best, sum);
+  }
+  return best;
+}
 
 [[noreturn]] void ThrowSingular(double rcond) {
   throw ComputationError(
@@ -214,11 +224,11 @@ DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v) {
     out.relative_residual =
         vnorm > 0.0 ? (SymmetricProduct(z, diagonal, out.currents) - v).norm() / vnorm : 0.0;
   } else {
-    out.currents = SolveLu(z, v, survey.one_norm, &out.reciprocal_condition);
+    out.currents = SolveLu(z, v, OneNorm(z), &out.reciprocal_condition);
     out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
   }
 #else
-  out.currents = SolveLu(z, v, survey.one_norm, &out.reciprocal_condition);
+  out.currents = SolveLu(z, v, OneNorm(z), &out.reciprocal_condition);
   out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
 #endif
   if (!out.currents.allFinite() || !(out.relative_residual <= kMaxRelativeResidual)) {

@@ -6,7 +6,9 @@
 #include <gtest/gtest.h>
 
 #include <filesystem>
+#include <limits>
 #include <thread>
+#include <tuple>
 
 #include "core/fresh_memory.hpp"
 #include "fill/assemble.hpp"
@@ -62,6 +64,29 @@ TEST(SolveDense, UnsymmetricMatrixIsDetectedAndSolvedByLu) {
   const DenseSolution solved = SolveDense(z, v);
   EXPECT_FALSE(solved.symmetric);
   EXPECT_LT((z * solved.currents - v).norm(), 1e-14);
+}
+
+// A NaN or an infinity anywhere in the matrix (here in either triangle or on the diagonal of a
+// symmetric matrix) is refused before any factorization, and so is one in the excitation.
+TEST(SolveDense, NonFiniteEntriesAreRefused) {
+  const Model m = testing::Dipole(0.5, 1e-3, 31);
+  geometry::MeshOptions o;
+  o.max_frequency_hz = testing::kUnitWavelengthHz;
+  const geometry::Mesh mesh = geometry::BuildMesh(m, o);
+  const Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz);
+  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, m);
+  const double nan = std::numeric_limits<double>::quiet_NaN();
+  const double inf = std::numeric_limits<double>::infinity();
+  for (const auto& [r, c, value] : {std::tuple{3, 17, std::complex<double>(nan, 0.0)},
+                                    std::tuple{17, 3, std::complex<double>(0.0, inf)},
+                                    std::tuple{5, 5, std::complex<double>(-inf, 1.0)}}) {
+    Eigen::MatrixXcd bad = z;
+    bad(r, c) = value;
+    EXPECT_THROW((void)SolveDense(bad, v), ComputationError) << r << "," << c;
+  }
+  Eigen::VectorXcd bad_v = v;
+  bad_v(0) = {nan, nan};
+  EXPECT_THROW((void)SolveDense(z, bad_v), ComputationError);
 }
 
 int ThreadsOfThisProcess() {
