@@ -135,7 +135,7 @@ std::string Version();
 // Stops the idle worker threads of the BLAS library, where it has such a pool: OpenBLAS's
 // threaded build starts its workers when it loads, and each spins on a core for about 0.1 s
 // before it sleeps, competing with the matrix fill's own threads (measured: a 1000-unknown
-// fill took 52 ms instead of 32 ms in about half of the runs). The next multithreaded BLAS call
+// fill took 46-70 ms instead of 32 ms in about half of the runs). The next multithreaded BLAS call
 // (the factorization) starts them again. Returns whether there was such a pool. Call it only
 // while no other thread of the process is inside BLAS, as at the start of a program; with any
 // other BLAS it does nothing.

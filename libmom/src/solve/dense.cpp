@@ -40,9 +40,9 @@ using Complex = std::complex<double>;
 double Magnitude(Complex z) { return std::sqrt(std::norm(z)); }
 
 // What the solve needs to know of the matrix before it factors it, found in one pass over
-// entry pairs (z(r, c), z(c, r)) in cache-sized tiles: at 1000 unknowns and more, three
-// separate passes (one of them along rows, across cache lines) cost a tenth of the
-// factorization (measured with make bench).
+// entry pairs (z(r, c), z(c, r)) in cache-sized tiles, instead of three separate passes (one of
+// them along rows, across cache lines): make bench, our solve at 500 unknowns 8.2 -> 7.4 ms, at
+// 1000 36.4 -> 35.1 ms.
 struct MatrixSurvey {
   bool finite = true;
   bool symmetric = true;  // z(r, c) = z(c, r) within kSymmetryTolerance, relative
