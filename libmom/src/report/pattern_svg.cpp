@@ -1,7 +1,8 @@
 // Report stage: a computed radiation pattern as one self-contained SVG document (no scripts,
 // no external fonts): the elevation cut (a half-disc, horizon at the sides, zenith up) and the
 // azimuth cut (a full circle, 0 deg = +x to the right, counterclockwise toward +y) side by
-// side on a dB scale. Input: PatternResult and the model; output: SVG text.
+// side on a dB scale; no label is drawn over another, and a long ground description wraps
+// (the picture grows to hold it). Input: PatternResult and the model; output: SVG text.
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -84,7 +85,7 @@ std::string TracePath(const Polar& polar, const PatternCut& cut, const std::vect
   return d;
 }
 
-std::string Grid(const Polar& polar, bool ground_below) {
+std::string Grid(const Polar& polar, bool ground_below, LabelSpace& space) {
   std::string out = "<g class=\"grid\">\n";
   const double cx = polar.centre_x_px;
   const double cy = polar.centre_y_px;
@@ -95,6 +96,7 @@ std::string Grid(const Polar& polar, bool ground_below) {
         "</text>\n",
         Px(cx - kRadius_px - 10), Px(cy), Px(2 * kRadius_px + 20), Px(cx + kRadius_px + 10),
         Px(cy + 44));
+    space.Take(BoxOfText(cx + kRadius_px + 10, cy + 44, "ground", 11, "end"));
   }
   // Rings, outer first, labelled in dBi.
   for (double below_db = 0.0; below_db < kRange_db - 1e-9; below_db += kRingSpacing_db) {
@@ -116,12 +118,15 @@ std::string Grid(const Polar& polar, bool ground_below) {
           "<text x=\"{}\" y=\"{}\" font-size=\"11\" fill=\"#555555\" "
           "text-anchor=\"middle\">{}</text>\n",
           Px(cx + r), Px(cy + 28), label);
+      space.Take(BoxOfText(cx + r, cy + 28, label, 11, "middle"));
     } else {
       const double angle_deg = 285.0;  // lower right, away from the 0 deg label
       out += fmt::format(
           "<text x=\"{}\" y=\"{}\" font-size=\"11\" fill=\"#555555\" text-anchor=\"start\" "
           "stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>\n",
           Px(polar.X(r, angle_deg) + 3), Px(polar.Y(r, angle_deg) + 4), label);
+      space.Take(
+          BoxOfText(polar.X(r, angle_deg) + 3, polar.Y(r, angle_deg) + 4, label, 11, "start"));
     }
   }
   // Radial lines every 30 deg, labelled in degrees.
@@ -136,17 +141,20 @@ std::string Grid(const Polar& polar, bool ground_below) {
     const char* anchor = c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle");
     double y = polar.Y(label_r, a) + 4.0;
     if (polar.half && (angle == 0 || angle == 180)) y = cy - 6.0;  // above the horizon line
+    const double x =
+        polar.X(label_r - (polar.half && (angle == 0 || angle == 180) ? 12.0 : 0.0), a);
+    const std::string text =
+        fmt::format("{}&#176;", polar.signed_below && angle > 270 ? angle - 360 : angle);
     out += fmt::format(
-        "<text x=\"{}\" y=\"{}\" font-size=\"12\" fill=\"{}\" text-anchor=\"{}\">{}&#176;"
-        "</text>\n",
-        Px(polar.X(label_r - (polar.half && (angle == 0 || angle == 180) ? 12.0 : 0.0), a)), Px(y),
-        kTextColour, anchor, polar.signed_below && angle > 270 ? angle - 360 : angle);
+        "<text x=\"{}\" y=\"{}\" font-size=\"12\" fill=\"{}\" text-anchor=\"{}\">{}</text>\n",
+        Px(x), Px(y), kTextColour, anchor, text);
+    space.Take(BoxOfText(x, y, text, 12, anchor));
   }
   out += "</g>\n";
   return out;
 }
 
-std::string Traces(const Polar& polar, const PatternCut& cut) {
+std::string Traces(const Polar& polar, const PatternCut& cut, LabelSpace& space) {
   std::string out;
   out += fmt::format(
       "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.4\" "
@@ -181,17 +189,32 @@ std::string Traces(const Polar& polar, const PatternCut& cut) {
       "<circle class=\"max-marker\" cx=\"{}\" cy=\"{}\" r=\"5\" fill=\"#000000\" "
       "stroke=\"#ffffff\" stroke-width=\"1.5\"/>\n",
       Px(x), Px(y));
-  // The value beside the dot, on the side that keeps it inside the panel.
+  // The value beside the dot: the first place around it, nearest first, that is clear of
+  // every label drawn and inside the picture (above and to the right preferred).
   const std::string label =
       fmt::format("max {} dBi at {}&#176;", GainText(cut.gain_dbi[best]), AngleText(angle));
-  const double label_width_px = 7.5 * static_cast<double>(label.size() - 5);  // "&#176;" is one
-  const bool right = x + 9.0 + label_width_px <= polar.centre_x_px + kRadius_px + 45.0;
-  out += fmt::format(
-      "<text x=\"{}\" y=\"{}\" font-size=\"13\" font-weight=\"bold\" fill=\"#000000\" "
-      "text-anchor=\"{}\" stroke=\"#ffffff\" stroke-width=\"4\" paint-order=\"stroke\">"
-      "{}</text>\n",
-      Px(x + (right ? 9.0 : -9.0)), Px(y - 9.0), right ? "start" : "end", label);
-  return out;
+  struct Place {
+    double dx;
+    double dy;
+    const char* anchor;
+  };
+  constexpr Place kPlaces[] = {{9, -9, "start"}, {-9, -9, "end"},    {9, 19, "start"},
+                               {-9, 19, "end"},  {0, -14, "middle"}, {0, 26, "middle"}};
+  for (double scale : {1.0, 2.0, 3.0, 4.5}) {
+    for (const Place& place : kPlaces) {
+      const double lx = x + place.dx * scale;
+      const double ly = y + (place.dy < 0 ? place.dy * scale : place.dy + 13.0 * (scale - 1.0));
+      const TextBox box = BoxOfText(lx, ly, label, 13, place.anchor, true);
+      if (!space.TakeIfFree(box)) continue;
+      out += fmt::format(
+          "<text x=\"{}\" y=\"{}\" font-size=\"13\" font-weight=\"bold\" fill=\"#000000\" "
+          "text-anchor=\"{}\" stroke=\"#ffffff\" stroke-width=\"4\" paint-order=\"stroke\">"
+          "{}</text>\n",
+          Px(lx), Px(ly), place.anchor, label);
+      return out;
+    }
+  }
+  return out;  // no room near the dot: the subtitle gives the maximum
 }
 
 std::string BeamwidthCaption(const PatternCut& cut) {
@@ -209,15 +232,18 @@ bool FitsHalfDisc(const PatternCut& cut) {
 }
 
 std::string Panel(const Polar& polar, const PatternCut& cut, bool ground_below,
-                  const std::string& heading, const std::string& note) {
+                  const std::string& heading, const std::string& note, LabelSpace& space) {
   std::string out = "<g>\n";
   const double top_px = polar.half ? polar.centre_y_px - kRadius_px : kFullCentreY_px - kRadius_px;
   out += fmt::format(
       "<text x=\"{}\" y=\"{}\" font-size=\"15\" font-weight=\"bold\" fill=\"{}\" "
       "text-anchor=\"middle\">{}</text>\n",
       Px(polar.centre_x_px), Px(top_px - 36), kTextColour, heading);
-  out += Grid(polar, ground_below);
-  out += Traces(polar, cut);
+  space.Take(BoxOfText(polar.centre_x_px, top_px - 36, heading, 15, "middle", true));
+  space.Take(BoxOfText(polar.centre_x_px, kCaptionY_px, BeamwidthCaption(cut), 14, "middle", true));
+  space.Take(BoxOfText(polar.centre_x_px, kCaptionY_px + 18, note, 11, "middle"));
+  out += Grid(polar, ground_below, space);
+  out += Traces(polar, cut, space);
   out += fmt::format(
       "<text x=\"{}\" y=\"{}\" font-size=\"14\" font-weight=\"bold\" fill=\"{}\" "
       "text-anchor=\"middle\">{}</text>\n",
@@ -252,30 +278,48 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
       fmt::format("{}: radiation pattern at {:.3f} MHz", report::ModelFileName(model.file),
                   pattern.frequency_hz / 1e6);
 
+  // The header: the title (shrunk to the width when longer), the maximum, then the ground's
+  // description wrapped to the width; the plots below move down by the lines it adds.
+  const double usable_px = report::kWidth_px - 30.0;
+  const std::string summary =
+      fmt::format("maximum {} dBi at elevation {}&#176;, azimuth {}&#176;; grid step {}&#176;",
+                  report::GainText(pattern.max_gain_dbi), AngleText(pattern.max_gain_elevation_deg),
+                  AngleText(pattern.max_gain_azimuth_deg), AngleText(pattern.step_deg));
+  const std::vector<std::string> ground_lines =
+      report::WrapText("ground: " + report::GroundText(model.ground), 13, usable_px);
+  constexpr double kLine_px = 16.0;
+  const double shift_px = kLine_px * static_cast<double>(ground_lines.size());
+  const double height_px = report::kHeight_px + shift_px;
+
   std::string out;
   // No XML declaration: an SVG file is UTF-8 by default and opens with <svg.
   out += fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{0:.0f}\" height=\"{1:.0f}\" "
-      "viewBox=\"0 0 {0:.0f} {1:.0f}\" font-family=\"sans-serif\">\n",
-      report::kWidth_px, report::kHeight_px);
+      "viewBox=\"0 0 {0:.0f} {1:.0f}\" font-family=\"{2}\">\n",
+      report::kWidth_px, height_px, report::kFontFamily);
   out += fmt::format("<title>{}</title>\n", report::Escape(title));
   out += fmt::format("<rect width=\"{:.0f}\" height=\"{:.0f}\" fill=\"#ffffff\"/>\n",
-                     report::kWidth_px, report::kHeight_px);
+                     report::kWidth_px, height_px);
   out += fmt::format(
-      "<text x=\"{}\" y=\"30\" font-size=\"19\" font-weight=\"bold\" fill=\"{}\" "
+      "<text x=\"{}\" y=\"30\" font-size=\"{:g}\" font-weight=\"bold\" fill=\"{}\" "
       "text-anchor=\"middle\">{}</text>\n",
-      Px(report::kWidth_px / 2), report::kTextColour, report::Escape(title));
+      Px(report::kWidth_px / 2), report::FitSize(title, 19, usable_px, true), report::kTextColour,
+      report::Escape(title));
   out += fmt::format(
-      "<text x=\"{}\" y=\"52\" font-size=\"13\" fill=\"#444444\" text-anchor=\"middle\">"
-      "ground: {}; maximum {} dBi at elevation {}&#176;, azimuth {}&#176;; grid step {}&#176;"
+      "<text x=\"{}\" y=\"52\" font-size=\"13\" fill=\"#444444\" text-anchor=\"middle\">{}"
       "</text>\n",
-      Px(report::kWidth_px / 2), report::Escape(report::GroundText(model.ground)),
-      report::GainText(pattern.max_gain_dbi), AngleText(pattern.max_gain_elevation_deg),
-      AngleText(pattern.max_gain_azimuth_deg), AngleText(pattern.step_deg));
+      Px(report::kWidth_px / 2), summary);
+  double y = 52.0 + kLine_px;
+  for (const std::string& line : ground_lines) {
+    out += fmt::format(
+        "<text x=\"{}\" y=\"{}\" font-size=\"13\" fill=\"#444444\" text-anchor=\"middle\">{}"
+        "</text>\n",
+        Px(report::kWidth_px / 2), Px(y), report::Escape(line));
+    y += kLine_px;
+  }
 
-  // Legend.
-  const double legend_y = 78.0;
-  const double legend_x = report::kWidth_px / 2 - 250.0;
+  // Legend, centred.
+  const double legend_y = y + 10.0;
   struct Entry {
     const char* colour;
     double width;
@@ -285,7 +329,12 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
   const Entry entries[] = {{report::kTotalColour, 2.8, "none", "total gain"},
                            {report::kVerticalColour, 1.4, "7 4", "vertical polarization"},
                            {report::kHorizontalColour, 1.4, "2 3", "horizontal polarization"}};
-  double x = legend_x;
+  constexpr double kGapAfter_px = 36.0;
+  double legend_width = -kGapAfter_px;
+  for (const Entry& entry : entries) {
+    legend_width += 40.0 + report::TextWidth(entry.label, 13) + kGapAfter_px;
+  }
+  double x = (report::kWidth_px - legend_width) / 2.0;
   for (const Entry& entry : entries) {
     out += fmt::format(
         "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"{}\" "
@@ -293,26 +342,30 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
         "<text x=\"{}\" y=\"{}\" font-size=\"13\" fill=\"{}\">{}</text>\n",
         Px(x), Px(legend_y), Px(x + 34), Px(legend_y), entry.colour, entry.width, entry.dash,
         Px(x + 40), Px(legend_y + 4), report::kTextColour, entry.label);
-    x += 175.0;
+    x += 40.0 + report::TextWidth(entry.label, 13) + kGapAfter_px;
   }
 
+  // The two plots and the footnote, below the header.
+  report::LabelSpace space(report::kWidth_px, report::kHeight_px);
+  out += fmt::format("<g transform=\"translate(0 {})\">\n", Px(shift_px));
   out += report::Panel(
       elevation_polar, elevation, ground_below,
       fmt::format("Elevation cut through azimuth {}&#176;", AngleText(elevation.fixed_angle_deg)),
       fmt::format("0&#176; = horizon toward azimuth {}&#176;, 90&#176; = zenith, 180&#176; = "
                   "horizon behind{}",
-                  AngleText(elevation.fixed_angle_deg), half ? "" : ", negative = below"));
+                  AngleText(elevation.fixed_angle_deg), half ? "" : ", negative = below"),
+      space);
   out += report::Panel(
       azimuth_polar, azimuth, ground_below,
       fmt::format("Azimuth cut at elevation {}&#176;", AngleText(azimuth.fixed_angle_deg)),
-      "azimuth from +x (0&#176;, right) counterclockwise toward +y (90&#176;, up)");
+      "azimuth from +x (0&#176;, right) counterclockwise toward +y (90&#176;, up)", space);
   out += fmt::format(
       "<text x=\"{}\" y=\"{}\" font-size=\"11\" fill=\"#555555\" text-anchor=\"middle\">"
       "Gain in dBi, relative to the power into the feeds. Rings every {:.0f} dB; gains more "
       "than {:.0f} dB below the outer ring ({:.0f} dBi) are drawn at the centre.</text>\n",
       Px(report::kWidth_px / 2), Px(report::kHeight_px - 10), report::kRingSpacing_db,
       report::kRange_db, outer_dbi + 0.0);
-  out += "</svg>\n";
+  out += "</g>\n</svg>\n";
   return out;
 }
 

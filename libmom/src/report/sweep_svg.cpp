@@ -1,7 +1,8 @@
 // Report stage: a frequency sweep as one self-contained SVG document (no scripts, no external
 // fonts): on the left the SWR at the transmitter against frequency (one panel per swept band,
-// bands shaded, the 2:1 line, resonances and the lowest SWR marked, a measured curve dashed),
-// on the right a Smith chart of the impedance at the transmitter normalised to z0.
+// bands shaded, the 2:1 line, resonances and the lowest SWR marked, a measured curve
+// dash-dotted in a colour of its own), on the right a Smith chart of the impedance at the
+// transmitter normalised to z0 with one colour per band. No label is drawn over another.
 // Input: SweepReport; output: SVG text.
 #include <fmt/format.h>
 
@@ -28,7 +29,8 @@ constexpr double kPlotLeft_px = 70.0;
 constexpr double kPlotRight_px = 760.0;
 constexpr double kPlotTop_px = 110.0;
 constexpr double kPlotBottom_px = 590.0;
-constexpr double kPanelGap_px = 18.0;
+// Wide enough for the last tick label of one band panel and the first of the next.
+constexpr double kPanelGap_px = 36.0;
 // Smith chart.
 constexpr double kSmithX_px = 1035.0;
 constexpr double kSmithY_px = 360.0;
@@ -38,18 +40,64 @@ constexpr double kSmithR_px = 215.0;
 constexpr double kMaxSwr = 10.0;
 
 const char* const kTraceColour = "#1d5fa6";
-const char* const kMeasuredColour = "#b3261e";
+// The measured curve: amber and dash-dotted, unlike the red dashed SWR 2 limit.
+const char* const kMeasuredColour = "#cc7a00";
+const char* const kMeasuredDash = "10 3 2 3";
 const char* const kLimitColour = "#c0392b";
+const char* const kLimitDash = "8 4";
+// One colour per band on the Smith chart (repeated past the sixth band), the first the SWR
+// plot's trace colour.
+const char* const kBandColours[] = {"#1d5fa6", "#178a6d", "#a8326e",
+                                    "#6b5414", "#4a4ab8", "#3f7f9f"};
 const char* const kGridColour = "#cfcfcf";
 const char* const kTextColour = "#222222";
 const char* const kBandFill = "#e8f1e4";
 const char* const kResonanceColour = "#6a3d9a";
 
-std::string Text(double x, double y, const std::string& text, int size, const char* anchor,
+const char* BandColour(std::size_t index) {
+  return kBandColours[index % (sizeof(kBandColours) / sizeof(kBandColours[0]))];
+}
+
+const char* const kHalo = " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"";
+
+std::string Text(double x, double y, const std::string& text, double size, const char* anchor,
                  const char* colour = kTextColour, const std::string& extra = "") {
   return fmt::format(
-      "<text x=\"{}\" y=\"{}\" font-size=\"{}\" fill=\"{}\" text-anchor=\"{}\"{}>{}</text>\n",
+      "<text x=\"{}\" y=\"{}\" font-size=\"{:g}\" fill=\"{}\" text-anchor=\"{}\"{}>{}</text>\n",
       Px(x), Px(y), size, colour, anchor, extra, Escape(text));
+}
+
+// A horizontal text recorded in `space` when it is free there; nothing when it is not.
+std::string Label(LabelSpace& space, double x, double y, const std::string& text, double size,
+                  const char* anchor, const char* colour = kTextColour,
+                  const std::string& extra = "") {
+  const bool bold = extra.find("bold") != std::string::npos;
+  if (!space.TakeIfFree(BoxOfText(x, y, text, size, anchor, bold))) return "";
+  return Text(x, y, text, size, anchor, colour, extra);
+}
+
+// The box of a text turned by rotate(-90) about its anchor (x, y): it reads upward, its
+// ascent to the left of x.
+TextBox BoxOfUpwardText(double x, double y, const std::string& text, double size,
+                        const std::string& anchor) {
+  const double w = TextWidth(text, size);
+  const double bottom = anchor == "end" ? y + w : (anchor == "middle" ? y + w / 2.0 : y);
+  return TextBox{x - 0.93 * size, bottom - w, x + 0.24 * size, bottom};
+}
+
+// A legend entry: a short line in `colour` (dashed by `dash`, "none" for solid) and its text;
+// returns the x after it.
+double LegendEntry(std::string& out, LabelSpace& space, double x, double y, const char* colour,
+                   double width, const char* dash, const std::string& text,
+                   const std::string& css_class = "") {
+  out += fmt::format(
+      "<line{} x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"{:g}\" "
+      "stroke-dasharray=\"{}\"/>\n",
+      css_class.empty() ? "" : " class=\"" + css_class + "\"", Px(x), Px(y), Px(x + 30), Px(y),
+      colour, width, dash);
+  out += Text(x + 36, y + 4, text, 12, "start");
+  space.Take(BoxOfText(x + 36, y + 4, text, 12, "start"));
+  return x + 36 + TextWidth(text, 12) + 24;
 }
 
 double SwrY(double swr) {
@@ -117,16 +165,23 @@ std::string PolylinePath(const std::vector<std::pair<double, double>>& xy) {
   return d;
 }
 
-std::string SwrPlot(const SweepReport& report) {
+std::string SwrPlot(const SweepReport& report, LabelSpace& space) {
   std::string out = "<g class=\"swr\">\n";
   const std::vector<Panel> panels = Panels(report);
-  out += Text((kPlotLeft_px + kPlotRight_px) / 2.0, kPlotTop_px - 34.0, "SWR at the transmitter",
-              15, "middle", kTextColour, " font-weight=\"bold\"");
+  out += Label(space, (kPlotLeft_px + kPlotRight_px) / 2.0, kPlotTop_px - 34.0,
+               "SWR at the transmitter", 15, "middle", kTextColour, " font-weight=\"bold\"");
   // Amateur bands inside a --from/--to range, shaded; a band sweep's panel is the band.
   std::vector<Band> shaded;
   if (report.bands.empty()) {
     for (const Band& band : BandTable(report.region)) shaded.push_back(band);
   }
+  // SWR axis labels (left of the first panel), before the
+  // frequency ticks that might crowd them.
+  for (double swr : {1.0, 1.5, 2.0, 3.0, 5.0, 10.0}) {
+    out += Label(space, kPlotLeft_px - 8.0, SwrY(swr) + 4.0, fmt::format("{:g}", swr), 12, "end");
+  }
+  // Tick labels keep 4 px from each other, 1 px from any other label.
+  LabelSpace ticks(kWidth_px, kHeight_px);
   for (const Panel& panel : panels) {
     if (!report.bands.empty()) {
       out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"{}\"/>\n",
@@ -142,7 +197,7 @@ std::string SwrPlot(const SweepReport& report) {
       out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"{}\"/>\n",
                          Px(x0), Px(kPlotTop_px), Px(std::max(x1 - x0, 1.0)),
                          Px(kPlotBottom_px - kPlotTop_px), kBandFill);
-      out += Text((x0 + x1) / 2.0, kPlotTop_px + 14.0, band.name, 11, "middle", "#4b7a3c");
+      out += Label(space, (x0 + x1) / 2.0, kPlotTop_px + 14.0, band.name, 11, "middle", "#4b7a3c");
     }
     // Horizontal grid at the labelled SWR values.
     for (double swr : {1.0, 1.5, 2.0, 3.0, 5.0, 10.0}) {
@@ -150,7 +205,8 @@ std::string SwrPlot(const SweepReport& report) {
           "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
           Px(panel.left_px), Px(SwrY(swr)), Px(panel.right_px), Px(SwrY(swr)), kGridColour);
     }
-    // Frequency ticks.
+    // Frequency ticks; a label that would touch one already drawn (the last of the panel to
+    // the left) is left out, its grid line kept.
     const double span_mhz = (panel.to_hz - panel.from_hz) / 1e6;
     const int wanted = std::max(2, static_cast<int>((panel.right_px - panel.left_px) / 70.0));
     if (span_mhz > 0.0) {
@@ -162,7 +218,13 @@ std::string SwrPlot(const SweepReport& report) {
         out += fmt::format(
             "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
             Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), kGridColour);
-        out += Text(x, kPlotBottom_px + 16.0, fmt::format("{:.{}f}", tick, decimals), 11, "middle");
+        const std::string text = fmt::format("{:.{}f}", tick, decimals);
+        const TextBox box = BoxOfText(x, kPlotBottom_px + 19.0, text, 11, "middle");
+        if (ticks.Free(box, 4.0) && space.Free(box, 1.0)) {
+          ticks.Take(box);
+          space.Take(box);
+          out += Text(x, kPlotBottom_px + 19.0, text, 11, "middle");
+        }
       }
     }
     out += fmt::format(
@@ -170,28 +232,27 @@ std::string SwrPlot(const SweepReport& report) {
         Px(panel.left_px), Px(kPlotTop_px), Px(panel.right_px - panel.left_px),
         Px(kPlotBottom_px - kPlotTop_px));
     if (!report.bands.empty()) {
-      out += Text((panel.left_px + panel.right_px) / 2.0, kPlotTop_px - 8.0, panel.name, 13,
-                  "middle", kTextColour, " font-weight=\"bold\"");
+      out += Label(space, (panel.left_px + panel.right_px) / 2.0, kPlotTop_px - 8.0, panel.name, 13,
+                   "middle", kTextColour, " font-weight=\"bold\"");
     }
   }
-  // SWR axis labels (left of the first panel).
-  for (double swr : {1.0, 1.5, 2.0, 3.0, 5.0, 10.0}) {
-    out += Text(kPlotLeft_px - 8.0, SwrY(swr) + 4.0, fmt::format("{:g}", swr), 12, "end");
-  }
+  const std::string axis_title = "SWR (log scale, clipped at 10)";
+  space.Take(BoxOfUpwardText(22.0, (kPlotTop_px + kPlotBottom_px) / 2.0, axis_title, 12, "middle"));
   out += Text(
-      22.0, (kPlotTop_px + kPlotBottom_px) / 2.0, "SWR (log scale, clipped at 10)", 12, "middle",
-      kTextColour,
+      22.0, (kPlotTop_px + kPlotBottom_px) / 2.0, axis_title, 12, "middle", kTextColour,
       fmt::format(" transform=\"rotate(-90 22 {})\"", Px((kPlotTop_px + kPlotBottom_px) / 2.0)));
-  out += Text((kPlotLeft_px + kPlotRight_px) / 2.0, kPlotBottom_px + 38.0, "frequency (MHz)", 12,
-              "middle");
+  out += Label(space, (kPlotLeft_px + kPlotRight_px) / 2.0, kPlotBottom_px + 40.0,
+               "frequency (MHz)", 12, "middle");
   // The 2:1 line across every panel.
   for (const Panel& panel : panels) {
     out += fmt::format(
-        "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.4\" "
-        "stroke-dasharray=\"8 4\"/>\n",
-        Px(panel.left_px), Px(SwrY(2.0)), Px(panel.right_px), Px(SwrY(2.0)), kLimitColour);
+        "<line class=\"limit\" x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" "
+        "stroke-width=\"1.4\" stroke-dasharray=\"{}\"/>\n",
+        Px(panel.left_px), Px(SwrY(2.0)), Px(panel.right_px), Px(SwrY(2.0)), kLimitColour,
+        kLimitDash);
   }
-  out += Text(panels.back().right_px - 4.0, SwrY(2.0) - 5.0, "2:1", 12, "end", kLimitColour);
+  out +=
+      Label(space, panels.back().right_px - 4.0, SwrY(2.0) - 5.0, "2:1", 12, "end", kLimitColour);
 
   // Resonances: a dotted vertical line and the frequency at the bottom of the panel.
   for (double f_hz : report.sweep.resonances_hz) {
@@ -204,35 +265,31 @@ std::string SwrPlot(const SweepReport& report) {
           Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), kResonanceColour);
       // Near the top: at a resonance the SWR is usually low, so the curve is far below.
       const double label_y = kPlotTop_px + 24.0;
-      out += Text(x + 4.0, label_y, fmt::format("X = 0 at {:.4f} MHz", f_hz / 1e6), 11, "end",
-                  kResonanceColour,
-                  fmt::format(" transform=\"rotate(-90 {} {})\" stroke=\"#ffffff\" "
-                              "stroke-width=\"3\" paint-order=\"stroke\"",
-                              Px(x + 4.0), Px(label_y)));
+      const std::string label = fmt::format("X = 0 at {:.4f} MHz", f_hz / 1e6);
+      // A resonance too close to a label already drawn keeps its line only.
+      if (!space.TakeIfFree(BoxOfUpwardText(x + 4.0, label_y, label, 11, "end"))) continue;
+      out +=
+          Text(x + 4.0, label_y, label, 11, "end", kResonanceColour,
+               fmt::format(" transform=\"rotate(-90 {} {})\"{}", Px(x + 4.0), Px(label_y), kHalo));
     }
   }
   // The predicted curve, one path per panel.
+  bool clipped = false;
   for (const Panel& panel : panels) {
     std::vector<std::pair<double, double>> xy;
     for (const SweepPoint& p : report.sweep.points) {
       if (panel.Holds(p.frequency_hz)) xy.emplace_back(panel.X(p.frequency_hz), SwrY(p.swr));
     }
     if (xy.size() == 1) xy.push_back({xy[0].first + 1.0, xy[0].second});
-    bool clipped = false;
     for (const SweepPoint& p : report.sweep.points) {
       if (panel.Holds(p.frequency_hz) && p.swr > kMaxSwr) clipped = true;
     }
-    if (clipped) {
-      out += Text((panel.left_px + panel.right_px) / 2.0, kPlotTop_px + 32.0,
-                  "SWR above 10 drawn on the top edge", 11, "middle", kTraceColour,
-                  " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"");
-    }
     out += fmt::format(
-        "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.4\" "
+        "<path class=\"predicted\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.4\" "
         "stroke-linejoin=\"round\"/>\n",
         PolylinePath(xy), kTraceColour);
   }
-  // The measured curve, dashed.
+  // The measured curve, dash-dotted.
   if (report.measured) {
     for (const Panel& panel : panels) {
       std::vector<std::pair<double, double>> xy;
@@ -243,52 +300,58 @@ std::string SwrPlot(const SweepReport& report) {
       }
       if (xy.empty()) continue;
       out += fmt::format(
-          "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2\" "
-          "stroke-dasharray=\"7 4\"/>\n",
-          PolylinePath(xy), kMeasuredColour);
+          "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.2\" "
+          "stroke-dasharray=\"{}\"/>\n",
+          PolylinePath(xy), kMeasuredColour, kMeasuredDash);
     }
   }
-  // The lowest SWR: a dot and its value.
+  // The lowest SWR: a dot and its value, below the dot where there is room (the curve lies
+  // above its lowest point everywhere else), else above it, on the side toward the panel's
+  // middle.
   for (const Panel& panel : panels) {
     if (!panel.Holds(report.sweep.min_swr_frequency_hz)) continue;
     const double x = panel.X(report.sweep.min_swr_frequency_hz);
     const double y = SwrY(report.sweep.min_swr);
     out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(x), Px(y),
                        kTraceColour);
-    // Below the dot: the curve lies above its lowest point everywhere else.
+    const std::string text = fmt::format("SWR {:.2f} at {:.4f} MHz", report.sweep.min_swr,
+                                         report.sweep.min_swr_frequency_hz / 1e6);
+    // Inside the panel if it can be, else anywhere free.
     const bool right_half = x > (panel.left_px + panel.right_px) / 2.0;
-    const double label_y = y + 22.0 < kPlotBottom_px - 6.0 ? y + 22.0 : y - 12.0;
-    out += Text(x + (right_half ? -8.0 : 8.0), label_y,
-                fmt::format("SWR {:.2f} at {:.4f} MHz", report.sweep.min_swr,
-                            report.sweep.min_swr_frequency_hz / 1e6),
-                12, right_half ? "end" : "start", kTraceColour,
-                " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"");
+    std::string label;
+    for (const bool within : {true, false}) {
+      for (const double dy : {22.0, -12.0, 38.0, -28.0, -44.0}) {
+        for (const bool leftward : {right_half, !right_half}) {
+          const double lx = x + (leftward ? -8.0 : 8.0);
+          const char* anchor = leftward ? "end" : "start";
+          const TextBox box = BoxOfText(lx, y + dy, text, 12, anchor);
+          if (y + dy > kPlotBottom_px - 4.0 || y + dy < kPlotTop_px + 14.0) continue;
+          if (within && (box.x0 < panel.left_px + 2.0 || box.x1 > panel.right_px - 2.0)) continue;
+          label = Label(space, lx, y + dy, text, 12, anchor, kTraceColour, kHalo);
+          if (!label.empty()) break;
+        }
+        if (!label.empty()) break;
+      }
+      if (!label.empty()) break;
+    }
+    out += label;
     break;
   }
   // Legend.
   const double ly = kPlotBottom_px + 62.0;
-  out += fmt::format(
-      "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"2.4\"/>\n",
-      Px(kPlotLeft_px), Px(ly), Px(kPlotLeft_px + 30), Px(ly), kTraceColour);
-  out += Text(kPlotLeft_px + 36, ly + 4, "predicted", 12, "start");
-  double lx = kPlotLeft_px + 120;
+  double lx = LegendEntry(out, space, kPlotLeft_px, ly, kTraceColour, 2.4, "none", "predicted");
   if (report.measured) {
-    out += fmt::format(
-        "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"2\" "
-        "stroke-dasharray=\"7 4\"/>\n",
-        Px(lx), Px(ly), Px(lx + 30), Px(ly), kMeasuredColour);
-    out += Text(lx + 36, ly + 4, "measured", 12, "start");
-    lx += 110;
+    lx = LegendEntry(out, space, lx, ly, kMeasuredColour, 2.2, kMeasuredDash, "measured");
   }
-  out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"24\" height=\"10\" fill=\"{}\"/>\n", Px(lx),
+  out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"30\" height=\"10\" fill=\"{}\"/>\n", Px(lx),
                      Px(ly - 5), kBandFill);
-  out += Text(lx + 30, ly + 4, "amateur band (ITU)", 12, "start");
-  lx += 175;
-  out += fmt::format(
-      "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
-      "stroke-dasharray=\"2 3\"/>\n",
-      Px(lx), Px(ly), Px(lx + 30), Px(ly), kResonanceColour);
-  out += Text(lx + 36, ly + 4, "resonance (X = 0)", 12, "start");
+  out += Label(space, lx + 36, ly + 4, "amateur band (ITU)", 12, "start");
+  lx += 36 + TextWidth("amateur band (ITU)", 12) + 24;
+  LegendEntry(out, space, lx, ly, kResonanceColour, 1.2, "2 3", "resonance (X = 0)");
+  if (clipped) {
+    out += Label(space, kPlotLeft_px, ly + 24.0, "An SWR above 10 is drawn on the top edge.", 12,
+                 "start", kTraceColour);
+  }
   out += "</g>\n";
   return out;
 }
@@ -300,13 +363,14 @@ struct Smith {
 
 Complex Gamma(Complex z_normalised) { return (z_normalised - 1.0) / (z_normalised + 1.0); }
 
-std::string SmithChart(const SweepReport& report) {
+std::string SmithChart(const SweepReport& report, LabelSpace& space) {
   const Smith s;
   const double z0_ohm = report.sweep.z0_ohm;
+  const char* const kChartHalo = " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"";
   std::string out = "<g class=\"smith\">\n";
-  out += Text(kSmithX_px, kPlotTop_px - 34.0,
-              fmt::format("Impedance at the transmitter, normalised to {:g} ohm", z0_ohm), 15,
-              "middle", kTextColour, " font-weight=\"bold\"");
+  out += Label(space, kSmithX_px, kPlotTop_px - 34.0,
+               fmt::format("Impedance at the transmitter, normalised to {:g} ohm", z0_ohm), 15,
+               "middle", kTextColour, " font-weight=\"bold\"");
   out += fmt::format(
       "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"#fbfbfb\" stroke=\"#666666\" "
       "stroke-width=\"1.4\"/>\n",
@@ -335,8 +399,9 @@ std::string SmithChart(const SweepReport& report) {
                          PolylinePath(xy), kGridColour);
       const Complex edge = Gamma(Complex(0.0, sign * x)) * 1.07;
       const double c = edge.real();
-      out += Text(s.X(edge), s.Y(edge) + 4.0, fmt::format("{}j{:g}", sign > 0 ? "+" : "-", x), 11,
-                  c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle"), "#555555");
+      out +=
+          Label(space, s.X(edge), s.Y(edge) + 4.0, fmt::format("{}j{:g}", sign > 0 ? "+" : "-", x),
+                11, c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle"), "#555555");
     }
   }
   // The real axis and its resistance labels.
@@ -346,19 +411,27 @@ std::string SmithChart(const SweepReport& report) {
       "#9a9a9a");
   for (double r : {0.0, 0.2, 0.5, 1.0, 2.0, 5.0}) {
     const Complex g = Gamma(Complex(r, 0.0));
-    out += Text(s.X(g) + 3.0, kSmithY_px - 4.0, fmt::format("{:g}", r), 11, "start", "#555555",
-                " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"");
+    out += Label(space, s.X(g) + 3.0, kSmithY_px - 4.0, fmt::format("{:g}", r), 11, "start",
+                 "#555555", kChartHalo);
   }
   // The SWR 2 circle: |Gamma| = (2 - 1) / (2 + 1) = 1/3.
   out += fmt::format(
-      "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.4\" "
-      "stroke-dasharray=\"8 4\"/>\n",
-      Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px / 3.0), kLimitColour);
-  out += Text(kSmithX_px, kSmithY_px + kSmithR_px / 3.0 + 14.0, "SWR 2", 11, "middle", kLimitColour,
-              " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"");
-  // The traces, one per span, with start and end frequencies.
+      "<circle class=\"limit\" cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" "
+      "stroke-width=\"1.4\" stroke-dasharray=\"{}\"/>\n",
+      Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px / 3.0), kLimitColour, kLimitDash);
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px / 3.0 + 14.0, "SWR 2", 11, "middle",
+               kLimitColour, kChartHalo);
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 34.0,
+               "open circle: first frequency; filled circle: last", 11, "middle", "#555555");
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 50.0,
+               "circles of constant resistance 0, 0.2, 0.5, 1, 2, 5; arcs of reactance +-j", 11,
+               "middle", "#555555");
+  // The traces, one per span in a colour of its own, with start and end frequencies.
   const std::vector<Panel> panels = Panels(report);
-  for (const Panel& panel : panels) {
+  std::vector<std::string> legend;
+  for (std::size_t index = 0; index < panels.size(); ++index) {
+    const Panel& panel = panels[index];
+    const char* colour = BandColour(index);
     std::vector<std::pair<double, double>> xy;
     std::vector<const SweepPoint*> inside;
     for (const SweepPoint& p : report.sweep.points) {
@@ -369,37 +442,36 @@ std::string SmithChart(const SweepReport& report) {
     }
     if (xy.empty()) continue;
     out += fmt::format(
-        "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.2\" "
+        "<path class=\"smith-trace\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.2\" "
         "stroke-linejoin=\"round\"/>\n",
-        PolylinePath(xy), kTraceColour);
+        PolylinePath(xy), colour);
     out += fmt::format(
         "<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"#ffffff\" stroke=\"{}\" stroke-width=\"2\"/>\n",
-        Px(xy.front().first), Px(xy.front().second), kTraceColour);
+        Px(xy.front().first), Px(xy.front().second), colour);
     out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(xy.back().first),
-                       Px(xy.back().second), kTraceColour);
-    // Start and end labels pushed outward from the chart's centre, away from the trace.
-    const std::string halo = " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"";
+                       Px(xy.back().second), colour);
+    legend.push_back(report.bands.empty() ? "predicted" : panel.name);
+    // Start and end labels pushed outward from the chart's centre, away from the trace, or
+    // turned about the point until they are clear of every label drawn.
     auto label = [&](std::pair<double, double> at, double f_hz) {
-      double dx = at.first - kSmithX_px;
-      double dy = at.second - kSmithY_px;
-      const double length = std::hypot(dx, dy);
-      if (length < 1.0) {
-        dx = 1.0;
-        dy = 0.0;
-      } else {
-        dx /= length;
-        dy /= length;
+      const double out_angle = std::hypot(at.first - kSmithX_px, at.second - kSmithY_px) < 1.0
+                                   ? 0.0
+                                   : std::atan2(at.second - kSmithY_px, at.first - kSmithX_px);
+      const std::string text = fmt::format("{:.4f} MHz", f_hz / 1e6);
+      for (double distance : {12.0, 22.0, 34.0}) {
+        for (double turn_deg :
+             {0.0, 30.0, -30.0, 60.0, -60.0, 90.0, -90.0, 120.0, -120.0, 150.0, -150.0, 180.0}) {
+          const double a = out_angle + turn_deg * kPi / 180.0;
+          const double dx = std::cos(a);
+          const double dy = std::sin(a);
+          const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");
+          const std::string placed =
+              Label(space, at.first + distance * dx, at.second + distance * dy + 4.0, text, 11,
+                    anchor, colour, kChartHalo);
+          if (!placed.empty()) return placed;
+        }
       }
-      const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");
-      // Keep the label on the canvas: near the right edge it goes left of the point.
-      constexpr double kLabelWidth_px = 75.0;
-      if (at.first + 12.0 * dx + kLabelWidth_px > kWidth_px - 4.0) {
-        anchor = "end";
-        dx = -std::abs(dx);
-        dy = dy < 0.0 ? -1.0 : 1.0;
-      }
-      return Text(at.first + 12.0 * dx, at.second + 12.0 * dy + 4.0,
-                  fmt::format("{:.4f} MHz", f_hz / 1e6), 11, anchor, kTraceColour, halo);
+      return std::string();  // no room: the legend and the other end still say where it is
     };
     out += label(xy.front(), inside.front()->frequency_hz);
     out += label(xy.back(), inside.back()->frequency_hz);
@@ -411,15 +483,23 @@ std::string SmithChart(const SweepReport& report) {
       xy.emplace_back(s.X(g), s.Y(g));
     }
     out += fmt::format(
-        "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\" "
-        "stroke-dasharray=\"7 4\"/>\n",
-        PolylinePath(xy), kMeasuredColour);
+        "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2\" "
+        "stroke-dasharray=\"{}\"/>\n",
+        PolylinePath(xy), kMeasuredColour, kMeasuredDash);
   }
-  out += Text(kSmithX_px, kSmithY_px + kSmithR_px + 34.0,
-              "open circle: first frequency; filled circle: last", 11, "middle", "#555555");
-  out += Text(kSmithX_px, kSmithY_px + kSmithR_px + 50.0,
-              "circles of constant resistance 0, 0.2, 0.5, 1, 2, 5; arcs of reactance +-j", 11,
-              "middle", "#555555");
+  // The legend, above the chart: one entry per trace, then the measured one.
+  double width = 0.0;
+  for (const std::string& name : legend) width += 36 + TextWidth(name, 12) + 24;
+  if (report.measured) width += 36 + TextWidth("measured", 12) + 24;
+  double lx = kSmithX_px - (width - 24) / 2.0;
+  const double ly = kPlotTop_px - 12.0;
+  for (std::size_t index = 0; index < legend.size(); ++index) {
+    lx = LegendEntry(out, space, lx, ly, BandColour(index), 2.2, "none", legend[index],
+                     "smith-legend");
+  }
+  if (report.measured) {
+    LegendEntry(out, space, lx, ly, kMeasuredColour, 2.0, kMeasuredDash, "measured");
+  }
   out += "</g>\n";
   return out;
 }
@@ -432,25 +512,29 @@ std::string FormatSweepSvg(const SweepReport& report) {
   if (report.spans.empty()) throw ComputationError("FormatSweepSvg: the report has no spans");
   std::string out = fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{0}\" height=\"{1}\" "
-      "viewBox=\"0 0 {0} {1}\" font-family=\"DejaVu Sans, Liberation Sans, Arial, sans-serif\">\n",
-      report::kWidth_px, report::kHeight_px);
+      "viewBox=\"0 0 {0} {1}\" font-family=\"{2}\">\n",
+      report::kWidth_px, report::kHeight_px, report::kFontFamily);
   out += fmt::format("<rect width=\"{}\" height=\"{}\" fill=\"#ffffff\"/>\n", report::kWidth_px,
                      report::kHeight_px);
   std::string model = report.model_file;
   const std::size_t slash = model.find_last_of('/');
   if (slash != std::string::npos) model = model.substr(slash + 1);
-  out +=
-      report::Text(report::kWidth_px / 2.0, 30.0,
-                   fmt::format("wirefield sweep: {}  |  feed {}  |  z0 {:g} ohm  |  {}", model,
-                               report.feed_name, report.sweep.z0_ohm, report::SweepTitle(report)),
-                   17, "middle", report::kTextColour, " font-weight=\"bold\"");
-  out += report::Text(report::kWidth_px / 2.0, 52.0,
-                      "Band edges: ITU Radio Regulations Article 5 (2020); national rules may be "
-                      "narrower. High RF voltage at wire ends: keep clear of people and power "
-                      "lines.",
-                      12, "middle", "#555555");
-  out += report::SwrPlot(report);
-  out += report::SmithChart(report);
+  report::LabelSpace space(report::kWidth_px, report::kHeight_px);
+  // The title and the note shrink to the width of the picture when they are longer.
+  const std::string title =
+      fmt::format("wirefield sweep: {}  |  feed {}  |  z0 {:g} ohm  |  {}", model, report.feed_name,
+                  report.sweep.z0_ohm, report::SweepTitle(report));
+  const double usable_px = report::kWidth_px - 20.0;
+  out += report::Label(space, report::kWidth_px / 2.0, 30.0, title,
+                       report::FitSize(title, 17, usable_px, true), "middle", report::kTextColour,
+                       " font-weight=\"bold\"");
+  const std::string note =
+      "Band edges: ITU Radio Regulations Article 5 (2020); national rules may be narrower. High "
+      "RF voltage at wire ends: keep clear of people and power lines.";
+  out += report::Label(space, report::kWidth_px / 2.0, 52.0, note,
+                       report::FitSize(note, 12, usable_px), "middle", "#555555");
+  out += report::SwrPlot(report, space);
+  out += report::SmithChart(report, space);
   out += "</svg>\n";
   return out;
 }
