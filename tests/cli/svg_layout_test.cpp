@@ -117,15 +117,16 @@ std::map<std::string, nlohmann::json> MeasureInBrowser(
   const int status = std::system(command.c_str());
   std::filesystem::remove_all(profile);
   const std::string dumped = ReadFile(dom);
-  const std::smatch none;
-  std::smatch match;
-  if (!std::regex_search(dumped, match, std::regex("<pre id=\"result\">([^<]*)</pre>"))) {
+  const std::string open_tag = "<pre id=\"result\">";
+  const std::size_t start = dumped.find(open_tag);
+  const std::size_t end = dumped.find("</pre>", start == std::string::npos ? 0 : start);
+  if (start == std::string::npos || end == std::string::npos) {
     ADD_FAILURE() << "the browser gave no layout report (status " << status << "); its messages:\n"
                   << ReadFile(log).substr(0, 4000);
     return by_name;
   }
   // The DOM is serialised as HTML: the report's quotes and ampersands come back escaped.
-  std::string report = match[1].str();
+  std::string report = dumped.substr(start + open_tag.size(), end - start - open_tag.size());
   for (const auto& [entity, plain] : std::vector<std::pair<std::string, std::string>>{
            {"&quot;", "\""}, {"&lt;", "<"}, {"&gt;", ">"}, {"&#39;", "'"}, {"&amp;", "&"}}) {
     for (std::size_t at = report.find(entity); at != std::string::npos;

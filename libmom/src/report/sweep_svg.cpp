@@ -175,8 +175,8 @@ std::string SwrPlot(const SweepReport& report, LabelSpace& space) {
   if (report.bands.empty()) {
     for (const Band& band : BandTable(report.region)) shaded.push_back(band);
   }
-  // SWR axis labels (left of the first panel), before the
-  // frequency ticks that might crowd them.
+  // SWR axis labels (left of the first panel), before the frequency ticks that might crowd
+  // them.
   for (double swr : {1.0, 1.5, 2.0, 3.0, 5.0, 10.0}) {
     out += Label(space, kPlotLeft_px - 8.0, SwrY(swr) + 4.0, fmt::format("{:g}", swr), 12, "end");
   }
