@@ -1,4 +1,4 @@
-// CLI tests: the SVG pictures of `sweep --svg` (one band, two and three bands, a range, a
+// CLI tests: the SVG pictures of `sweep --svg` (one band, two, three and eight bands, a range, a
 // measured file) and `pattern --svg` (over real ground, in free space, over perfect ground; a
 // vertical and horizontal dipoles), drawn by a real browser (headless Chromium) that measures
 // every text as laid out: no text may leave the picture and no two texts may overlap. The
@@ -199,6 +199,9 @@ TEST(SvgLayout, SweepPicturesKeepEveryTextInsideAndApart) {
        {"sweep", Model("hiking_club_two_band_end_fed.wire"), "--band", "40m", "--band", "20m"}},
       {"sweep_three_bands",
        {"sweep", Model("trap_dipole.wire"), "--band", "40m", "--band", "30m", "--band", "20m"}},
+      {"sweep_eight_bands",
+       {"sweep", Model("trap_dipole.wire"), "--band", "80m", "--band", "40m", "--band", "30m",
+        "--band", "20m", "--band", "17m", "--band", "15m", "--band", "12m", "--band", "10m"}},
       {"sweep_range",
        {"sweep", Model("campsite_vertical.wire"), "--from", "6MHz", "--to", "22MHz", "--points",
         "81"}},

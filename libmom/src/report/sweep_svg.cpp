@@ -45,10 +45,10 @@ const char* const kMeasuredColour = "#cc7a00";
 const char* const kMeasuredDash = "10 3 2 3";
 const char* const kLimitColour = "#c0392b";
 const char* const kLimitDash = "8 4";
-// One colour per band on the Smith chart (repeated past the sixth band), the first the SWR
-// plot's trace colour.
-const char* const kBandColours[] = {"#1d5fa6", "#178a6d", "#a8326e",
-                                    "#6b5414", "#4a4ab8", "#3f7f9f"};
+// One colour per band on the Smith chart, ten for the ten bands a sweep knows (repeated
+// past them), the first the SWR plot's trace colour.
+const char* const kBandColours[] = {"#1d5fa6", "#178a6d", "#a8326e", "#6b5414", "#4a4ab8",
+                                    "#3f7f9f", "#5c7d12", "#2b2b2b", "#8e5bb5", "#0c5c4a"};
 const char* const kGridColour = "#cfcfcf";
 const char* const kTextColour = "#222222";
 const char* const kBandFill = "#e8f1e4";
@@ -85,20 +85,28 @@ TextBox BoxOfUpwardText(double x, double y, const std::string& text, double size
   return TextBox{x - 0.93 * size, bottom - w, x + 0.24 * size, bottom};
 }
 
-// A legend entry: a short line in `colour` (dashed by `dash`, "none" for solid) and its text;
-// returns the x after it.
+// A legend entry: a line `line_px` long in `colour` (dashed by `dash`, "none" for solid),
+// then its text; returns the x where the text ends.
 double LegendEntry(std::string& out, LabelSpace& space, double x, double y, const char* colour,
                    double width, const char* dash, const std::string& text,
-                   const std::string& css_class = "") {
+                   const std::string& css_class = "", double line_px = 30.0) {
   out += fmt::format(
       "<line{} x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"{:g}\" "
       "stroke-dasharray=\"{}\"/>\n",
-      css_class.empty() ? "" : " class=\"" + css_class + "\"", Px(x), Px(y), Px(x + 30), Px(y),
+      css_class.empty() ? "" : " class=\"" + css_class + "\"", Px(x), Px(y), Px(x + line_px), Px(y),
       colour, width, dash);
-  out += Text(x + 36, y + 4, text, 12, "start");
-  space.Take(BoxOfText(x + 36, y + 4, text, 12, "start"));
-  return x + 36 + TextWidth(text, 12) + 24;
+  out += Text(x + line_px + 6, y + 4, text, 12, "start");
+  space.Take(BoxOfText(x + line_px + 6, y + 4, text, 12, "start"));
+  return x + line_px + 6 + TextWidth(text, 12);
 }
+
+// One entry of the Smith chart's legend.
+struct SmithLegendItem {
+  std::string text;
+  const char* colour;
+  const char* dash;
+  const char* css_class;
+};
 
 double SwrY(double swr) {
   const double clipped = std::clamp(swr, 1.0, kMaxSwr);
@@ -339,9 +347,10 @@ std::string SwrPlot(const SweepReport& report, LabelSpace& space) {
   }
   // Legend.
   const double ly = kPlotBottom_px + 62.0;
-  double lx = LegendEntry(out, space, kPlotLeft_px, ly, kTraceColour, 2.4, "none", "predicted");
+  double lx =
+      LegendEntry(out, space, kPlotLeft_px, ly, kTraceColour, 2.4, "none", "predicted") + 24;
   if (report.measured) {
-    lx = LegendEntry(out, space, lx, ly, kMeasuredColour, 2.2, kMeasuredDash, "measured");
+    lx = LegendEntry(out, space, lx, ly, kMeasuredColour, 2.2, kMeasuredDash, "measured") + 24;
   }
   out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"30\" height=\"10\" fill=\"{}\"/>\n", Px(lx),
                      Px(ly - 5), kBandFill);
@@ -428,7 +437,7 @@ std::string SmithChart(const SweepReport& report, LabelSpace& space) {
                "middle", "#555555");
   // The traces, one per span in a colour of its own, with start and end frequencies.
   const std::vector<Panel> panels = Panels(report);
-  std::vector<std::string> legend;
+  std::vector<SmithLegendItem> legend;
   for (std::size_t index = 0; index < panels.size(); ++index) {
     const Panel& panel = panels[index];
     const char* colour = BandColour(index);
@@ -450,7 +459,8 @@ std::string SmithChart(const SweepReport& report, LabelSpace& space) {
         Px(xy.front().first), Px(xy.front().second), colour);
     out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(xy.back().first),
                        Px(xy.back().second), colour);
-    legend.push_back(report.bands.empty() ? "predicted" : panel.name);
+    legend.push_back(
+        {report.bands.empty() ? "predicted" : panel.name, colour, "none", "smith-legend"});
     // Start and end labels pushed outward from the chart's centre, away from the trace, or
     // turned about the point until they are clear of every label drawn.
     auto label = [&](std::pair<double, double> at, double f_hz) {
@@ -487,18 +497,40 @@ std::string SmithChart(const SweepReport& report, LabelSpace& space) {
         "stroke-dasharray=\"{}\"/>\n",
         PolylinePath(xy), kMeasuredColour, kMeasuredDash);
   }
-  // The legend, above the chart: one entry per trace, then the measured one.
-  double width = 0.0;
-  for (const std::string& name : legend) width += 36 + TextWidth(name, 12) + 24;
-  if (report.measured) width += 36 + TextWidth("measured", 12) + 24;
-  double lx = kSmithX_px - (width - 24) / 2.0;
-  const double ly = kPlotTop_px - 12.0;
-  for (std::size_t index = 0; index < legend.size(); ++index) {
-    lx = LegendEntry(out, space, lx, ly, BandColour(index), 2.2, "none", legend[index],
-                     "smith-legend");
+  // The legend, above the chart: one entry per trace, then the measured one, in rows no
+  // wider than the chart's column, each row centred.
+  if (report.measured) legend.push_back({"measured", kMeasuredColour, kMeasuredDash, ""});
+  constexpr double kLine_px = 22.0;
+  constexpr double kGap_px = 16.0;
+  const double column_px = 2.0 * (kWidth_px - kSmithX_px) - 20.0;
+  auto item_width = [&](const SmithLegendItem& item) {
+    return kLine_px + 6 + TextWidth(item.text, 12);
+  };
+  std::vector<std::vector<const SmithLegendItem*>> rows(1);
+  double row_width = 0.0;
+  for (const SmithLegendItem& item : legend) {
+    const double wanted = (rows.back().empty() ? 0.0 : row_width + kGap_px) + item_width(item);
+    if (!rows.back().empty() && wanted > column_px) {
+      rows.emplace_back();
+      row_width = item_width(item);
+    } else {
+      row_width = wanted;
+    }
+    rows.back().push_back(&item);
   }
-  if (report.measured) {
-    LegendEntry(out, space, lx, ly, kMeasuredColour, 2.0, kMeasuredDash, "measured");
+  // Two rows fit between the heading and the chart's top label; the rows move up when there
+  // are more.
+  double ly = kPlotTop_px - 18.0 - 15.0 * std::max(0.0, double(rows.size()) - 2.0);
+  for (const auto& row : rows) {
+    double width = -kGap_px;
+    for (const SmithLegendItem* item : row) width += item_width(*item) + kGap_px;
+    double lx = kSmithX_px - width / 2.0;
+    for (const SmithLegendItem* item : row) {
+      lx = LegendEntry(out, space, lx, ly, item->colour, 2.2, item->dash, item->text,
+                       item->css_class, kLine_px) +
+           kGap_px;
+    }
+    ly += 15.0;
   }
   out += "</g>\n";
   return out;
