@@ -324,16 +324,23 @@ std::string SwrPlot(const SweepReport& report, LabelSpace& space) {
                        kTraceColour);
     const std::string text = fmt::format("SWR {:.2f} at {:.4f} MHz", report.sweep.min_swr,
                                          report.sweep.min_swr_frequency_hz / 1e6);
-    // Inside the panel if it can be, else anywhere free.
+    // Beside the dot, toward the panel's middle first, or centred under (over) it and kept
+    // inside the panel; inside the panel if it can be, else anywhere free.
     const bool right_half = x > (panel.left_px + panel.right_px) / 2.0;
+    const double half_width = TextWidth(text, 12) / 2.0;
+    const double centre =
+        std::clamp(x, panel.left_px + half_width + 3.0,
+                   std::max(panel.left_px + half_width + 3.0, panel.right_px - half_width - 3.0));
+    const std::pair<double, const char*> sides[] = {
+        {x + (right_half ? -8.0 : 8.0), right_half ? "end" : "start"},
+        {x + (right_half ? 8.0 : -8.0), right_half ? "start" : "end"},
+        {centre, "middle"}};
     std::string label;
     for (const bool within : {true, false}) {
       for (const double dy : {22.0, -12.0, 38.0, -28.0, -44.0}) {
-        for (const bool leftward : {right_half, !right_half}) {
-          const double lx = x + (leftward ? -8.0 : 8.0);
-          const char* anchor = leftward ? "end" : "start";
+        if (y + dy > kPlotBottom_px - 4.0 || y + dy < kPlotTop_px + 14.0) continue;
+        for (const auto& [lx, anchor] : sides) {
           const TextBox box = BoxOfText(lx, y + dy, text, 12, anchor);
-          if (y + dy > kPlotBottom_px - 4.0 || y + dy < kPlotTop_px + 14.0) continue;
           if (within && (box.x0 < panel.left_px + 2.0 || box.x1 > panel.right_px - 2.0)) continue;
           label = Label(space, lx, y + dy, text, 12, anchor, kTraceColour, kHalo);
           if (!label.empty()) break;
