@@ -39,10 +39,12 @@ struct PatternFlags {
   CLI::Option* transmit_fraction_option = nullptr;
   std::string step;       // --step, as typed
   std::string elevation;  // --elevation, as typed
+  std::string azimuth;    // --azimuth, as typed
   std::string csv_path;
   std::string svg_path;
   CLI::Option* step_option = nullptr;
   CLI::Option* elevation_option = nullptr;
+  CLI::Option* azimuth_option = nullptr;
   CLI::Option* csv_option = nullptr;
   CLI::Option* svg_option = nullptr;
 };
@@ -72,6 +74,17 @@ PatternOptions ChosenOptions(const PatternFlags& flags, const Model& model) {
                                elevation_deg));
     }
     options.azimuth_cut_elevation_deg = elevation_deg;
+  }
+  if (Given(flags.azimuth_option)) {
+    const double azimuth_deg = ParseDegrees(flags.azimuth, "--azimuth", "90 or 45deg");
+    if (!(azimuth_deg >= 0.0 && azimuth_deg <= 360.0)) {
+      throw InputError(
+          SourceLocation{"--azimuth", 1, 1},
+          fmt::format(
+              "--azimuth must lie between 0 and 360 degrees (from +x toward +y); got {:.6g}",
+              azimuth_deg));
+    }
+    options.elevation_cut_azimuth_deg = azimuth_deg;
   }
   return options;
 }
@@ -175,8 +188,14 @@ Command AddPatternCommand(CLI::App& program) {
   flags->elevation_option = app->add_option(
       "--elevation", flags->elevation,
       "Elevation of the azimuth cut, degrees above the horizon (0..90 over a ground, -90..90 "
-      "in free space). Default: the take-off angle (elevation of the maximum).");
+      "in free space). Default: the take-off angle (elevation of the maximum), or 10 deg when "
+      "the maximum lies above 60 deg (near the zenith).");
   flags->elevation_option->type_name("DEG");
+  flags->azimuth_option = AddTextOption(
+      *app, "--azimuth", flags->azimuth, "DEG",
+      "Azimuth of the elevation cut, degrees from +x toward +y (0..360). Default: the "
+      "strongest direction at low angles (the best of the low-angle table), the maximum's own "
+      "azimuth when it does as well there.");
   flags->csv_option = app->add_option(
       "--csv", flags->csv_path,
       "Also write both cuts to FILE as CSV (columns in docs/commands.md). Default: none.");

@@ -178,6 +178,32 @@ TEST(PatternCommand, ElevationPastTheZenithIsRefusedInFreeSpace) {
             "got 95\n");
 }
 
+TEST(PatternCommand, AzimuthOutOfRangeIsRefused) {
+  const std::string path = WriteScratchFile("pat_az400.wire", DipoleModel("perfect", 10.0));
+  const ProgramRun run = RunWirefield({"pattern", path, "--azimuth", "400"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err,
+            "--azimuth:1:1: error: --azimuth must lie between 0 and 360 degrees (from +x toward "
+            "+y); got 400\n");
+  EXPECT_EQ(run.out, "");
+  const ProgramRun negative = RunWirefield({"pattern", path, "--azimuth", "-10deg"});
+  EXPECT_EQ(negative.exit_code, 2);
+  EXPECT_EQ(negative.err.rfind("--azimuth:1:1: error: --azimuth must lie between 0 and 360", 0), 0u)
+      << negative.err;
+}
+
+TEST(PatternCommand, AzimuthThatIsNotANumberShowsAnExample) {
+  const std::string path = WriteScratchFile("pat_azx.wire", DipoleModel("perfect", 10.0));
+  const ProgramRun run = RunWirefield({"pattern", path, "--azimuth", "east"});
+  ASSERT_TRUE(run.exited) << Describe(run);
+  EXPECT_EQ(run.exit_code, 2);
+  EXPECT_EQ(run.err,
+            "--azimuth:1:1: error: --azimuth needs an angle in degrees such as 90 or 45deg; got "
+            "'east'\n");
+  EXPECT_EQ(run.out, "");
+}
+
 TEST(PatternCommand, UnknownOptionPointsToThePatternHelp) {
   const std::string path = WriteScratchFile("pat_unknown.wire", DipoleModel("free", 10.0));
   const ProgramRun run = RunWirefield({"pattern", path, "--polar"});
@@ -243,6 +269,13 @@ TEST(PatternJson, ElevationOptionFixesTheAzimuthCut) {
   EXPECT_DOUBLE_EQ(doc["azimuth_cut"]["fixed_angle_deg"].get<double>(), 10.0);
 }
 
+TEST(PatternJson, AzimuthOptionFixesTheElevationCut) {
+  const std::string path = WriteScratchFile("pat_az45.wire", DipoleModel("perfect", 10.0));
+  const nlohmann::json doc = PatternJson({"pattern", path, "--azimuth", "45deg", "--json"});
+  EXPECT_DOUBLE_EQ(doc["elevation_cut"]["fixed_angle_deg"].get<double>(), 45.0);
+  EXPECT_EQ(doc["elevation_cut"]["chosen_by"], "option");
+}
+
 // Energy conservation (Poynting's theorem): a lossless antenna radiates all the power it
 // takes in. The 2% is the project's power-balance warning threshold.
 TEST(PatternJson, LosslessDipoleRadiatesThePowerItTakesIn) {
@@ -303,6 +336,119 @@ TEST(PatternPhysics, DipoleHalfAWavelengthUpTakesOffAtThirtyDegrees) {
   // Broadside to a wire along x: azimuth 90 or 270 deg.
   const double azimuth_deg = doc["max_gain_azimuth_deg"].get<double>();
   EXPECT_NEAR(std::abs(std::remainder(azimuth_deg - 90.0, 180.0)), 0.0, kGridTolerance_deg);
+}
+
+// A horizontal half-wave dipole along x, 0.15 wavelength over a perfect ground: low enough
+// that its maximum is straight up (image theory: the array factor 2 sin(kh sin(elevation))
+// grows all the way to the zenith for h < lambda/4; Balanis, Antenna Theory, 3rd ed.,
+// §4.7.2, from memory).
+std::string LowDipolePath(const std::string& name) {
+  const double wavelength_m = kSpeedOfLight_m_per_s / kFrequency_hz;
+  return WriteScratchFile(name, DipoleModel("perfect", 0.15 * wavelength_m));
+}
+
+// How far an azimuth is from broadside to a wire along x (90 or 270 deg), degrees.
+double OffBroadside_deg(double azimuth_deg) {
+  return std::abs(std::remainder(azimuth_deg - 90.0, 180.0));
+}
+
+TEST(PatternPhysics, LowDipoleLowAngleGainIsBroadsideAndEqualsBatch) {
+  const std::string path = LowDipolePath("pat_low_batch.wire");
+  const nlohmann::json doc = PatternJson({"pattern", path, "--json"});
+  EXPECT_NEAR(doc["max_gain_elevation_deg"].get<double>(), 90.0, 0.5);
+  ASSERT_TRUE(doc["low_angle"].is_array());
+  ASSERT_EQ(doc["low_angle"].size(), 5u);
+  const std::vector<double> elevations = {5.0, 10.0, 15.0, 20.0, 30.0};
+  for (std::size_t i = 0; i < elevations.size(); ++i) {
+    const nlohmann::json& row = doc["low_angle"][i];
+    for (const char* key :
+         {"elevation_deg", "azimuth_deg", "gain_dbi", "gain_vertical_dbi", "gain_horizontal_dbi"}) {
+      ASSERT_TRUE(row[key].is_number()) << key;
+    }
+    EXPECT_DOUBLE_EQ(row["elevation_deg"].get<double>(), elevations[i]);
+    // A horizontal dipole radiates best broadside, nothing off its ends (Balanis §4.2,
+    // from memory).
+    EXPECT_NEAR(OffBroadside_deg(row["azimuth_deg"].get<double>()), 0.0, 1e-9) << elevations[i];
+  }
+  // `batch` on the same model, its pattern at the same frequency and step, its low-angle
+  // column at 10 deg: the same figure, as both take the best of the azimuth cut there.
+  const ProgramRun batch = RunWirefield({"batch", path, "--from", "14.1MHz", "--to", "14.3MHz",
+                                         "--points", "2", "--pattern-freq", "14.2MHz",
+                                         "--pattern-step", "1", "--elevation", "10", "--json"});
+  ASSERT_EQ(batch.exit_code, 0) << batch.err;
+  const nlohmann::json rows = nlohmann::json::parse(batch.out)["rows"];
+  ASSERT_EQ(rows.size(), 1u);
+  EXPECT_DOUBLE_EQ(rows[0]["gain_at_elevation_dbi"].get<double>(),
+                   doc["low_angle"][1]["gain_dbi"].get<double>());
+  EXPECT_DOUBLE_EQ(rows[0]["gain_at_elevation_azimuth_deg"].get<double>(),
+                   doc["low_angle"][1]["azimuth_deg"].get<double>());
+}
+
+TEST(PatternPhysics, LowDipoleCutsRunBroadsideAndAtALowAngle) {
+  const std::string path = LowDipolePath("pat_low_cuts.wire");
+  const nlohmann::json doc = PatternJson({"pattern", path, "--json"});
+  const nlohmann::json& elevation = doc["elevation_cut"];
+  EXPECT_NEAR(OffBroadside_deg(elevation["fixed_angle_deg"].get<double>()), 0.0, 1e-9);
+  EXPECT_EQ(elevation["chosen_by"], "strongest_low_angle");
+  // Not a circle around the zenith: the documented low angle, 10 deg.
+  const nlohmann::json& azimuth = doc["azimuth_cut"];
+  EXPECT_DOUBLE_EQ(azimuth["fixed_angle_deg"].get<double>(), 10.0);
+  EXPECT_EQ(azimuth["chosen_by"], "low_angle_near_zenith");
+  // Broadside strong, toward the ends weak (Balanis §4.2, from memory): a figure of eight,
+  // where a circle near the zenith would vary by a fraction of a dB. Toward the ends at
+  // 10 deg the wire is seen 10 deg off its axis, so not a deep null: 10 dB is ample.
+  const std::vector<double> gains = azimuth["gain_dbi"].get<std::vector<double>>();
+  const auto [lo, hi] = std::minmax_element(gains.begin(), gains.end());
+  EXPECT_GT(*hi - *lo, 10.0);
+}
+
+TEST(PatternText, LowDipoleReportSaysWhereItsCutsAreAndWhy) {
+  const ProgramRun run = RunWirefield({"pattern", LowDipolePath("pat_low_text.wire")});
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  EXPECT_NE(run.out.find("azimuth cut at elevation 10 deg: "), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("where: a low angle, 10 deg (batch's default elevation), as the maximum "
+                         "is at 90 deg,\n    above 60 deg"),
+            std::string::npos)
+      << run.out;
+  EXPECT_NE(run.out.find("elevation cut through azimuth 90 deg and its back: "), std::string::npos)
+      << run.out;
+  EXPECT_NE(run.out.find("where: the strongest direction at low angles"), std::string::npos)
+      << run.out;
+  EXPECT_NE(run.out.find("straight up; azimuth does not apply"), std::string::npos) << run.out;
+  EXPECT_EQ(run.out.find("horizontal none"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("the best gain over azimuth at each elevation"), std::string::npos)
+      << run.out;
+}
+
+// The negative numbers of the text report above its power budget (gains and ratios), but
+// for the floor's own "below -40 dB of max".
+std::vector<double> NegativeNumbers(const std::string& text) {
+  std::vector<double> values;
+  const std::string head = std::regex_replace(text.substr(0, text.find("Power budget")),
+                                              std::regex("below -40 dB of max"), "");
+  const std::regex number("-[0-9]+(\\.[0-9]+)?");
+  for (auto it = std::sregex_iterator(head.begin(), head.end(), number);
+       it != std::sregex_iterator(); ++it) {
+    values.push_back(std::stod(it->str()));
+  }
+  return values;
+}
+
+TEST(PatternText, FreeSpaceDipolePrintsNoGainFarBelowItsMaximumRaw) {
+  // A dipole along x radiates no vertically polarized field broadside in free space (its
+  // field is parallel to the wire there, Balanis §4.2, from memory); the exact figure would
+  // be numerical noise.
+  const std::string path = WriteScratchFile("pat_free_floor.wire", DipoleModel("free", 10.0));
+  const nlohmann::json doc = PatternJson({"pattern", path, "--json"});
+  const double max_dbi = doc["max_gain_dbi"].get<double>();
+  const ProgramRun run = RunWirefield({"pattern", path});
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  for (const double value : NegativeNumbers(run.out)) {
+    EXPECT_GE(value, max_dbi - 40.0) << run.out;
+  }
+  EXPECT_NE(run.out.find("vertical below -40 dB of max"), std::string::npos) << run.out;
+  // The JSON keeps the number (below the floor, above the -999 of no radiation at all).
+  EXPECT_LT(doc["max_gain_vertical_dbi"].get<double>(), max_dbi - 40.0);
 }
 
 // --- text -----------------------------------------------------------------------------------

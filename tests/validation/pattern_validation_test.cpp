@@ -3,7 +3,10 @@
 // ground (image array factor), polarisation, and energy conservation.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
+#include <iterator>
+#include <numbers>
 
 #include "validation/reference/induced_emf.hpp"
 #include "validation/test_models.hpp"
@@ -99,6 +102,107 @@ TEST(HorizontalDipoleInFreeSpace, ReportsItsMaximumOnTheHorizonBroadside) {
   EXPECT_FALSE(p.elevation_cut.beamwidth_deg.has_value());
   ASSERT_TRUE(p.azimuth_cut.beamwidth_deg.has_value());
   EXPECT_NEAR(*p.azimuth_cut.beamwidth_deg, 78.0, 1.0);  // Balanis §4.6 (from memory)
+}
+
+// A horizontal half-wave dipole along x, 0.2 wavelength over a perfect ground: below a
+// quarter wavelength its maximum is at the zenith (image theory, as above).
+Solved LowDipoleOverPerfectGround() {
+  Model m = HorizontalDipole(0.5, 1e-4, 41, 0.2);
+  m.ground.kind = GroundKind::kPerfect;
+  return SolveModel(m);
+}
+
+// |2 sin(k h sin(elevation))|, the array factor of a horizontal current and its reversed image
+// over a perfect ground (Balanis, Antenna Theory, 3rd ed., §4.7.2, from memory; REFERENCES.md
+// §1), in dB; h in wavelengths.
+double ImageArrayFactorDb(double height_wavelengths, double elevation_deg) {
+  const double kh = 2.0 * std::numbers::pi * height_wavelengths;
+  return 20.0 * std::log10(std::abs(
+                    2.0 * std::sin(kh * std::sin(elevation_deg * std::numbers::pi / 180.0))));
+}
+
+TEST(LowHorizontalDipoleOverPerfectGround, LowAngleGainIsTakenBroadside) {
+  // The maximum is straight up, where azimuth means nothing; toward low angles a horizontal
+  // dipole radiates best broadside to its wire (azimuth 90 or 270 for a wire along x) and
+  // nothing off its ends (the current element's sin pattern, Balanis §4.2, from memory).
+  const Solved s = LowDipoleOverPerfectGround();
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  EXPECT_NEAR(p.max_gain_elevation_deg, 90.0, 0.5);
+  ASSERT_EQ(p.low_angle.size(), std::size(kLowAngleElevations_deg));
+  for (std::size_t i = 0; i < p.low_angle.size(); ++i) {
+    const DirectionGain& row = p.low_angle[i];
+    EXPECT_EQ(row.elevation_deg, kLowAngleElevations_deg[i]);
+    EXPECT_NEAR(std::fmod(row.azimuth_deg, 180.0), 90.0, 1e-9) << "elevation " << row.elevation_deg;
+    // The best over azimuth is no lower than any sample of a cut through that elevation.
+    const FarFieldPoint off_end = FarField(s.sim, s.result, row.elevation_deg, 0.0);
+    EXPECT_GT(row.gain_dbi, off_end.gain_dbi + 3.0) << "elevation " << row.elevation_deg;
+  }
+  // The default cuts: the elevation cut through broadside, the azimuth cut at a low angle
+  // rather than a circle around the zenith.
+  EXPECT_NEAR(std::fmod(p.elevation_cut.fixed_angle_deg, 180.0), 90.0, 1e-9);
+  EXPECT_EQ(p.elevation_cut.choice, CutChoice::kStrongestLowAngle);
+  EXPECT_EQ(p.azimuth_cut.fixed_angle_deg, kLowAzimuthCutElevation_deg);
+  EXPECT_EQ(p.azimuth_cut.choice, CutChoice::kLowAngleNearZenith);
+}
+
+TEST(LowHorizontalDipoleOverPerfectGround, BroadsideGainFollowsTheImageArrayFactor) {
+  // Broadside (the y-z plane) every point of the wire is equally far from the observer but
+  // for its height, so the pattern there is the image array factor times a constant: the gain
+  // differences between elevations are those of |2 sin(k h sin(elevation))| exactly (Balanis
+  // §4.7.2, from memory). 0.01 dB: only the quadrature of the far-field integral differs.
+  const double kTolerance_db = 0.01;
+  const Solved s = LowDipoleOverPerfectGround();
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  const DirectionGain& reference = p.low_angle.back();  // 30 deg
+  for (const DirectionGain& row : p.low_angle) {
+    EXPECT_NEAR(row.gain_dbi - reference.gain_dbi,
+                ImageArrayFactorDb(0.2, row.elevation_deg) - ImageArrayFactorDb(0.2, 30.0),
+                kTolerance_db)
+        << "elevation " << row.elevation_deg;
+    // All of it horizontally polarized (the field is parallel to the wire there).
+    EXPECT_NEAR(row.gain_horizontal_dbi, row.gain_dbi, 1e-9);
+  }
+  // The default elevation cut runs broadside: the same law up to the zenith (angle 90).
+  const PatternCut& cut = p.elevation_cut;
+  const auto gain_at = [&](double angle_deg) {
+    const auto i = std::find(cut.angle_deg.begin(), cut.angle_deg.end(), angle_deg);
+    EXPECT_NE(i, cut.angle_deg.end()) << angle_deg;
+    return cut.gain_dbi[static_cast<std::size_t>(i - cut.angle_deg.begin())];
+  };
+  for (const double el : {3.0, 10.0, 25.0, 45.0, 60.0, 80.0}) {
+    EXPECT_NEAR(gain_at(el) - gain_at(90.0),
+                ImageArrayFactorDb(0.2, el) - ImageArrayFactorDb(0.2, 90.0), kTolerance_db)
+        << "elevation " << el;
+  }
+}
+
+TEST(PatternCuts, GivenAzimuthAndElevationFixTheCuts) {
+  const Solved s = LowDipoleOverPerfectGround();
+  PatternOptions options;
+  options.elevation_cut_azimuth_deg = 45.0;
+  options.azimuth_cut_elevation_deg = 25.0;
+  const PatternResult p = ComputePattern(s.sim, s.result, options);
+  EXPECT_EQ(p.elevation_cut.fixed_angle_deg, 45.0);
+  EXPECT_EQ(p.elevation_cut.choice, CutChoice::kGiven);
+  EXPECT_EQ(p.azimuth_cut.fixed_angle_deg, 25.0);
+  EXPECT_EQ(p.azimuth_cut.choice, CutChoice::kGiven);
+  // The elevation cut at 45 deg azimuth agrees with the far field there (same evaluator).
+  EXPECT_NEAR(p.elevation_cut.gain_dbi[20], FarField(s.sim, s.result, 20.0, 45.0).gain_dbi, 1e-9);
+  options.elevation_cut_azimuth_deg = 361.0;
+  EXPECT_THROW(ComputePattern(s.sim, s.result, options), InputError);
+}
+
+TEST(DipoleHalfAWavelengthUp, AzimuthCutStaysAtTheTakeOffAngle) {
+  // A lobe at 30 deg (image theory, above) is not near the zenith: the azimuth cut is taken
+  // through it, and the elevation cut through its azimuth (broadside).
+  Model m = HorizontalDipole(0.5, 1e-4, 41, 0.5);
+  m.ground.kind = GroundKind::kPerfect;
+  const Solved s = SolveModel(m);
+  const PatternResult p = ComputePattern(s.sim, s.result);
+  EXPECT_EQ(p.azimuth_cut.choice, CutChoice::kTakeoff);
+  EXPECT_EQ(p.azimuth_cut.fixed_angle_deg, p.takeoff_elevation_deg);
+  EXPECT_NEAR(p.takeoff_elevation_deg, 30.0, 0.5);
+  EXPECT_EQ(p.elevation_cut.fixed_angle_deg, p.max_gain_azimuth_deg);
 }
 
 TEST(PowerBalance, LosslessModelsRadiateTheirInputPower) {

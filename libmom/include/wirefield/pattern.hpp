@@ -26,12 +26,51 @@ struct FarFieldPoint {
 };
 inline constexpr double kNoGainDbi = -999.0;
 
+// The elevations of the low-angle table, degrees: those that carry long-distance contacts,
+// the ones portable operators compare antennas at (common practice).
+inline constexpr double kLowAngleElevations_deg[] = {5.0, 10.0, 15.0, 20.0, 30.0};
+// A maximum above this elevation (degrees) is "near the zenith": an azimuth cut there is a
+// small circle that says nothing about directions toward the horizon, so the default azimuth
+// cut is taken at kLowAzimuthCutElevation_deg instead.
+inline constexpr double kNearZenithElevation_deg = 60.0;
+// The elevation of the default azimuth cut when the maximum is near the zenith: the elevation
+// `batch` compares antennas at by default (its --elevation), so both commands quote one
+// figure.
+inline constexpr double kLowAzimuthCutElevation_deg = 10.0;
+// The text report prints a gain more than this far below the maximum (dB) as "below -40 dB
+// of max": the field there is a null of the pattern, whose exact depth is numerical noise
+// (a symmetric null comes out as -300 dBi or less).
+inline constexpr double kTextFloor_db = 40.0;
+
 struct PatternOptions {
   // Grid step of the search for the maximum and of the cuts, degrees. Default 1; smaller is
   // finer and slower (the cost grows as 1/step^2 for the search).
   double step_deg = 1.0;
-  // Elevation of the azimuth cut, degrees; default the take-off angle (elevation of max).
+  // Elevation of the azimuth cut, degrees; default the take-off angle, or
+  // kLowAzimuthCutElevation_deg when the maximum is near the zenith.
   std::optional<double> azimuth_cut_elevation_deg;
+  // Azimuth of the elevation cut, degrees (0..360); default the strongest low-angle
+  // direction (PatternResult::low_angle).
+  std::optional<double> elevation_cut_azimuth_deg;
+};
+
+// The best gain over azimuth at one elevation: the maximum of the azimuth cut there, on the
+// pattern's grid (the first azimuth of equal ones), with its polarization parts.
+struct DirectionGain {
+  double elevation_deg = 0.0;
+  double azimuth_deg = 0.0;
+  double gain_dbi = 0.0;
+  double gain_vertical_dbi = 0.0;
+  double gain_horizontal_dbi = 0.0;
+};
+
+// Why a cut lies where it does.
+enum class CutChoice {
+  kGiven,               // the options fixed it (--azimuth, --elevation)
+  kStrongestLowAngle,   // elevation cut: through the azimuth of the strongest low-angle gain
+  kTakeoff,             // azimuth cut: at the take-off angle
+  kLowAngleNearZenith,  // azimuth cut: at kLowAzimuthCutElevation_deg, the maximum being
+                        // near the zenith
 };
 
 // One cut: gain against angle (elevation 0..180 through the azimuth of the maximum and its
@@ -43,7 +82,8 @@ struct PatternCut {
   std::vector<double> gain_dbi;
   std::vector<double> gain_vertical_dbi;
   std::vector<double> gain_horizontal_dbi;
-  std::optional<double> beamwidth_deg;  // -3 dB width of the main lobe, when it closes
+  std::optional<double> beamwidth_deg;   // -3 dB width of the main lobe, when it closes
+  CutChoice choice = CutChoice::kGiven;  // why fixed_angle_deg is what it is
 };
 
 // Where the power goes. input = sum of 0.5 Re(V I*) over feeds.
@@ -65,7 +105,11 @@ struct PatternResult {
   double max_gain_dbi = 0.0;
   double max_gain_elevation_deg = 0.0;
   double max_gain_azimuth_deg = 0.0;
+  double max_gain_vertical_dbi = 0.0;  // the polarization parts in the direction of the maximum
+  double max_gain_horizontal_dbi = 0.0;
   double takeoff_elevation_deg = 0.0;  // elevation of maximum radiation
+  // The best gain over azimuth at each of kLowAngleElevations_deg, in that order.
+  std::vector<DirectionGain> low_angle;
   PatternCut elevation_cut;
   PatternCut azimuth_cut;
   std::optional<double> front_to_back_db;  // when the azimuth cut has a clear front
@@ -77,6 +121,11 @@ struct PatternResult {
 // The far field of a solved model in one direction.
 FarFieldPoint FarField(const Simulation& simulation, const SolveResult& solved,
                        double elevation_deg, double azimuth_deg);
+
+// The best sample of an azimuth cut (the first of those within 1e-9 dB of it, so that equal
+// lobes differing by rounding keep a stable choice; the cut's repeated 360 deg never wins
+// over 0 deg): the low-angle gain of `pattern` and `batch`.
+DirectionGain BestOverAzimuth(const PatternCut& azimuth_cut);
 
 // Gain search, cuts, figures of merit and the power budget.
 PatternResult ComputePattern(const Simulation& simulation, const SolveResult& solved,

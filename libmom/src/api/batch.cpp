@@ -197,11 +197,9 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
     figures.max_gain_dbi = pattern.max_gain_dbi;
     figures.max_gain_azimuth_deg = pattern.max_gain_azimuth_deg;
     figures.takeoff_deg = pattern.takeoff_elevation_deg;
-    const std::vector<double>& gains = pattern.azimuth_cut.gain_dbi;
-    const size_t best =
-        static_cast<size_t>(std::max_element(gains.begin(), gains.end()) - gains.begin());
-    figures.gain_at_elevation_dbi = gains.at(best);
-    figures.gain_at_elevation_azimuth_deg = pattern.azimuth_cut.angle_deg.at(best);
+    const DirectionGain best = BestOverAzimuth(pattern.azimuth_cut);
+    figures.gain_at_elevation_dbi = best.gain_dbi;
+    figures.gain_at_elevation_azimuth_deg = best.azimuth_deg;
     figures.efficiency = pattern.power.efficiency;
     pattern_warnings.insert(pattern_warnings.end(), pattern.warnings.begin(),
                             pattern.warnings.end());

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <vector>
 
 #include "core/constants.hpp"
 #include "post/far_field.hpp"
@@ -94,6 +95,15 @@ void Append(PatternCut* cut, double angle_deg, const FarFieldPoint& p) {
   cut->gain_horizontal_dbi.push_back(p.gain_horizontal_dbi);
 }
 
+// The azimuth cut at one elevation: 0..360 deg, both ends included.
+PatternCut AzimuthCut(const Evaluator& eval, double elevation_deg, int n_az, double step) {
+  PatternCut cut;
+  cut.plane = "azimuth";
+  cut.fixed_angle_deg = elevation_deg;
+  for (int ia = 0; ia <= n_az; ++ia) Append(&cut, ia * step, eval.At(elevation_deg, ia * step));
+  return cut;
+}
+
 // Width of the region within 3 dB of the cut's maximum that contains it, with linear
 // interpolation at the crossings. circular: the cut wraps around (azimuth).
 std::optional<double> Beamwidth(const PatternCut& cut, bool circular) {
@@ -128,6 +138,29 @@ std::optional<double> Beamwidth(const PatternCut& cut, bool circular) {
 
 }  // namespace
 
+DirectionGain BestOverAzimuth(const PatternCut& azimuth_cut) {
+  const std::vector<double>& gains = azimuth_cut.gain_dbi;
+  if (gains.empty() || azimuth_cut.angle_deg.size() != gains.size() ||
+      azimuth_cut.gain_vertical_dbi.size() != gains.size() ||
+      azimuth_cut.gain_horizontal_dbi.size() != gains.size()) {
+    throw ComputationError("internal error: the azimuth cut is empty or its arrays differ");
+  }
+  // The first sample within kTieDb of the maximum: a symmetric pattern's equal lobes differ
+  // by rounding only, and the first keeps the choice stable.
+  constexpr double kTieDb = 1e-9;
+  const double best_dbi = *std::max_element(gains.begin(), gains.end());
+  const auto i = static_cast<std::size_t>(
+      std::find_if(gains.begin(), gains.end(), [&](double g) { return g >= best_dbi - kTieDb; }) -
+      gains.begin());
+  DirectionGain best;
+  best.elevation_deg = azimuth_cut.fixed_angle_deg;
+  best.azimuth_deg = azimuth_cut.angle_deg[i];
+  best.gain_dbi = gains[i];
+  best.gain_vertical_dbi = azimuth_cut.gain_vertical_dbi[i];
+  best.gain_horizontal_dbi = azimuth_cut.gain_horizontal_dbi[i];
+  return best;
+}
+
 FarFieldPoint FarField(const Simulation& simulation, const SolveResult& solved,
                        double elevation_deg, double azimuth_deg) {
   return MakeEvaluator(simulation, solved).At(elevation_deg, azimuth_deg);
@@ -140,8 +173,19 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
                      fmt::format("the pattern step must be above 0 and at most 10 degrees, not {}",
                                  options.step_deg));
   }
-  const Evaluator eval = MakeEvaluator(simulation, solved);
   const bool over_ground = simulation.model().ground.kind != GroundKind::kFree;
+  if (const auto& el = options.azimuth_cut_elevation_deg;
+      el && (!(*el >= (over_ground ? 0.0 : -90.0)) || !(*el <= 90.0))) {
+    throw InputError({"--elevation", 0, 0},
+                     fmt::format("the azimuth cut's elevation must lie in {}..90 degrees, not {}",
+                                 over_ground ? 0 : -90, *el));
+  }
+  if (const auto& az = options.elevation_cut_azimuth_deg; az && !(*az >= 0.0 && *az <= 360.0)) {
+    throw InputError(
+        {"--azimuth", 0, 0},
+        fmt::format("the elevation cut's azimuth must lie in 0..360 degrees, not {}", *az));
+  }
+  const Evaluator eval = MakeEvaluator(simulation, solved);
   PatternResult r;
   r.frequency_hz = solved.frequency_hz;
   // A whole number of steps per 90 degrees, no coarser than asked.
@@ -230,16 +274,46 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
     if (std::abs(r.max_gain_elevation_deg) < 1e-9) r.max_gain_elevation_deg = 0.0;
   }
 
-  // Elevation cut in the vertical plane of the maximum: angle 0 is the horizon toward the
-  // maximum, 90 the zenith, 180 the horizon behind (in free space it continues below).
+  const FarFieldPoint at_max = eval.At(r.max_gain_elevation_deg, r.max_gain_azimuth_deg);
+  r.max_gain_vertical_dbi = at_max.gain_vertical_dbi;
+  r.max_gain_horizontal_dbi = at_max.gain_horizontal_dbi;
+  // Take-off angle: elevation of the strongest radiation in the plane of the maximum, toward
+  // the front.
+  r.takeoff_elevation_deg = r.max_gain_elevation_deg;
+
+  // The low-angle table: the azimuth cut at each low elevation and its best sample.
+  std::vector<PatternCut> low_cuts;
+  for (double el : kLowAngleElevations_deg) {
+    low_cuts.push_back(AzimuthCut(eval, el, n_az, step));
+    r.low_angle.push_back(BestOverAzimuth(low_cuts.back()));
+  }
+
+  // Elevation cut: angle 0 is the horizon toward its azimuth, 90 the zenith, 180 the horizon
+  // behind (in free space it continues below). By default its azimuth is that of the
+  // strongest low-angle gain; when the maximum's own azimuth does as well there (a vertical's
+  // circle, a beam's main lobe), that one, so the cut also passes through the maximum.
+  double cut_az = 0.0;
+  if (options.elevation_cut_azimuth_deg) {
+    cut_az = std::fmod(*options.elevation_cut_azimuth_deg, 360.0);
+    r.elevation_cut.choice = CutChoice::kGiven;
+  } else {
+    const DirectionGain strongest = *std::max_element(
+        r.low_angle.begin(), r.low_angle.end(),
+        [](const DirectionGain& a, const DirectionGain& b) { return a.gain_dbi < b.gain_dbi; });
+    cut_az =
+        gain_at(strongest.elevation_deg, r.max_gain_azimuth_deg) >= strongest.gain_dbi - kLobeTieDb
+            ? r.max_gain_azimuth_deg
+            : strongest.azimuth_deg;
+    r.elevation_cut.choice = CutChoice::kStrongestLowAngle;
+  }
   r.elevation_cut.plane = "elevation";
-  r.elevation_cut.fixed_angle_deg = r.max_gain_azimuth_deg;
+  r.elevation_cut.fixed_angle_deg = cut_az;
   const int cut_hi = over_ground ? 2 * per_quadrant : 3 * per_quadrant;
   const int cut_lo = over_ground ? 0 : -per_quadrant;
   for (int i = cut_lo; i <= cut_hi; ++i) {
     const double a = i * step;
     const double el = a <= 90.0 ? a : 180.0 - a;
-    const double az = a <= 90.0 ? r.max_gain_azimuth_deg : r.max_gain_azimuth_deg + 180.0;
+    const double az = a <= 90.0 ? cut_az : cut_az + 180.0;
     Append(&r.elevation_cut, a, eval.At(el, std::fmod(az, 360.0)));
   }
   if (over_ground) {
@@ -250,19 +324,23 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
     closed.gain_dbi.pop_back();
     r.elevation_cut.beamwidth_deg = Beamwidth(closed, true);
   }
-  // Take-off angle: elevation of the strongest radiation in that plane, toward the front.
-  r.takeoff_elevation_deg = r.max_gain_elevation_deg;
 
-  // Azimuth cut.
-  const double cut_el = options.azimuth_cut_elevation_deg.value_or(r.takeoff_elevation_deg);
-  if (!(cut_el >= (over_ground ? 0.0 : -90.0)) || !(cut_el <= 90.0)) {
-    throw InputError({"--elevation", 0, 0},
-                     fmt::format("the azimuth cut's elevation must lie in {}..90 degrees, not {}",
-                                 over_ground ? 0 : -90, cut_el));
+  // Azimuth cut: at the take-off angle, unless the maximum is near the zenith, where that
+  // would be a small circle around it; then at a low angle.
+  CutChoice az_choice = CutChoice::kTakeoff;
+  double cut_el = r.takeoff_elevation_deg;
+  if (options.azimuth_cut_elevation_deg) {
+    cut_el = *options.azimuth_cut_elevation_deg;
+    az_choice = CutChoice::kGiven;
+  } else if (std::abs(r.takeoff_elevation_deg) > kNearZenithElevation_deg) {
+    cut_el = kLowAzimuthCutElevation_deg;
+    az_choice = CutChoice::kLowAngleNearZenith;
   }
-  r.azimuth_cut.plane = "azimuth";
-  r.azimuth_cut.fixed_angle_deg = cut_el;
-  for (int ia = 0; ia <= n_az; ++ia) Append(&r.azimuth_cut, ia * step, eval.At(cut_el, ia * step));
+  const auto same_cut = std::find_if(low_cuts.begin(), low_cuts.end(), [&](const PatternCut& c) {
+    return c.fixed_angle_deg == cut_el;
+  });
+  r.azimuth_cut = same_cut != low_cuts.end() ? *same_cut : AzimuthCut(eval, cut_el, n_az, step);
+  r.azimuth_cut.choice = az_choice;
   {
     PatternCut closed = r.azimuth_cut;  // without the repeated 360
     closed.angle_deg.pop_back();

@@ -1,7 +1,8 @@
 // Report stage: a computed radiation pattern (PatternResult plus the Simulation's model) as a
 // readable text report, the `pattern` command's JSON document and a CSV of both cuts
 // (docs/commands.md). Every number is checked to be finite first; no radiation (kNoGainDbi)
-// reads "none" in text and -999 in JSON and CSV.
+// reads "none" in text and -999 in JSON and CSV. The text prints a gain more than
+// kTextFloor_db below the maximum as "below -40 dB of max"; JSON and CSV keep the number.
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -55,6 +56,15 @@ void CheckPattern(const PatternResult& pattern) {
   CheckNumber(pattern.max_gain_elevation_deg, "elevation of the maximum");
   CheckNumber(pattern.max_gain_azimuth_deg, "azimuth of the maximum");
   CheckNumber(pattern.takeoff_elevation_deg, "take-off angle");
+  CheckNumber(pattern.max_gain_vertical_dbi, "vertical gain at the maximum");
+  CheckNumber(pattern.max_gain_horizontal_dbi, "horizontal gain at the maximum");
+  for (const DirectionGain& row : pattern.low_angle) {
+    CheckNumber(row.elevation_deg, "low-angle elevation");
+    CheckNumber(row.azimuth_deg, "low-angle azimuth");
+    CheckNumber(row.gain_dbi, "low-angle gain");
+    CheckNumber(row.gain_vertical_dbi, "low-angle vertical gain");
+    CheckNumber(row.gain_horizontal_dbi, "low-angle horizontal gain");
+  }
   CheckCut(pattern.elevation_cut);
   CheckCut(pattern.azimuth_cut);
   if (pattern.front_to_back_db) CheckNumber(*pattern.front_to_back_db, "front-to-back ratio");
@@ -96,42 +106,74 @@ std::string ModelFileName(const std::string& path) {
 
 namespace {
 
-// Elevations that carry long-distance contacts, the ones portable operators compare
-// antennas at (common practice).
-constexpr double kLowElevations_deg[] = {5.0, 10.0, 15.0, 20.0, 30.0};
-
 // Power the "at 100 W" line scales the budget to: a common HF transmitter output (common
 // practice). The budget is linear in power, so this only rescales.
 constexpr double kScaledPower_w = 100.0;
 
-// The sample of the elevation cut on the front side (0..90 deg) nearest to elevation_deg.
-std::optional<std::size_t> NearestFrontSample(const PatternCut& cut, double elevation_deg) {
-  std::optional<std::size_t> best;
-  for (std::size_t i = 0; i < cut.angle_deg.size(); ++i) {
-    const double angle = cut.angle_deg[i];
-    if (angle < -1e-9 || angle > 90.0 + 1e-9) continue;
-    if (!best || std::abs(angle - elevation_deg) < std::abs(cut.angle_deg[*best] - elevation_deg)) {
-      best = i;
-    }
-  }
-  return best;
-}
-
-// The sample of a cut nearest to angle_deg, when it lies within tolerance_deg of it.
-std::optional<std::size_t> SampleAt(const PatternCut& cut, double angle_deg, double tolerance_deg) {
-  std::optional<std::size_t> best;
-  for (std::size_t i = 0; i < cut.angle_deg.size(); ++i) {
-    if (!best ||
-        std::abs(cut.angle_deg[i] - angle_deg) < std::abs(cut.angle_deg[*best] - angle_deg)) {
-      best = i;
-    }
-  }
-  if (best && std::abs(cut.angle_deg[*best] - angle_deg) <= tolerance_deg + 1e-9) return best;
-  return {};
-}
-
 std::string GainWithUnit(double gain_dbi) {
   return IsNoGain(gain_dbi) ? "none" : GainText(gain_dbi) + " dBi";
+}
+
+// True when a gain lies more than kTextFloor_db below the maximum (or is no radiation at all
+// while something radiates): a null whose printed depth would be numerical noise.
+bool BelowFloor(double gain_dbi, double max_gain_dbi) {
+  return !IsNoGain(max_gain_dbi) && (IsNoGain(gain_dbi) || gain_dbi < max_gain_dbi - kTextFloor_db);
+}
+
+// A gain as the text report prints it: "below -40 dB of max" under the floor, else the value
+// (with " dBi" when `unit`).
+std::string FlooredGainText(double gain_dbi, double max_gain_dbi, bool unit) {
+  if (BelowFloor(gain_dbi, max_gain_dbi))
+    return fmt::format("below -{:.0f} dB of max", kTextFloor_db);
+  return unit ? GainWithUnit(gain_dbi) : GainText(gain_dbi);
+}
+
+// A ratio of gains in dB (front-to-back, how far below the maximum), "more than 40 dB" past
+// the floor.
+std::string FlooredRatioText(double ratio_db, bool unit) {
+  if (ratio_db > kTextFloor_db)
+    return fmt::format("more than {:.0f}{}", kTextFloor_db, unit ? " dB" : "");
+  return fmt::format("{:.2f}{}", ratio_db, unit ? " dB" : "");
+}
+
+// Why the elevation cut lies at its azimuth, in words.
+std::string ElevationCutReason(const PatternCut& cut) {
+  return cut.choice == CutChoice::kGiven
+             ? "as asked with --azimuth"
+             : "the strongest direction at low angles (the best row of the table above)";
+}
+
+// Why the azimuth cut lies at its elevation, in words.
+std::string AzimuthCutReason(const PatternResult& pattern) {
+  switch (pattern.azimuth_cut.choice) {
+    case CutChoice::kGiven:
+      return "as asked with --elevation";
+    case CutChoice::kLowAngleNearZenith:
+      return fmt::format(
+          "a low angle, {} deg (batch's default elevation), as the maximum is at {} deg,\n"
+          "    above {:.0f} deg: near the zenith an azimuth cut is a small circle around it",
+          AngleText(kLowAzimuthCutElevation_deg), AngleText(pattern.takeoff_elevation_deg),
+          kNearZenithElevation_deg);
+    case CutChoice::kTakeoff:
+    case CutChoice::kStrongestLowAngle:
+      break;
+  }
+  return "the take-off angle";
+}
+
+// The JSON name of a cut's choice.
+std::string ChoiceName(CutChoice choice) {
+  switch (choice) {
+    case CutChoice::kGiven:
+      return "option";
+    case CutChoice::kStrongestLowAngle:
+      return "strongest_low_angle";
+    case CutChoice::kTakeoff:
+      return "takeoff";
+    case CutChoice::kLowAngleNearZenith:
+      return "low_angle_near_zenith";
+  }
+  return "option";
 }
 
 std::string Watts(double power_w) {
@@ -167,6 +209,7 @@ nlohmann::json CutJson(const PatternCut& cut) {
   out["gain_vertical_dbi"] = GainArray(cut.gain_vertical_dbi);
   out["gain_horizontal_dbi"] = GainArray(cut.gain_horizontal_dbi);
   out["beamwidth_deg"] = cut.beamwidth_deg ? nlohmann::json(*cut.beamwidth_deg) : nullptr;
+  out["chosen_by"] = ChoiceName(cut.choice);
   return out;
 }
 
@@ -195,59 +238,65 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
       "and refined off it\n",
       AngleText(pattern.step_deg));
 
+  const double max_dbi = pattern.max_gain_dbi;
+  const bool zenith = std::abs(pattern.max_gain_elevation_deg) >= 90.0 - 1e-6;
   out += "\nMaximum\n";
-  out += fmt::format("  gain             {} at elevation {} deg, azimuth {} deg\n",
-                     report::GainWithUnit(pattern.max_gain_dbi),
-                     AngleText(pattern.max_gain_elevation_deg),
-                     AngleText(pattern.max_gain_azimuth_deg));
+  out += fmt::format(
+      "  gain             {} at elevation {} deg{}\n", report::GainWithUnit(max_dbi),
+      AngleText(pattern.max_gain_elevation_deg),
+      zenith ? " (straight up; azimuth does not apply)"
+             : fmt::format(", azimuth {} deg", AngleText(pattern.max_gain_azimuth_deg)));
   out += fmt::format("  take-off angle   {} deg (elevation of the main lobe toward the front)\n",
                      AngleText(pattern.takeoff_elevation_deg));
-  const PatternCut& elevation = pattern.elevation_cut;
-  if (auto at_max =
-          report::SampleAt(elevation, pattern.max_gain_elevation_deg, pattern.step_deg / 2.0)) {
-    out += fmt::format("  polarization     vertical {}, horizontal {} (at elevation {} deg)\n",
-                       report::GainWithUnit(elevation.gain_vertical_dbi[*at_max]),
-                       report::GainWithUnit(elevation.gain_horizontal_dbi[*at_max]),
-                       AngleText(elevation.angle_deg[*at_max]));
+  if (std::abs(pattern.max_gain_elevation_deg) > kNearZenithElevation_deg) {
+    out += fmt::format(
+        "  polarization     not split above {:.0f} deg elevation: near the zenith even the "
+        "vertical part\n                   lies nearly horizontal (the low-angle table splits "
+        "it)\n",
+        kNearZenithElevation_deg);
+  } else {
+    out += fmt::format("  polarization     vertical {}, horizontal {} (at the maximum)\n",
+                       report::FlooredGainText(pattern.max_gain_vertical_dbi, max_dbi, true),
+                       report::FlooredGainText(pattern.max_gain_horizontal_dbi, max_dbi, true));
   }
 
-  if (!elevation.angle_deg.empty()) {
-    out += fmt::format("\nLow angles, toward azimuth {} deg (long-distance contacts)\n",
-                       AngleText(elevation.fixed_angle_deg));
+  if (!pattern.low_angle.empty()) {
+    out += "\nLow angles (long-distance contacts): the best gain over azimuth at each elevation\n";
     TextTable low;
     low.AddColumn("elevation (deg)", Align::kRight);
+    low.AddColumn("azimuth (deg)", Align::kRight);
     low.AddColumn("gain (dBi)", Align::kRight);
     low.AddColumn("vertical (dBi)", Align::kRight);
     low.AddColumn("horizontal (dBi)", Align::kRight);
     low.AddColumn("below max (dB)", Align::kRight);
-    std::vector<std::size_t> shown;
-    for (double target_deg : report::kLowElevations_deg) {
-      const auto i = report::NearestFrontSample(elevation, target_deg);
-      if (!i || std::find(shown.begin(), shown.end(), *i) != shown.end()) continue;
-      shown.push_back(*i);
-      const double gain = elevation.gain_dbi[*i];
-      low.AddRow({AngleText(elevation.angle_deg[*i]), GainText(gain),
-                  GainText(elevation.gain_vertical_dbi[*i]),
-                  GainText(elevation.gain_horizontal_dbi[*i]),
-                  report::IsNoGain(gain) || report::IsNoGain(pattern.max_gain_dbi)
-                      ? "none"
-                      : fmt::format("{:.2f}", pattern.max_gain_dbi - gain)});
+    for (const DirectionGain& row : pattern.low_angle) {
+      const bool none = report::IsNoGain(row.gain_dbi) || report::IsNoGain(max_dbi);
+      low.AddRow({AngleText(row.elevation_deg), AngleText(row.azimuth_deg),
+                  report::FlooredGainText(row.gain_dbi, max_dbi, false),
+                  report::FlooredGainText(row.gain_vertical_dbi, max_dbi, false),
+                  report::FlooredGainText(row.gain_horizontal_dbi, max_dbi, false),
+                  none ? "none" : report::FlooredRatioText(max_dbi - row.gain_dbi, false)});
     }
     out += low.Render(2);
   }
 
+  const PatternCut& elevation = pattern.elevation_cut;
   out += "\nCuts (-3 dB beamwidth of the main lobe)\n";
   out += fmt::format("  elevation cut through azimuth {} deg and its back: {}\n",
                      AngleText(elevation.fixed_angle_deg), report::BeamwidthText(elevation));
+  out += fmt::format("    where: {}\n", report::ElevationCutReason(elevation));
   out += fmt::format("  azimuth cut at elevation {} deg: {}\n",
                      AngleText(pattern.azimuth_cut.fixed_angle_deg),
                      report::BeamwidthText(pattern.azimuth_cut));
+  out += fmt::format("    where: {}\n", report::AzimuthCutReason(pattern));
   out += fmt::format("  front-to-back    {}\n",
-                     pattern.front_to_back_db ? fmt::format("{:.2f} dB", *pattern.front_to_back_db)
-                                              : "none (no clear front in the azimuth cut)");
+                     pattern.front_to_back_db
+                         ? report::FlooredRatioText(*pattern.front_to_back_db, true)
+                         : "none (no clear front in the azimuth cut)");
   out += fmt::format("  front-to-side    {}\n",
-                     pattern.front_to_side_db ? fmt::format("{:.2f} dB", *pattern.front_to_side_db)
-                                              : "none (no clear front in the azimuth cut)");
+                     pattern.front_to_side_db
+                         ? report::FlooredRatioText(*pattern.front_to_side_db, true)
+                         : "none (no clear front in the azimuth cut)");
 
   out += "\nPower budget (share of the power into the feeds)\n";
   TextTable budget;
@@ -321,6 +370,17 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["radiated_power_w"] = pattern.power.radiated_w;
   doc["efficiency"] = pattern.power.efficiency;
   doc["takeoff_elevation_deg"] = pattern.takeoff_elevation_deg;
+  doc["max_gain_vertical_dbi"] = report::GainValue(pattern.max_gain_vertical_dbi);
+  doc["max_gain_horizontal_dbi"] = report::GainValue(pattern.max_gain_horizontal_dbi);
+  doc["low_angle"] = nlohmann::json::array();
+  for (const DirectionGain& row : pattern.low_angle) {
+    doc["low_angle"].push_back(
+        {{"elevation_deg", row.elevation_deg},
+         {"azimuth_deg", row.azimuth_deg},
+         {"gain_dbi", report::GainValue(row.gain_dbi)},
+         {"gain_vertical_dbi", report::GainValue(row.gain_vertical_dbi)},
+         {"gain_horizontal_dbi", report::GainValue(row.gain_horizontal_dbi)}});
+  }
   doc["step_deg"] = pattern.step_deg;
   doc["loads_power_w"] = pattern.power.loads_w;
   doc["wires_power_w"] = pattern.power.wires_w;
