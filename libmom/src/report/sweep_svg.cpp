@@ -44,6 +44,9 @@ const char* const kGridColour = "#cfcfcf";
 const char* const kTextColour = "#222222";
 const char* const kBandFill = "#e8f1e4";
 const char* const kResonanceColour = "#6a3d9a";
+const char* const kResonanceDash = "2 3";
+const char* const kAntennaResonanceColour = "#8c510a";
+const char* const kAntennaResonanceDash = "8 3 2 3";
 
 std::string Text(double x, double y, const std::string& text, int size, const char* anchor,
                  const char* colour = kTextColour, const std::string& extra = "") {
@@ -193,23 +196,34 @@ std::string SwrPlot(const SweepReport& report) {
   }
   out += Text(panels.back().right_px - 4.0, SwrY(2.0) - 5.0, "2:1", 12, "end", kLimitColour);
 
-  // Resonances: a dotted vertical line and the frequency at the bottom of the panel.
-  for (double f_hz : report.sweep.resonances_hz) {
-    for (const Panel& panel : panels) {
-      if (!panel.Holds(f_hz)) continue;
-      const double x = panel.X(f_hz);
-      out += fmt::format(
-          "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
-          "stroke-dasharray=\"2 3\"/>\n",
-          Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), kResonanceColour);
-      // Near the top: at a resonance the SWR is usually low, so the curve is far below.
-      const double label_y = kPlotTop_px + 24.0;
-      out += Text(x + 4.0, label_y, fmt::format("X = 0 at {:.4f} MHz", f_hz / 1e6), 11, "end",
-                  kResonanceColour,
-                  fmt::format(" transform=\"rotate(-90 {} {})\" stroke=\"#ffffff\" "
-                              "stroke-width=\"3\" paint-order=\"stroke\"",
-                              Px(x + 4.0), Px(label_y)));
+  // Resonances: a vertical line per zero crossing of X and its frequency near the top of the
+  // panel (at a resonance the SWR is usually low, so the curve is far below). X = 0 at the
+  // transmitter dotted; with a transformer or line, X = 0 at the antenna terminals dash-dotted
+  // in another colour, its label lower down so the two never cover each other.
+  const bool chain = HasFeedChain(report.sweep);
+  auto resonance_marks = [&](const std::vector<double>& list_hz, const char* colour,
+                             const char* dash, const char* where, double label_y) {
+    for (double f_hz : list_hz) {
+      for (const Panel& panel : panels) {
+        if (!panel.Holds(f_hz)) continue;
+        const double x = panel.X(f_hz);
+        out += fmt::format(
+            "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
+            "stroke-dasharray=\"{}\"/>\n",
+            Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), colour, dash);
+        out += Text(x + 4.0, label_y, fmt::format("X = 0{} at {:.4f} MHz", where, f_hz / 1e6), 11,
+                    "end", colour,
+                    fmt::format(" transform=\"rotate(-90 {} {})\" stroke=\"#ffffff\" "
+                                "stroke-width=\"3\" paint-order=\"stroke\"",
+                                Px(x + 4.0), Px(label_y)));
+      }
     }
+  };
+  resonance_marks(report.sweep.transmitter_resonances_hz, kResonanceColour, kResonanceDash,
+                  chain ? " (transmitter)" : "", kPlotTop_px + 24.0);
+  if (chain) {
+    resonance_marks(report.sweep.resonances_hz, kAntennaResonanceColour, kAntennaResonanceDash,
+                    " (antenna)", kPlotTop_px + 230.0);
   }
   // The predicted curve, one path per panel.
   for (const Panel& panel : panels) {
@@ -284,11 +298,21 @@ std::string SwrPlot(const SweepReport& report) {
                      Px(ly - 5), kBandFill);
   out += Text(lx + 30, ly + 4, "amateur band (ITU)", 12, "start");
   lx += 175;
-  out += fmt::format(
-      "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
-      "stroke-dasharray=\"2 3\"/>\n",
-      Px(lx), Px(ly), Px(lx + 30), Px(ly), kResonanceColour);
-  out += Text(lx + 36, ly + 4, "resonance (X = 0)", 12, "start");
+  auto resonance_legend = [&](const char* colour, const char* dash, const char* label) {
+    out += fmt::format(
+        "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
+        "stroke-dasharray=\"{}\"/>\n",
+        Px(lx), Px(ly), Px(lx + 30), Px(ly), colour, dash);
+    out += Text(lx + 36, ly + 4, label, 12, "start");
+  };
+  if (chain) {
+    resonance_legend(kResonanceColour, kResonanceDash, "X = 0 at the transmitter");
+    lx += 200;
+    resonance_legend(kAntennaResonanceColour, kAntennaResonanceDash,
+                     "X = 0 at the antenna terminals");
+  } else {
+    resonance_legend(kResonanceColour, kResonanceDash, "resonance (X = 0)");
+  }
   out += "</g>\n";
   return out;
 }
