@@ -68,10 +68,9 @@ std::string ResonancesText(const std::vector<double>& antenna_hz,
                            const std::vector<double>& transmitter_hz, bool chain,
                            const std::string& indent) {
   if (!chain) {
-    return fmt::format(
-        "{}resonances (X = 0 at the antenna terminals, where the transmitter "
-        "connects): {}\n",
-        indent, ListMhz(antenna_hz));
+    // The header says the transmitter connects at the terminals.
+    return fmt::format("{}resonances      at the antenna terminals: {}\n", indent,
+                       ListMhz(antenna_hz));
   }
   return fmt::format("{}{:<52}{}\n", indent,
                      "resonances at the antenna terminals (X = 0 there):", ListMhz(antenna_hz)) +
