@@ -185,5 +185,87 @@ TEST(SolveJson, TextReportShowsTheSameImpedanceAsTheJson) {
   EXPECT_NE(text.out.find(expected), std::string::npos) << expected << " not in\n" << text.out;
 }
 
+// --- the two places of a feed with a transformer and a feed line ---------------------------
+
+// A half-wave end-fed wire for 40 m fed through a 3:21 transformer (impedance 1:49) with a
+// lossy core and 10 m of 50 ohm coax (illustrative figures of a generic line).
+std::string EndFedChainPath() {
+  return std::string(WIREFIELD_SOURCE_DIR) + "/tests/models/end_fed_transformer_coax.wire";
+}
+
+std::complex<double> ComplexOf(const nlohmann::json& pair) {
+  return {pair.at(0).get<double>(), pair.at(1).get<double>()};
+}
+
+TEST(SolveJson, FeedWithTransformerAndLineReportsBothPlaces) {
+  const std::string path = EndFedChainPath();
+  const nlohmann::json doc = SolveJson({"solve", path, "--json"});
+  ExpectSolveJsonContract(doc, path);
+  const nlohmann::json& feed = doc.at("feeds").at(0);
+  const double z0_ohm = feed.at("z0_ohm").get<double>();
+  const std::complex<double> z_terminals = ComplexOf(feed.at("z_ohm"));
+  const nlohmann::json& antenna = feed.at("antenna");
+  const nlohmann::json& transmitter = feed.at("transmitter");
+  EXPECT_TRUE(feed.at("has_transformer").get<bool>());
+  EXPECT_TRUE(feed.at("has_line").get<bool>());
+  // z_ohm keeps its contract meaning (the terminals) and the antenna object repeats it.
+  EXPECT_EQ(ComplexOf(antenna.at("z_ohm")), z_terminals);
+  // SWR at each place from that place's impedance by the textbook formula (REFERENCES.md §5,
+  // "Reflection, SWR"): the contract's swr is the transmitter's.
+  EXPECT_NEAR(antenna.at("swr").get<double>(), SwrFromImpedance(z_terminals, z0_ohm),
+              kSwrRelativeTolerance * antenna.at("swr").get<double>());
+  const std::complex<double> z_transmitter = ComplexOf(transmitter.at("z_ohm"));
+  EXPECT_NEAR(transmitter.at("swr").get<double>(), SwrFromImpedance(z_transmitter, z0_ohm),
+              kSwrRelativeTolerance * transmitter.at("swr").get<double>());
+  EXPECT_EQ(feed.at("swr").get<double>(), transmitter.at("swr").get<double>());
+  // Through a 1:49 transformer the kilohm terminals (REFERENCES.md §8, common practice for an
+  // end-fed half wave) come near 50 ohm: the two places differ.
+  EXPECT_GT(std::abs(z_terminals), 1000.0);
+  EXPECT_LT(std::abs(z_transmitter), 500.0);
+  // Power balance of the chain: what the transmitter delivers is what reaches the antenna
+  // (0.5 Re(V I*) of the peak phasors at the terminals) plus the line's and transformer's loss.
+  const std::complex<double> v = ComplexOf(feed.at("voltage_v"));
+  const std::complex<double> i = ComplexOf(feed.at("current_a"));
+  const double antenna_w = 0.5 * std::real(v * std::conj(i));
+  EXPECT_NEAR(antenna.at("power_w").get<double>(), antenna_w, 1e-12 * antenna_w);
+  const double line_w = feed.at("line_loss_w").get<double>();
+  const double transformer_w = feed.at("transformer_loss_w").get<double>();
+  const double transmitter_w = transmitter.at("power_w").get<double>();
+  EXPECT_GT(line_w, 0.0);
+  EXPECT_GT(transformer_w, 0.0);
+  EXPECT_NEAR(transmitter_w, antenna_w + line_w + transformer_w, 1e-12 * transmitter_w);
+}
+
+TEST(SolveJson, TextReportHeadsTheTerminalsAndTheTransmitterApartAndStatesThePower) {
+  const std::string path = EndFedChainPath();
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited && run.exit_code == 0) << Describe(run);
+  const std::size_t antenna = run.out.find("Feeds at the antenna terminals\n");
+  const std::size_t transmitter = run.out.find("Feeds at the transmitter");
+  ASSERT_NE(antenna, std::string::npos) << run.out;
+  ASSERT_NE(transmitter, std::string::npos) << run.out;
+  EXPECT_LT(antenna, transmitter);
+  EXPECT_NE(run.out.find("transformer box 1:49, line coax 10 m"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("line loss (W)"), std::string::npos);
+  EXPECT_NE(run.out.find("transformer loss (W)"), std::string::npos);
+  // One power convention: the transmitter's output, and what is left at the terminals.
+  EXPECT_NE(run.out.find("At 100 W from the transmitter"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("W from the transmitter; lost: "), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("at the antenna terminals: "), std::string::npos) << run.out;
+  EXPECT_EQ(run.out.find("into the feeds"), std::string::npos) << run.out;
+}
+
+TEST(SolveJson, TextReportWithoutAChainSaysTheTransmitterConnectsAtTheTerminals) {
+  const std::string path = WriteScratchFile("text_direct_dipole.wire", kDipoleModel);
+  const ProgramRun run = RunWirefield({"solve", path});
+  ASSERT_TRUE(run.exited && run.exit_code == 0) << Describe(run);
+  EXPECT_NE(run.out.find("Feeds at the antenna terminals (no transformer or feed line: the "
+                         "transmitter connects here)"),
+            std::string::npos)
+      << run.out;
+  EXPECT_EQ(run.out.find("Feeds at the transmitter"), std::string::npos);
+  EXPECT_NE(run.out.find("At 100 W from the transmitter"), std::string::npos) << run.out;
+}
+
 }  // namespace
 }  // namespace wirefield::cli_test

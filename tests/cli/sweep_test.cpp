@@ -231,6 +231,71 @@ std::string Scratch(const std::string& name) {
       .string();
 }
 
+// --- resonances at the antenna terminals and at the transmitter -----------------------------
+
+// A half-wave end-fed wire for 40 m fed through a 3:21 transformer (impedance 1:49) and 10 m
+// of 50 ohm coax (illustrative figures of a generic line).
+std::string EndFedChainPath() {
+  return std::string(WIREFIELD_SOURCE_DIR) + "/tests/models/end_fed_transformer_coax.wire";
+}
+
+// The zeros of the reactance at points[].KEY, by linear interpolation between neighbouring
+// points where its sign changes (points in frequency order).
+std::vector<double> ReactanceZeros(const nlohmann::json& points, const std::string& key) {
+  std::vector<double> zeros_hz;
+  for (size_t i = 1; i < points.size(); ++i) {
+    const double x0 = Z(points.at(i - 1).at(key)).imag(), x1 = Z(points.at(i).at(key)).imag();
+    if ((x0 < 0.0) != (x1 < 0.0)) {
+      const double f0 = points.at(i - 1).at("frequency_hz").get<double>();
+      const double f1 = points.at(i).at("frequency_hz").get<double>();
+      zeros_hz.push_back(f0 + (f1 - f0) * x0 / (x0 - x1));
+    }
+  }
+  return zeros_hz;
+}
+
+void ExpectSameFrequencies(const nlohmann::json& listed, const std::vector<double>& expected_hz,
+                           const std::string& what) {
+  ASSERT_EQ(listed.size(), expected_hz.size()) << what << ": " << listed;
+  for (size_t k = 0; k < expected_hz.size(); ++k) {
+    EXPECT_NEAR(listed.at(k).get<double>(), expected_hz[k], 1e-3) << what << " " << k;
+  }
+}
+
+TEST(SweepResonances, NamedByPlaceAndEachAZeroOfXThere) {
+  const nlohmann::json doc = SweepJson({"sweep", EndFedChainPath(), "--from", "6.4MHz", "--to",
+                                        "7.6MHz", "--points", "25", "--exact", "--json"});
+  const nlohmann::json& points = doc.at("points");
+  // feed_z_ohm is at the antenna terminals, z_ohm at the transmitter (docs/commands.md).
+  ExpectSameFrequencies(doc.at("antenna_resonances_hz"), ReactanceZeros(points, "feed_z_ohm"),
+                        "antenna terminals");
+  ExpectSameFrequencies(doc.at("transmitter_resonances_hz"), ReactanceZeros(points, "z_ohm"),
+                        "transmitter");
+  // The contract's resonances_hz keeps its meaning: zeros of the feed's own reactance.
+  EXPECT_EQ(doc.at("resonances_hz"), doc.at("antenna_resonances_hz"));
+  ASSERT_FALSE(doc.at("antenna_resonances_hz").empty());
+  EXPECT_NE(doc.at("antenna_resonances_hz"), doc.at("transmitter_resonances_hz"));
+  const nlohmann::json& range = doc.at("range");
+  EXPECT_EQ(range.at("antenna_resonances_hz"), doc.at("antenna_resonances_hz"));
+  EXPECT_EQ(range.at("transmitter_resonances_hz"), doc.at("transmitter_resonances_hz"));
+}
+
+TEST(SweepResonances, TextAndSvgNameBothPlaces) {
+  const std::string svg = Scratch("sweep_chain.svg");
+  const ProgramRun run = RunWirefield({"sweep", EndFedChainPath(), "--from", "6.4MHz", "--to",
+                                       "7.6MHz", "--points", "25", "--svg", svg});
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  EXPECT_NE(run.out.find("resonances at the antenna terminals (X = 0 there):"), std::string::npos)
+      << run.out;
+  EXPECT_NE(run.out.find("resonances at the transmitter (X = 0 there):"), std::string::npos)
+      << run.out;
+  EXPECT_NE(run.out.find("X antenna (ohm)"), std::string::npos) << run.out;
+  const std::string picture = ReadFile(svg);
+  EXPECT_NE(picture.find("X = 0 at the antenna terminals"), std::string::npos);
+  EXPECT_NE(picture.find("X = 0 at the transmitter"), std::string::npos);
+  EXPECT_NE(picture.find("X = 0 (antenna) at "), std::string::npos);
+}
+
 TEST(SweepFiles, CsvHasAHeaderAndOneRowPerPoint) {
   const std::string csv = Scratch("sweep.csv");
   // A file of the user's own beside the target, named as a temporary file often is, must

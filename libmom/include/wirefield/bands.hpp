@@ -57,7 +57,8 @@ struct BandSummary {
   int points = 0;  // sweep points inside the band
   double min_swr = 0.0;
   double min_swr_frequency_hz = 0.0;
-  std::vector<double> resonances_hz;                       // inside the band
+  std::vector<double> resonances_hz;              // X = 0 at the feed terminals, inside the band
+  std::vector<double> transmitter_resonances_hz;  // X = 0 at the transmitter, inside the band
   std::vector<std::pair<double, double>> swr_2_ranges_hz;  // SWR <= 2, clipped to the band
   std::vector<std::pair<double, double>> swr_1_5_ranges_hz;
   double bandwidth_2_hz = 0.0;  // widest SWR <= 2 range inside the band

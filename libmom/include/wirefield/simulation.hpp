@@ -42,9 +42,14 @@ struct FeedResult {
   Complex impedance_ohm;  // at the feed's terminals
   Complex current_a;      // peak phasor, into the antenna
   Complex voltage_v;      // the source voltage
-  double swr = 0.0;       // against z0_ohm
+  double swr = 0.0;       // at the transmitter (see below), against z0_ohm
   double z0_ohm = 50.0;
   double power_w = 0.0;  // 0.5 Re(V I*): power delivered to the antenna terminals
+  // At the antenna terminals: the SWR of impedance_ohm against z0_ohm.
+  double antenna_swr = 0.0;
+  // Whether a transformer or a feed line sits between the feed and the transmitter.
+  bool has_transformer = false;
+  bool has_line = false;
   // At the transmitter, through the feed's transformer and line (equal to the terminals'
   // values when the feed has neither). swr above is against z0_ohm at this point.
   Complex transmitter_impedance_ohm;
@@ -52,6 +57,11 @@ struct FeedResult {
   // Shares of the transmitter's power lost in the transformer and the line (0..1).
   double transformer_loss_fraction = 0.0;
   double line_loss_fraction = 0.0;
+  // Powers at the solved excitation, W: what the transmitter delivers into the chain (power_w
+  // plus the two losses), and what the line and the transformer dissipate.
+  double transmitter_power_w = 0.0;
+  double line_loss_w = 0.0;
+  double transformer_loss_w = 0.0;
 };
 
 struct LoadResult {

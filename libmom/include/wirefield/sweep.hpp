@@ -45,8 +45,12 @@ struct SweepPoint {
 
 struct SweepResult {
   double z0_ohm = 50.0;
-  std::vector<SweepPoint> points;     // in the order of the frequencies given
-  std::vector<double> resonances_hz;  // zero crossings of the feed's X, interpolated
+  std::vector<SweepPoint> points;  // in the order of the frequencies given
+  // Zero crossings of X, interpolated between points: at the first feed's terminals (the
+  // antenna's own resonances, the contract's `resonances_hz`), and at the transmitter, through
+  // the feed's transformer and line (the same list when the feed has neither).
+  std::vector<double> resonances_hz;
+  std::vector<double> transmitter_resonances_hz;
   double min_swr = 0.0;
   double min_swr_frequency_hz = 0.0;
   int unknowns = 0;

@@ -16,6 +16,8 @@
 #include "fill/assemble.hpp"
 #include "fill/conductor.hpp"
 #include "geometry/mesh.hpp"
+#include "network/chain.hpp"
+#include "network/reflection.hpp"
 #include "post/network.hpp"
 #include "solve/blas_threads.hpp"
 #include "solve/dense.hpp"
@@ -205,6 +207,16 @@ SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double f
     fr.transformer_loss_fraction = chain.transformer_loss_fraction;
     fr.line_loss_fraction = chain.line_loss_fraction;
     fr.power_w = 0.5 * std::real(fr.voltage_v * std::conj(fr.current_a));
+    // At the antenna terminals, and the chain's power balance at the solved excitation.
+    fr.antenna_swr =
+        network::SwrFromMagnitude(std::abs(network::ReflectionCoefficient(fr.impedance_ohm, z0)));
+    fr.has_transformer = network::FindTransformer(model, fr.name) != nullptr;
+    fr.has_line = network::FindFeedLine(model, fr.name) != nullptr;
+    fr.transmitter_power_w = chain.antenna_power_fraction != 0.0
+                                 ? fr.power_w / chain.antenna_power_fraction
+                                 : fr.power_w;
+    fr.line_loss_w = fr.transmitter_power_w * chain.line_loss_fraction;
+    fr.transformer_loss_w = fr.transmitter_power_w * chain.transformer_loss_fraction;
     r.feeds.push_back(fr);
   }
   for (size_t l = 0; l < model.loads.size(); ++l) {

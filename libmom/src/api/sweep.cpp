@@ -1,6 +1,7 @@
 // API: frequency sweeps. Solves one Simulation (one mesh) at many frequencies on worker
-// threads, then summarises the first feed at the transmitter: resonances (zero crossings of
-// the reactance, interpolated), the minimum SWR, and SWR bandwidths.
+// threads, then summarises the first feed: resonances (zero crossings of the reactance at its
+// terminals and at the transmitter, interpolated), the minimum SWR at the transmitter, and SWR
+// bandwidths.
 #include "wirefield/sweep.hpp"
 
 #include <fmt/format.h>
@@ -145,6 +146,23 @@ SweepPlan PlanSweep(const std::vector<double>& frequencies_hz, bool interpolate)
   return plan;
 }
 
+// The frequencies where reactance(point) changes sign between neighbours of `sorted` (points
+// in frequency order), interpolated linearly. A sign change through a pole (a parallel
+// resonance seen through a large |X|) also counts.
+std::vector<double> ReactanceZeros(const std::vector<const SweepPoint*>& sorted,
+                                   const std::function<double(const SweepPoint&)>& reactance) {
+  std::vector<double> zeros_hz;
+  for (size_t i = 1; i < sorted.size(); ++i) {
+    const double x0 = reactance(*sorted[i - 1]);
+    const double x1 = reactance(*sorted[i]);
+    if ((x0 < 0.0 && x1 >= 0.0) || (x0 > 0.0 && x1 <= 0.0)) {
+      const double f0 = sorted[i - 1]->frequency_hz, f1 = sorted[i]->frequency_hz;
+      zeros_hz.push_back(f0 + (f1 - f0) * (-x0) / (x1 - x0));
+    }
+  }
+  return zeros_hz;
+}
+
 }  // namespace
 
 SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& frequencies_hz,
@@ -266,17 +284,11 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
   }
   out.min_swr = best->swr;
   out.min_swr_frequency_hz = best->frequency_hz;
-  for (size_t i = 1; i < sorted.size(); ++i) {
-    // The contract: resonances are zero crossings of the feed's own reactance.
-    const double x0 = sorted[i - 1]->feed_impedance_ohm.imag();
-    const double x1 = sorted[i]->feed_impedance_ohm.imag();
-    if ((x0 < 0.0 && x1 >= 0.0) || (x0 > 0.0 && x1 <= 0.0)) {
-      // A reactance sign change through a pole (parallel resonance seen through a large |X|)
-      // also counts; interpolate linearly either way.
-      const double f0 = sorted[i - 1]->frequency_hz, f1 = sorted[i]->frequency_hz;
-      out.resonances_hz.push_back(f0 + (f1 - f0) * (-x0) / (x1 - x0));
-    }
-  }
+  // The contract: `resonances_hz` are zero crossings of the feed's own reactance.
+  out.resonances_hz =
+      ReactanceZeros(sorted, [](const SweepPoint& p) { return p.feed_impedance_ohm.imag(); });
+  out.transmitter_resonances_hz = ReactanceZeros(
+      sorted, [](const SweepPoint& p) { return p.transmitter_impedance_ohm.imag(); });
   out.elapsed_s = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return out;
 }

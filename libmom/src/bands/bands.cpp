@@ -202,6 +202,11 @@ BandSummary SummarizeBand(const SweepResult& sweep, const Band& band) {
       inside.resonances_hz.push_back(f_hz);
     }
   }
+  for (double f_hz : sweep.transmitter_resonances_hz) {
+    if (f_hz >= band.from_hz - tolerance_hz && f_hz <= band.to_hz + tolerance_hz) {
+      summary.transmitter_resonances_hz.push_back(f_hz);
+    }
+  }
   auto ranges = [&](double limit) {
     std::vector<std::pair<double, double>> out;
     for (auto [low_hz, high_hz] : SwrBandwidths(inside, limit)) {

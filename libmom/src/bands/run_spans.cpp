@@ -58,6 +58,9 @@ SweepResult RunSpans(const Simulation& simulation, const std::vector<SweepSpan>&
         merged.points.push_back(result.points[i]);
       }
       for (double f_hz : result.resonances_hz) AddResonance(merged.resonances_hz, f_hz);
+      for (double f_hz : result.transmitter_resonances_hz) {
+        AddResonance(merged.transmitter_resonances_hz, f_hz);
+      }
       if (first || result.min_swr < merged.min_swr) {
         merged.min_swr = result.min_swr;
         merged.min_swr_frequency_hz = result.min_swr_frequency_hz;
@@ -77,6 +80,7 @@ SweepResult RunSpans(const Simulation& simulation, const std::vector<SweepSpan>&
     }
   }
   std::sort(merged.resonances_hz.begin(), merged.resonances_hz.end());
+  std::sort(merged.transmitter_resonances_hz.begin(), merged.transmitter_resonances_hz.end());
   return merged;
 }
 

@@ -19,8 +19,9 @@ namespace wirefield {
 namespace report {
 namespace {
 
-// Power the "at 100 W" lines scale the 1 V (or model-given) excitation to. 100 W is a common
-// transmitter output on HF (common practice); the lines only scale the linear solution.
+// Power from the transmitter (into the feed chains) the "at 100 W" lines scale the 1 V (or
+// model-given) excitation to, as --power does. 100 W is a common transmitter output on HF
+// (common practice); the lines only scale the linear solution.
 constexpr double kScaledPower_w = 100.0;
 
 void CheckFinite(double value, const std::string& what) {
@@ -51,6 +52,12 @@ void CheckResult(const SolveResult& result) {
     CheckFinite(feed.swr, "SWR " + who);
     CheckFinite(feed.z0_ohm, "z0 " + who);
     CheckFinite(feed.power_w, "power " + who);
+    CheckFinite(feed.antenna_swr, "SWR at the antenna terminals " + who);
+    CheckFinite(feed.transmitter_impedance_ohm, "impedance at the transmitter " + who);
+    CheckFinite(feed.return_loss_db, "return loss " + who);
+    CheckFinite(feed.transmitter_power_w, "power at the transmitter " + who);
+    CheckFinite(feed.line_loss_w, "line loss " + who);
+    CheckFinite(feed.transformer_loss_w, "transformer loss " + who);
   }
   for (const LoadResult& load : result.loads) {
     const std::string who = fmt::format("value at load '{}'", load.name);
@@ -61,10 +68,17 @@ void CheckResult(const SolveResult& result) {
   }
 }
 
-double TotalFeedPower(const SolveResult& result) {
+// What the transmitter delivers into every feed's chain (line, transformer, feed) at the
+// solved excitation: the power the "at P W from the transmitter" lines scale to.
+double TotalTransmitterPower(const SolveResult& result) {
   double total_w = 0.0;
-  for (const FeedResult& feed : result.feeds) total_w += feed.power_w;
+  for (const FeedResult& feed : result.feeds) total_w += feed.transmitter_power_w;
   return total_w;
+}
+
+bool AnyFeedChain(const SolveResult& result) {
+  return std::any_of(result.feeds.begin(), result.feeds.end(),
+                     [](const FeedResult& feed) { return feed.has_transformer || feed.has_line; });
 }
 
 // A value with about five significant digits, without exponent for everyday magnitudes.
@@ -92,6 +106,14 @@ std::string Degrees(Complex value) {
 std::string Swr(double swr) {
   if (swr < 100.0) return fmt::format("{:.2f}", swr);
   return fmt::format("{:.0f}", swr);
+}
+
+// An SWR in a table whose header names the reference z0: the feed's own reference is added
+// when it differs.
+std::string SwrCell(double swr, double feed_z0_ohm, double table_z0_ohm) {
+  std::string text = Swr(swr);
+  if (feed_z0_ohm != table_z0_ohm) text += fmt::format(" ({:.6g} ohm)", feed_z0_ohm);
+  return text;
 }
 
 std::string PointText(const WirePointSpec& at) {
@@ -146,6 +168,75 @@ nlohmann::json ComplexJson(Complex value) {
   return nlohmann::json::array({value.real(), value.imag()});
 }
 
+// What sits between a feed and the transmitter: "transformer unun 1:49, line coax 10 m",
+// or "direct" when nothing does.
+std::string ChainText(const Model& model, const std::string& feed) {
+  std::vector<std::string> parts;
+  for (const TransformerSpec& t : model.transformers) {
+    if (t.feed != feed) continue;
+    const double ratio = t.secondary_turns / t.primary_turns;
+    parts.push_back(fmt::format("transformer {} 1:{:.4g}", t.name, ratio * ratio));
+  }
+  for (const FeedLineSpec& line : model.feed_lines) {
+    if (line.feed == feed)
+      parts.push_back(fmt::format("line {} {:.4g} m", line.name, line.length_m));
+  }
+  if (parts.empty()) return "direct";
+  std::string text;
+  for (const std::string& part : parts) text += (text.empty() ? "" : ", ") + part;
+  return text;
+}
+
+// The heading of the feed table: where its numbers are.
+std::string AntennaHeading(const SolveResult& result) {
+  if (AnyFeedChain(result)) return "\nFeeds at the antenna terminals\n";
+  return "\nFeeds at the antenna terminals (no transformer or feed line: the transmitter "
+         "connects here)\n";
+}
+
+// The feeds as the transmitter sees them through their transformer and line: empty when no
+// feed has either. Powers at the solved excitation, like the antenna table's.
+std::string TransmitterTable(const Model& model, const SolveResult& result, double z0_ohm) {
+  if (!AnyFeedChain(result)) return "";
+  TextTable table;
+  table.AddColumn("feed", Align::kLeft);
+  table.AddColumn("through", Align::kLeft);
+  table.AddColumn("R (ohm)", Align::kRight);
+  table.AddColumn("X (ohm)", Align::kRight);
+  table.AddColumn("|Z| (ohm)", Align::kRight);
+  table.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
+  table.AddColumn("RL (dB)", Align::kRight);
+  table.AddColumn("P (W)", Align::kRight);
+  table.AddColumn("line loss (W)", Align::kRight);
+  table.AddColumn("transformer loss (W)", Align::kRight);
+  for (const FeedResult& feed : result.feeds) {
+    const Complex z = feed.transmitter_impedance_ohm;
+    table.AddRow({feed.name, ChainText(model, feed.name), Number(z.real()), Signed(z.imag()),
+                  Number(std::abs(z)), SwrCell(feed.swr, feed.z0_ohm, z0_ohm),
+                  fmt::format("{:.2f}", feed.return_loss_db), Number(feed.transmitter_power_w),
+                  Number(feed.line_loss_w), Number(feed.transformer_loss_w)});
+  }
+  return "\nFeeds at the transmitter (through their transformer and feed line)\n" + table.Render(2);
+}
+
+// One feed's lines of the "at P W from the transmitter" section: where the power goes, and
+// the power, current and voltage at the antenna terminals.
+std::string ScaledFeedLines(const FeedResult& feed, double scale) {
+  const double s2 = scale * scale;
+  std::string out = fmt::format("  feed {}", feed.name);
+  if (feed.has_transformer || feed.has_line) {
+    out += fmt::format(
+        ": {} W from the transmitter; lost: {} W in the line, {} W in the transformer\n    ",
+        Number(feed.transmitter_power_w * s2), Number(feed.line_loss_w * s2),
+        Number(feed.transformer_loss_w * s2));
+  } else {
+    out += " ";
+  }
+  return out + fmt::format("at the antenna terminals: {} W, {} A, {} V peak\n",
+                           Number(feed.power_w * s2), Number(std::abs(feed.current_a) * scale),
+                           Number(std::abs(feed.voltage_v) * scale));
+}
+
 }  // namespace
 }  // namespace report
 
@@ -164,7 +255,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
                      result.segments, result.unknowns);
   out += fmt::format("  ground          {}\n", report::GroundText(model.ground));
 
-  out += "\nFeeds\n";
+  out += report::AntennaHeading(result);
   TextTable feeds;
   const double z0_ohm = result.feeds.empty() ? model.z0_ohm.value_or(50.0) : result.feeds[0].z0_ohm;
   feeds.AddColumn("feed", Align::kLeft);
@@ -177,14 +268,14 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   feeds.AddColumn("arg I (deg)", Align::kRight);
   feeds.AddColumn("P (W)", Align::kRight);
   for (const FeedResult& feed : result.feeds) {
-    std::string swr = report::Swr(feed.swr);
-    if (feed.z0_ohm != z0_ohm) swr += fmt::format(" ({:.6g} ohm)", feed.z0_ohm);
     feeds.AddRow({feed.name, report::FeedPlace(model, feed.name), Number(feed.impedance_ohm.real()),
                   report::Signed(feed.impedance_ohm.imag()), Number(std::abs(feed.impedance_ohm)),
-                  swr, Number(std::abs(feed.current_a)), report::Degrees(feed.current_a),
+                  report::SwrCell(feed.antenna_swr, feed.z0_ohm, z0_ohm),
+                  Number(std::abs(feed.current_a)), report::Degrees(feed.current_a),
                   Number(feed.power_w)});
   }
   out += feeds.Render(2);
+  out += report::TransmitterTable(model, result, z0_ohm);
 
   if (!result.loads.empty()) {
     out += "\nLoads\n";
@@ -224,20 +315,18 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
       "otherwise),\nphase 0. Currents and voltages above are peak phasors and scale with V; "
       "powers scale with V^2.\n";
 
-  const double total_w = report::TotalFeedPower(result);
+  const double total_w = report::TotalTransmitterPower(result);
   if (stress != nullptr) {
     out += FormatStressText(*stress);
     return out;
   }
   if (total_w > 0.0) {
     const double scale = std::sqrt(report::kScaledPower_w / total_w);
-    out += fmt::format("At {:.0f} W into the feeds (currents and voltages above x {}):\n",
-                       report::kScaledPower_w, Number(scale));
-    for (const FeedResult& feed : result.feeds) {
-      out += fmt::format("  feed {}: {} A, {} V peak at the terminals\n", feed.name,
-                         Number(std::abs(feed.current_a) * scale),
-                         Number(std::abs(feed.voltage_v) * scale));
-    }
+    out += fmt::format(
+        "At {:.0f} W from the transmitter (--power sets another; currents and voltages above x "
+        "{}):\n",
+        report::kScaledPower_w, Number(scale));
+    for (const FeedResult& feed : result.feeds) out += report::ScaledFeedLines(feed, scale);
     for (const LoadResult& load : result.loads) {
       out += fmt::format("  load {}: {} V peak across it, {} W in it\n", load.name,
                          Number(std::abs(load.voltage_v) * scale),
@@ -272,6 +361,18 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
                             {"swr", feed.swr},
                             {"z0_ohm", feed.z0_ohm},
                             {"power_w", feed.power_w}});
+    nlohmann::json& added = doc["feeds"].back();
+    added["antenna"] = {{"z_ohm", report::ComplexJson(feed.impedance_ohm)},
+                        {"swr", feed.antenna_swr},
+                        {"power_w", feed.power_w}};
+    added["transmitter"] = {{"z_ohm", report::ComplexJson(feed.transmitter_impedance_ohm)},
+                            {"swr", feed.swr},
+                            {"return_loss_db", feed.return_loss_db},
+                            {"power_w", feed.transmitter_power_w}};
+    added["has_transformer"] = feed.has_transformer;
+    added["has_line"] = feed.has_line;
+    added["line_loss_w"] = feed.line_loss_w;
+    added["transformer_loss_w"] = feed.transformer_loss_w;
   }
   doc["loads"] = nlohmann::json::array();
   for (const LoadResult& load : result.loads) {

@@ -14,6 +14,10 @@ namespace wirefield::report {
 // Throws ComputationError when the sweep has no points or any number it reports is not finite.
 void CheckSweepReport(const SweepReport& report);
 
+// Whether a transformer or a feed line sits between the first feed and the transmitter
+// (without them the impedances at both places are the same number).
+bool HasFeedChain(const SweepResult& sweep);
+
 // The bands swept ("40m, 20m (ITU Region 1)") or the range ("7.0000-7.3000 MHz").
 std::string SweepTitle(const SweepReport& report);
 

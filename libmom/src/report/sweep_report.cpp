@@ -63,7 +63,22 @@ std::string ListMhz(const std::vector<double>& frequencies_hz) {
   return out;
 }
 
-std::string SummaryText(const BandSummary& summary, bool is_range) {
+// The resonances of a band or of the sweep, each list named by where X crosses zero.
+std::string ResonancesText(const std::vector<double>& antenna_hz,
+                           const std::vector<double>& transmitter_hz, bool chain,
+                           const std::string& indent) {
+  if (!chain) {
+    // The header says the transmitter connects at the terminals.
+    return fmt::format("{}resonances      at the antenna terminals: {}\n", indent,
+                       ListMhz(antenna_hz));
+  }
+  return fmt::format("{}{:<52}{}\n", indent,
+                     "resonances at the antenna terminals (X = 0 there):", ListMhz(antenna_hz)) +
+         fmt::format("{}{:<52}{}\n", indent,
+                     "resonances at the transmitter (X = 0 there):", ListMhz(transmitter_hz));
+}
+
+std::string SummaryText(const BandSummary& summary, bool is_range, bool chain) {
   const Band& band = summary.band;
   std::string out;
   if (is_range) {
@@ -74,9 +89,9 @@ std::string SummaryText(const BandSummary& summary, bool is_range) {
                        Mhz(band.from_hz), Mhz(band.to_hz), band.region, band.allocation,
                        summary.points);
   }
-  out += fmt::format("    lowest SWR      {:.2f} at {} MHz\n", summary.min_swr,
+  out += fmt::format("    lowest SWR      {:.2f} at {} MHz (at the transmitter)\n", summary.min_swr,
                      Mhz(summary.min_swr_frequency_hz));
-  out += fmt::format("    resonances      {}\n", ListMhz(summary.resonances_hz));
+  out += ResonancesText(summary.resonances_hz, summary.transmitter_resonances_hz, chain, "    ");
   out += fmt::format("    SWR <= 2        {}\n", RangesText(summary.swr_2_ranges_hz));
   out += fmt::format("    SWR <= 1.5      {}\n", RangesText(summary.swr_1_5_ranges_hz));
   if (summary.covered) {
@@ -107,6 +122,8 @@ nlohmann::json SummaryJson(const BandSummary& summary) {
   out["min_swr"] = summary.min_swr;
   out["min_swr_frequency_hz"] = summary.min_swr_frequency_hz;
   out["resonances_hz"] = summary.resonances_hz;
+  out["antenna_resonances_hz"] = summary.resonances_hz;
+  out["transmitter_resonances_hz"] = summary.transmitter_resonances_hz;
   out["swr_2_ranges_hz"] = RangesJson(summary.swr_2_ranges_hz);
   out["swr_1_5_ranges_hz"] = RangesJson(summary.swr_1_5_ranges_hz);
   out["bandwidth_2_hz"] = summary.bandwidth_2_hz;
@@ -116,6 +133,13 @@ nlohmann::json SummaryJson(const BandSummary& summary) {
 }
 
 }  // namespace
+
+bool HasFeedChain(const SweepResult& sweep) {
+  for (const SweepPoint& p : sweep.points) {
+    if (p.feed_impedance_ohm != p.transmitter_impedance_ohm) return true;
+  }
+  return false;
+}
 
 void CheckSweepReport(const SweepReport& report) {
   const SweepResult& sweep = report.sweep;
@@ -134,6 +158,9 @@ void CheckSweepReport(const SweepReport& report) {
     CheckFinite(p.line_loss_fraction, "line loss" + at);
   }
   for (double f_hz : sweep.resonances_hz) CheckFinite(f_hz, "resonance frequency");
+  for (double f_hz : sweep.transmitter_resonances_hz) {
+    CheckFinite(f_hz, "resonance frequency at the transmitter");
+  }
   CheckFinite(sweep.min_swr, "minimum SWR");
 }
 
@@ -173,10 +200,14 @@ std::string FormatSweepText(const SweepReport& report) {
   const SweepResult& sweep = report.sweep;
   std::string out;
   out += fmt::format("wirefield sweep: {}\n", report.model_file);
+  const bool chain = report::HasFeedChain(sweep);
   out += fmt::format(
-      "  feed {} (the first feed); impedance and SWR at the transmitter, SWR "
-      "against {} ohm\n",
-      report.feed_name, report.sweep.z0_ohm);
+      "  feed {} (the first feed); impedance and SWR at the transmitter, SWR against {} ohm\n  "
+      "{}\n",
+      report.feed_name, report.sweep.z0_ohm,
+      chain ? "(through the feed's transformer and feed line); R and X at the antenna terminals "
+              "beside them"
+            : "(no transformer or feed line: the transmitter connects at the antenna terminals)");
   out += fmt::format("  ground: {}\n", report::GroundText(report.ground));
   if (!report.bands.empty()) {
     out += fmt::format("  bands: {}", report::SweepTitle(report));
@@ -204,24 +235,36 @@ std::string FormatSweepText(const SweepReport& report) {
   table.AddColumn("|Z| (ohm)", report::Align::kRight);
   table.AddColumn("SWR", report::Align::kRight);
   table.AddColumn("RL (dB)", report::Align::kRight);
+  if (chain) {
+    table.AddColumn("R antenna (ohm)", report::Align::kRight);
+    table.AddColumn("X antenna (ohm)", report::Align::kRight);
+  }
   table.AddColumn("", report::Align::kLeft);
   for (const SweepPoint& p : sweep.points) {
     const Complex z = p.transmitter_impedance_ohm;
     std::string mark;
     if (p.frequency_hz == sweep.min_swr_frequency_hz) mark = "lowest SWR";
-    table.AddRow({report::Mhz(p.frequency_hz), report::Ohm(z.real()), report::Ohm(z.imag()),
-                  report::Ohm(std::abs(z)), fmt::format("{:.3f}", p.swr),
-                  fmt::format("{:.2f}", p.return_loss_db), mark});
+    std::vector<std::string> row = {
+        report::Mhz(p.frequency_hz),  report::Ohm(z.real()),
+        report::Ohm(z.imag()),        report::Ohm(std::abs(z)),
+        fmt::format("{:.3f}", p.swr), fmt::format("{:.2f}", p.return_loss_db)};
+    if (chain) {
+      row.push_back(report::Ohm(p.feed_impedance_ohm.real()));
+      row.push_back(report::Ohm(p.feed_impedance_ohm.imag()));
+    }
+    row.push_back(mark);
+    table.AddRow(row);
   }
   out += "Points\n" + table.Render(2) + "\n";
 
   out += "Summary\n";
-  if (report.range) out += report::SummaryText(*report.range, /*is_range=*/true);
+  if (report.range) out += report::SummaryText(*report.range, /*is_range=*/true, chain);
   for (const BandSummary& summary : report.bands) {
-    out += report::SummaryText(summary, /*is_range=*/false);
+    out += report::SummaryText(summary, /*is_range=*/false, chain);
   }
-  out += fmt::format("  lowest SWR of the sweep {:.3f} at {} MHz; resonances: {}\n", sweep.min_swr,
-                     report::Mhz(sweep.min_swr_frequency_hz), report::ListMhz(sweep.resonances_hz));
+  out += fmt::format("  lowest SWR of the sweep (at the transmitter) {:.3f} at {} MHz\n",
+                     sweep.min_swr, report::Mhz(sweep.min_swr_frequency_hz));
+  out += report::ResonancesText(sweep.resonances_hz, sweep.transmitter_resonances_hz, chain, "  ");
 
   if (report.measured) {
     const MeasuredComparison& m = *report.measured;
@@ -292,6 +335,8 @@ std::string FormatSweepJson(const SweepReport& report) {
   }
   doc["points"] = points;
   doc["resonances_hz"] = sweep.resonances_hz;
+  doc["antenna_resonances_hz"] = sweep.resonances_hz;
+  doc["transmitter_resonances_hz"] = sweep.transmitter_resonances_hz;
   doc["min_swr"] = {{"frequency_hz", sweep.min_swr_frequency_hz}, {"swr", sweep.min_swr}};
   doc["region"] = report.region;
   doc["region_assumed"] = !report.region_given;
