@@ -76,6 +76,8 @@ TEST(ModelSizes, TheReadmeOverrideExampleWarnsOfNoVariable) {
 const std::string kCoilLoad =
     "units m\n"
     "wire mast from (0, 0, 0.2) to (0, 0, 7.5) radius 1.5mm\n"
+    "wire east from (0, 0, 0.2) to (5, 0, 1) radius 1mm\n"
+    "wire west from (0, 0, 0.2) to (-5, 0, 1) radius 1mm\n"
     "feed src at mast@start\n"
     "load coil at mast@40% coil turns=20 diameter=19mm close-wound wire=1mm\n"
     "ground perfect\n"
