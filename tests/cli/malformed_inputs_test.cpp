@@ -348,9 +348,10 @@ std::vector<MalformedCase> Cases() {
        kUnits + "Wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n" + kFeed + kFrequency, 2, 1,
        "did you mean 'wire'?"},
       {"unit_in_the_wrong_case", kBody + "frequency 14.2Mhz\n", 4, 15, "did you mean 'MHz'?"},
-      {"diameter_instead_of_radius",
-       kUnits + "wire dip from (-5, 0, 10) to (5, 0, 10) diameter 2mm\n" + kFeed + kFrequency, 2,
-       41, "unexpected 'diameter'; after the points come 'radius R'"},
+      {"both_radius_and_diameter",
+       kUnits + "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm diameter 2mm\n" + kFeed +
+           kFrequency,
+       2, 52, "give either 'radius R' or 'diameter D'"},
       {"feed_without_the_at_sign", kHead + "feed src at dip 50%\n" + kFrequency, 3, 17,
        "expected '@' and a position"},
       {"semicolons_between_coordinates",

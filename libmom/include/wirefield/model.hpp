@@ -72,6 +72,14 @@ struct WireSpec {
   // from_m to to_m; empty for a straight wire. The current runs on through every corner.
   std::vector<Point> bends_m;
   double radius_m = 0.0;
+  // Where the radius was written (the value after `radius`, or after `diameter`, which gives
+  // twice the radius), for the thin-wire checks that need the frequency (the mesh stage).
+  // radius_clause is "radius" or "diameter" as written; radius_written_number is the number
+  // as written when the value is one number with or without a length unit ("1", "2mm"),
+  // for a hint at the unit it was meant in.
+  SourceLocation radius_location;
+  std::string radius_clause = "radius";
+  std::optional<double> radius_written_number;
   int segments = 0;  // 0: the mesher chooses
   // Conductor: empty material and no conductivity = perfect conductor (the default).
   std::string material;                        // e.g. "copper", as written in the model

@@ -13,6 +13,7 @@
 #include <utility>
 
 #include "core/constants.hpp"
+#include "model/thin_wire.hpp"
 
 namespace wirefield::geometry {
 namespace {
@@ -28,10 +29,6 @@ constexpr double kJoinRelativeTolerance = 1e-6;
 // Radii below this fraction of the wire length are not physical and would underflow the
 // reduced kernel's radius squared.
 constexpr double kMinRadiusOfLength = 1e-12;
-// Thin-wire limits on k a (wavenumber times radius): the reduced kernel assumes the current
-// uniform around the wire, good for k a << 1 (common practice: k a < 0.1 for accuracy).
-constexpr double kWarnKa = 0.1;
-constexpr double kMaxKa = 0.5;
 // Hard cap on unknowns whatever the memory: a dense LU of this size already takes hours.
 constexpr long long kMaxUnknowns = 40000;
 
@@ -260,25 +257,21 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   for (const auto& f : model.feeds) require(f.at);
   for (const auto& l : model.loads) require(l.at);
 
-  // The thin-wire kernel needs wires thin against the wavelength (k a << 1).
+  // The thin-wire kernel needs wires thin against the wavelength (k a << 1): a radius above
+  // model::kMaxRadiusOfWavelength of the shortest wavelength is refused at the radius value,
+  // with a hint when it looks written in the wrong unit.
   for (int w = 0; w < wire_count; ++w) {
     const WireSpec& spec = model.wires[w];
-    const double ka = 2.0 * core::kPi * spec.radius_m / wavelength_m;
-    if (ka > kMaxKa) {
-      throw InputError(spec.location,
-                       fmt::format("wire '{}': radius {:.3g} m is not small against the "
-                                   "wavelength ({:.3g} m at {:.6g} MHz); the thin-wire model "
-                                   "needs 2 pi radius / wavelength below {}: use a thinner wire "
-                                   "or a lower frequency",
-                                   spec.name, spec.radius_m, wavelength_m,
-                                   options.max_frequency_hz / 1e6, kMaxKa));
-    }
-    if (ka > kWarnKa) {
-      mesh.warnings.push_back(
-          {spec.location,
-           fmt::format("wire '{}': radius {:.3g} m is {:.3g} wavelength; the thin-wire model "
-                       "loses accuracy above 2 pi radius / wavelength = {}",
-                       spec.name, spec.radius_m, spec.radius_m / wavelength_m, kWarnKa)});
+    const double max_radius_m = model::kMaxRadiusOfWavelength * wavelength_m;
+    if (spec.radius_m > max_radius_m) {
+      throw InputError(
+          model::RadiusLocation(spec),
+          fmt::format("wire '{}': the radius {:.3g} m is {:.3g}% of the wavelength ({:.3g} m at "
+                      "{:.6g} MHz); the thin-wire model needs a radius under {:g}% of the "
+                      "wavelength; use a thinner wire or a lower frequency{}",
+                      spec.name, spec.radius_m, 100.0 * spec.radius_m / wavelength_m, wavelength_m,
+                      options.max_frequency_hz / 1e6, 100.0 * model::kMaxRadiusOfWavelength,
+                      model::RadiusUnitHint(spec, max_radius_m)));
     }
   }
 

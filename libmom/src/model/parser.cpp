@@ -21,6 +21,7 @@
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
 #include "model/shapes.hpp"
+#include "model/thin_wire.hpp"
 #include "model/units.hpp"
 #include "model/wire_path.hpp"
 #include "network/line.hpp"
@@ -322,7 +323,12 @@ class Parser {
                          fmt::format("unexpected {} after the value", Quote(set_tokens[set_pos])));
       }
       // The model's own expression is replaced, not evaluated; skip to the end of the line.
-      pos_ = tokens_.size() - 1;
+      // The variables it names count as used: the model uses them, the command line only
+      // set this one aside, so they must not draw an unused-variable warning.
+      for (; pos_ + 1 < tokens_.size(); ++pos_) {
+        if (tokens_[pos_].kind != TokenKind::kName) continue;
+        if (Scope::Variable* read = scope_.Find(tokens_[pos_].text)) read->used = true;
+      }
     } else {
       value = Expression().value;
       ExpectEnd("let");
@@ -441,29 +447,42 @@ class Parser {
   // checked against it at once); else the caller calls CheckRadius afterwards. extra_clause
   // (when given) reads one clause of its own and returns true, or returns false when the
   // clause is not one of its own; clause_help ends the message for an unknown clause.
-  void WireClauses(const std::string& context, std::optional<double> known_length_m, WireSpec* wire,
-                   const std::function<bool()>& extra_clause = nullptr,
-                   const std::string& clause_help =
-                       "after the points come 'radius R' and the optional 'segments N', "
-                       "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]'") {
+  void WireClauses(
+      const std::string& context, std::optional<double> known_length_m, WireSpec* wire,
+      const std::function<bool()>& extra_clause = nullptr,
+      const std::string& clause_help =
+          "after the points come 'radius R' (or 'diameter D') and the optional 'segments N', "
+          "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]'") {
     radius_start_.reset();
     std::optional<double> radius_m;
     bool have_segments = false;
     ConductorClauses conductor;
     while (Peek().kind != TokenKind::kEnd) {
       const Token& clause = Peek();
-      if (IsWord("radius")) {
-        if (radius_m) throw Error(clause, fmt::format("{}: radius is given twice", context));
-        Next();
-        const Measured m = Expression();
-        const double r = As(m, LengthQuantity(), length_factor_, context + ": radius");
-        if (r <= 0.0) {
-          throw Error(m.start, fmt::format("{}: the radius must be positive; got {} m", context,
-                                           FormatNumber(r)));
+      if (IsWord("radius") || IsWord("diameter")) {
+        const bool is_diameter = clause.text == "diameter";
+        if (radius_m) {
+          throw Error(clause, wire->radius_clause == clause.text
+                                  ? fmt::format("{}: {} is given twice", context, clause.text)
+                                  : fmt::format("{}: give either 'radius R' or 'diameter D' "
+                                                "(twice the radius), not both",
+                                                context));
         }
+        Next();
+        const size_t value_pos = pos_;
+        const Measured m = Expression();
+        const double size = As(m, LengthQuantity(), length_factor_, context + ": " + clause.text);
+        if (size <= 0.0) {
+          throw Error(m.start, fmt::format("{}: the {} must be positive; got {} m", context,
+                                           clause.text, FormatNumber(size)));
+        }
+        const double r = is_diameter ? size / 2.0 : size;
         radius_m = r;
         radius_start_ = m.start;
         wire->radius_m = r;
+        wire->radius_location = Loc(m.start);
+        wire->radius_clause = clause.text;
+        wire->radius_written_number = WrittenNumber(value_pos);
         if (known_length_m) CheckRadius(context, *wire, *known_length_m);
       } else if (IsWord("segments")) {
         if (have_segments) throw Error(clause, fmt::format("{}: segments is given twice", context));
@@ -492,7 +511,7 @@ class Parser {
                     fmt::format("{}: unexpected {}; {}", context, Quote(clause), clause_help));
       }
     }
-    if (!radius_m) throw Expected(context, "'radius R'");
+    if (!radius_m) throw Expected(context, "'radius R' (or 'diameter D')");
     if (conductor.permeability && !conductor.conductivity) {
       throw Error(*conductor.permeability_token,
                   fmt::format("{}: permeability= needs conductivity=SIGMA beside it (a table "
@@ -510,15 +529,27 @@ class Parser {
     }
   }
 
-  // The thin-wire model needs the radius (read last by WireClauses) well below the length.
+  // The number of the expression that starts at tokens_[from] and ends at pos_ when it is
+  // one number with or without a length unit ("1", "2 mm"), else nothing.
+  std::optional<double> WrittenNumber(size_t from) const {
+    if (tokens_[from].kind != TokenKind::kNumber) return std::nullopt;
+    if (pos_ == from + 1) return tokens_[from].number;
+    if (pos_ == from + 2 && IsLengthUnitName(tokens_[from + 1].text)) return tokens_[from].number;
+    return std::nullopt;
+  }
+
+  // The thin-wire model needs the radius (read last by WireClauses) well below the length
+  // (model/thin_wire.hpp; the bound against the wavelength is the mesh stage's).
   void CheckRadius(const std::string& context, const WireSpec& wire, double length_m) const {
     const double r = wire.radius_m;
-    if (radius_start_ && r >= length_m / 4.0) {
+    const double max_r = kMaxRadiusOfLength * length_m;
+    if (radius_start_ && r > max_r) {
       throw Error(*radius_start_,
                   fmt::format("{}: the radius {} m is not small against the wire length {} m; "
-                              "the thin-wire model needs the radius well below the length "
-                              "(under a quarter of it, best under a hundredth)",
-                              context, FormatNumber(r), FormatNumber(length_m)));
+                              "the thin-wire model needs the radius under a tenth of the "
+                              "length{}",
+                              context, FormatNumber(r), FormatNumber(length_m),
+                              RadiusUnitHint(wire, max_r)));
     }
   }
 
@@ -607,10 +638,11 @@ class Parser {
       *slot = number;
       return true;
     };
-    WireClauses(context, std::nullopt, &wire, shape_clause,
-                "after the kind come top=H, length=L, radius R and the optional low=HL, "
-                "toward=AZ, at (X, Y), 'segments N', 'material NAME' or 'conductivity=SIGMA "
-                "[permeability=MU_R]'");
+    WireClauses(
+        context, std::nullopt, &wire, shape_clause,
+        "after the kind come top=H, length=L, radius R (or diameter D) and the optional low=HL, "
+        "toward=AZ, at (X, Y), 'segments N', 'material NAME' or 'conductivity=SIGMA "
+        "[permeability=MU_R]'");
     if (!top) throw Expected(context, "'top=H' (the height of the support's top)");
     if (!length) throw Expected(context, "'length=L' (the length of the wire)");
     request.top_m = *top;
@@ -896,17 +928,29 @@ class Parser {
     model_.loads.push_back(std::move(load));
   }
 
-  // The clauses of a coil load: turns=N diameter=D (length=L | pitch=P) wire=d
-  // [insulation=T] [material=NAME]; sizes are lengths (bare numbers in the `units` length).
+  // The clauses of a coil load, those of the `coil` command: (turns=N | inductance=L)
+  // diameter=D (length=L | pitch=P | close-wound) wire=d [insulation=T] [material=NAME]; sizes
+  // are lengths (bare numbers in the `units` length). With inductance= the turns are found
+  // (DesignCoilTurns) at the pitch given or close-wound.
   CoilSpec CoilClauses(const std::string& context) {
     CoilSpec coil;
     std::map<std::string, Token> given;
-    static const std::vector<std::string> kClauses = {"turns", "diameter",   "length",  "pitch",
-                                                      "wire",  "insulation", "material"};
+    static const std::vector<std::string> kClauses = {
+        "turns", "inductance", "diameter", "length", "pitch", "wire", "insulation", "material"};
     const std::string usage =
-        "turns=N diameter=D length=L|pitch=P wire=d [insulation=T] [material=NAME]";
+        "turns=N|inductance=L diameter=D length=L|pitch=P|close-wound wire=d [insulation=T] "
+        "[material=NAME]";
+    std::optional<double> target_h;
     while (Peek().kind != TokenKind::kEnd) {
       const Token clause = Peek();
+      if (IsCloseWound()) {
+        Next(), Next(), Next();
+        if (given.count("close-wound") != 0) {
+          throw Error(clause, fmt::format("{}: close-wound is given twice", context));
+        }
+        given.emplace("close-wound", clause);
+        continue;
+      }
       if (clause.kind != TokenKind::kName ||
           std::find(kClauses.begin(), kClauses.end(), clause.text) == kClauses.end()) {
         throw Error(clause, fmt::format("{}: unexpected {} in the coil; write {}", context,
@@ -941,6 +985,10 @@ class Parser {
         }
         continue;
       }
+      if (clause.text == "inductance") {
+        target_h = Positive(m, InductanceQuantity(), context, "the coil inductance", "");
+        continue;
+      }
       const double size_m = As(m, LengthQuantity(), length_factor_, what);
       const bool may_be_zero = clause.text == "insulation";
       if (size_m < 0.0 || (size_m == 0.0 && !may_be_zero)) {
@@ -954,27 +1002,73 @@ class Parser {
       if (clause.text == "wire") coil.wire_diameter_m = size_m;
       if (clause.text == "insulation") coil.insulation_m = size_m;
     }
-    if (given.count("length") != 0 && given.count("pitch") != 0) {
-      throw Error(given.at("pitch"), fmt::format("{}: give the coil's length or its pitch "
-                                                 "(length = turns x pitch), not both",
-                                                 context));
+    // The winding: exactly one of length, pitch and close-wound.
+    std::vector<const Token*> windings;
+    for (const char* w : {"length", "pitch", "close-wound"}) {
+      if (given.count(w) != 0) windings.push_back(&given.at(w));
     }
-    for (const char* required : {"turns", "diameter", "wire"}) {
+    if (windings.size() > 1) {
+      const Token* second = windings[0];
+      for (const Token* w : windings) second = w->column > second->column ? w : second;
+      if (given.count("close-wound") == 0) {
+        throw Error(*second, fmt::format("{}: give the coil's length or its pitch (length = "
+                                         "turns x pitch), not both",
+                                         context));
+      }
+      throw Error(*second, fmt::format("{}: give the coil's winding by length=L, pitch=P or "
+                                       "close-wound, exactly one (close-wound sets the pitch to "
+                                       "wire + 2 x insulation)",
+                                       context));
+    }
+    if (given.count("turns") != 0 && target_h) {
+      throw Error(given.at("inductance"),
+                  fmt::format("{}: give the coil's turns=N or its inductance=L (the turns are "
+                              "then found), not both",
+                              context));
+    }
+    if (target_h && given.count("length") != 0) {
+      throw Error(given.at("length"),
+                  fmt::format("{}: length= fixes the winding, so it cannot go with "
+                              "inductance=; give pitch=P or close-wound and the turns (and "
+                              "length) are found",
+                              context));
+    }
+    if (given.count("turns") == 0 && !target_h) {
+      throw Error(Peek(), fmt::format("{}: the coil needs turns= (or inductance=); write {}",
+                                      context, usage));
+    }
+    for (const char* required : {"diameter", "wire"}) {
       if (given.count(required) == 0) {
         throw Error(Peek(),
                     fmt::format("{}: the coil needs {}=; write {}", context, required, usage));
       }
     }
-    if (given.count("length") == 0 && given.count("pitch") == 0) {
-      throw Error(Peek(),
-                  fmt::format("{}: the coil needs length=L or pitch=P; write {}", context, usage));
+    if (windings.empty()) {
+      throw Error(Peek(), fmt::format("{}: the coil needs length=L, pitch=P or close-wound; "
+                                      "write {}",
+                                      context, usage));
+    }
+    if (given.count("close-wound") != 0) {
+      coil.pitch_m = coil.wire_diameter_m + 2.0 * coil.insulation_m;
+    }
+    const Token& winding = *windings.front();
+    if (target_h) {
+      try {
+        return DesignCoilTurns(coil, *target_h);
+      } catch (const InputError& e) {
+        throw Error(given.at("inductance"), fmt::format("{}: {}", context, e.message()));
+      }
     }
     const std::string problem = CoilProblem(coil);
-    if (!problem.empty()) {
-      const Token& at = given.count("pitch") != 0 ? given.at("pitch") : given.at("length");
-      throw Error(at, fmt::format("{}: {}", context, problem));
-    }
+    if (!problem.empty()) throw Error(winding, fmt::format("{}: {}", context, problem));
     return coil;
+  }
+
+  // `close-wound` at Peek(): three tokens written without spaces.
+  bool IsCloseWound() const {
+    return IsWord("close") && pos_ + 2 < tokens_.size() && tokens_[pos_ + 1].text == "-" &&
+           !tokens_[pos_ + 1].space_before && tokens_[pos_ + 2].text == "wound" &&
+           !tokens_[pos_ + 2].space_before;
   }
 
   void LoadWarnings(const LoadSpec& load) {
@@ -1081,6 +1175,7 @@ class Parser {
         have_turns = true;
         continue;
       }
+      if (IsWord("ratio")) throw RatioError(context);
       static const std::vector<std::string> kClauses = {
           "turns", "magnetizing", "al", "leakage", "compensation", "coreloss", "q"};
       if (clause.kind != TokenKind::kName ||
@@ -1170,6 +1265,33 @@ class Parser {
     transformer_lines_[t.name] = t.location;
     feed_transformer_[t.feed] = {t.name, t.location};
     model_.transformers.push_back(std::move(t));
+  }
+
+  // `ratio 1:49` at Peek(): the transformer takes its turns, whose square is the impedance
+  // ratio; the error names the turns that give the ratio written.
+  InputError RatioError(const std::string& context) {
+    const Token ratio = Next();
+    if (IsPunct("=")) Next();
+    const size_t p = pos_;
+    const auto number = [&](size_t i) {
+      return i < tokens_.size() && tokens_[i].kind == TokenKind::kNumber && tokens_[i].number > 0.0;
+    };
+    if (number(p) && p + 2 < tokens_.size() && tokens_[p + 1].kind == TokenKind::kPunct &&
+        tokens_[p + 1].text == ":" && number(p + 2)) {
+      const std::string primary = FormatNumber(std::sqrt(tokens_[p].number));
+      const std::string secondary = FormatNumber(std::sqrt(tokens_[p + 2].number));
+      return Error(ratio, fmt::format("{}: a transformer takes its turns, not its impedance "
+                                      "ratio; an impedance ratio of {}:{} is a turns ratio of "
+                                      "{}:{} (the impedance goes as the square of the turns): "
+                                      "write turns {}:{}",
+                                      context, tokens_[p].text, tokens_[p + 2].text, primary,
+                                      secondary, primary, secondary));
+    }
+    return Error(ratio, fmt::format("{}: a transformer takes its turns, not its impedance "
+                                    "ratio; write turns P:S (transmitter side : antenna side), "
+                                    "the square roots of the impedance ratio: an impedance ratio "
+                                    "of 1:49 is turns 1:7",
+                                    context));
   }
 
   static std::string CableList() {

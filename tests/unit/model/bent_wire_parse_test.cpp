@@ -111,8 +111,8 @@ TEST(ParseBentWireError, ALegTurningStraightBackIsRefusedAtItsPoint) {
 TEST(ParseBentWireError, TheRadiusIsCheckedAgainstTheWholeLength) {
   EXPECT_EQ(ErrorOf("wire kit through (0, 0, 1), (0, 0, 2), (1, 0, 2) radius 0.5\n" + kFeed),
             "kit.wire:1:57: error: wire 'kit': the radius 0.5 m is not small against the wire "
-            "length 2 m; the thin-wire model needs the radius well below the length (under a "
-            "quarter of it, best under a hundredth)");
+            "length 2 m; the thin-wire model needs the radius under a tenth of the length (did "
+            "you mean radius 0.5mm?)");
 }
 
 // ---- shapes ------------------------------------------------------------------------------
@@ -201,7 +201,7 @@ TEST(ParseShapeError, TopAndLengthAreRequired) {
   EXPECT_EQ(ErrorOf("shape kit sloper top=6 radius 1mm\n" + kFeed),
             "kit.wire:1:34: error: shape 'kit': missing 'length=L' (the length of the wire)");
   EXPECT_EQ(ErrorOf("shape kit sloper top=6 length=10\n" + kFeed),
-            "kit.wire:1:33: error: shape 'kit': missing 'radius R'");
+            "kit.wire:1:33: error: shape 'kit': missing 'radius R' (or 'diameter D')");
 }
 
 TEST(ParseShapeError, ASloperTooShortToReachTheGroundSaysHowLongItMustBe) {
@@ -265,15 +265,16 @@ TEST(ParseShapeError, ClausesAreCheckedLikeAWiresClauses) {
             "kit.wire:1:24: error: shape 'kit': top is given twice");
   EXPECT_EQ(ErrorOf("shape kit sloper height=6 length=10 radius 1mm\n" + kFeed),
             "kit.wire:1:18: error: shape 'kit': unexpected 'height'; after the kind come top=H, "
-            "length=L, radius R and the optional low=HL, toward=AZ, at (X, Y), 'segments N', "
+            "length=L, radius R (or diameter D) and the optional low=HL, toward=AZ, at (X, Y), "
+            "'segments N', "
             "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]'");
   EXPECT_EQ(ErrorOf("shape kit sloper top=6 length=10 at (1, 2, 3) radius 1mm\n" + kFeed),
             "kit.wire:1:42: error: shape 'kit': the at point has more than 2 coordinates; "
             "write (X, Y)");
   EXPECT_EQ(ErrorOf("shape kit horizontal top=5 length=1 radius 0.3\n" + kFeed),
             "kit.wire:1:44: error: shape 'kit': the radius 0.3 m is not small against the wire "
-            "length 1 m; the thin-wire model needs the radius well below the length (under a "
-            "quarter of it, best under a hundredth)");
+            "length 1 m; the thin-wire model needs the radius under a tenth of the length (did "
+            "you mean radius 0.3mm?)");
 }
 
 }  // namespace

@@ -501,7 +501,7 @@ TEST(ParseError, UnknownStatementSuggestsTheNearestKeyword) {
 
 TEST(ParseError, MissingArgumentsAreNamed) {
   EXPECT_EQ(ErrorOf("wire top from (0,0,0) to (0,0,5)\n"),
-            "kit.wire:1:33: error: wire 'top': missing 'radius R'");
+            "kit.wire:1:33: error: wire 'top': missing 'radius R' (or 'diameter D')");
   EXPECT_EQ(ErrorOf("wire top\n"),
             "kit.wire:1:9: error: wire 'top': missing 'from (X, Y, Z)' or 'through "
             "(X, Y, Z), ...'");
@@ -552,8 +552,8 @@ TEST(ParseError, ExtraTokensAreUnexpected) {
             "optional 'voltage V'");
   EXPECT_EQ(ErrorOf("wire a from (0,0,0) to (1,0,0) radius 1mm colour red\n"),
             "kit.wire:1:43: error: wire 'a': unexpected 'colour'; after the points come 'radius "
-            "R' and the optional 'segments N', 'material NAME' or 'conductivity=SIGMA "
-            "[permeability=MU_R]'");
+            "R' (or 'diameter D') and the optional 'segments N', 'material NAME' or "
+            "'conductivity=SIGMA [permeability=MU_R]'");
   EXPECT_EQ(ErrorOf("units m cm\n"),
             "kit.wire:1:9: error: unexpected 'cm' at the end of the units statement; remove it "
             "or start a new line");
@@ -701,10 +701,10 @@ TEST(ParseError, RadiusMustBePositive) {
 TEST(ParseError, RadiusNotSmallAgainstLengthIsRefused) {
   EXPECT_EQ(ErrorOf("wire a from (0,0,0) to (1,0,0) radius 25cm\n"),
             "kit.wire:1:39: error: wire 'a': the radius 0.25 m is not small against the wire "
-            "length 1 m; the thin-wire model needs the radius well below the length (under a "
-            "quarter of it, best under a hundredth)");
-  // Just under a quarter is still accepted.
-  EXPECT_NO_THROW(Parse("wire a from (0,0,0) to (1,0,0) radius 24.9cm\nfeed f at a@50%\n"));
+            "length 1 m; the thin-wire model needs the radius under a tenth of the length (did "
+            "you mean radius 25mm?)");
+  // A tenth is still accepted (model/thin_wire.hpp).
+  EXPECT_NO_THROW(Parse("wire a from (0,0,0) to (1,0,0) radius 10cm\nfeed f at a@50%\n"));
 }
 
 TEST(ParseError, PositionBeyondTheWireGivesItsLength) {
