@@ -270,306 +270,303 @@ std::string SwrPlot(const SweepReport& report, LabelSpace& space) {
   // transmitter dotted; with a transformer or line, X = 0 at the antenna terminals dash-dotted
   // in another colour, its label lower down so the two never cover each other.
   const bool chain = HasFeedChain(report.sweep);
-  auto resonance_marks =
-      [&](const std::vector<double>& list_hz, const char* colour, const char* dash,
-          const char* where, double label_y) {
-        for (double f_hz : list_hz) {
-          for (const Panel& panel : panels) {
-            if (!panel.Holds(f_hz)) continue;
-            const double x = panel.X(f_hz);
-            out += fmt::format(
-                "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
-                "stroke-dasharray=\"{}\"/>\n",
-                Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), colour, dash);
-            const std::string label = fmt::format("X = 0{} at {:.4f} MHz", where, f_hz / 1e6);
-            // A resonance too close to a label already drawn keeps its line only.
-            if (!space.TakeIfFree(BoxOfUpwardText(x + 4.0, label_y, label, 11, "end"))) continue;
-            out += Text(
-                x + 4.0, label_y, label, 11, "end", colour,
-                fmt::format(" transform=\"rotate(-90 {} {})\"{}", Px(x + 4.0), Px(label_y), kHalo));
-          }
-        };
-        resonance_marks(report.sweep.transmitter_resonances_hz, kResonanceColour, kResonanceDash,
-                        chain ? " (transmitter)" : "", kPlotTop_px + 24.0);
-        if (chain) {
-          resonance_marks(report.sweep.resonances_hz, kAntennaResonanceColour,
-                          kAntennaResonanceDash, " (antenna)", kPlotTop_px + 230.0);
-        }
-        // The predicted curve, one path per panel.
-        bool clipped = false;
-        for (const Panel& panel : panels) {
-          std::vector<std::pair<double, double>> xy;
-          for (const SweepPoint& p : report.sweep.points) {
-            if (panel.Holds(p.frequency_hz)) xy.emplace_back(panel.X(p.frequency_hz), SwrY(p.swr));
-          }
-          if (xy.size() == 1) xy.push_back({xy[0].first + 1.0, xy[0].second});
-          for (const SweepPoint& p : report.sweep.points) {
-            if (panel.Holds(p.frequency_hz) && p.swr > kMaxSwr) clipped = true;
-          }
-          out += fmt::format(
-              "<path class=\"predicted\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.4\" "
-              "stroke-linejoin=\"round\"/>\n",
-              PolylinePath(xy), kTraceColour);
-        }
-        // The measured curve, dash-dotted.
-        if (report.measured) {
-          for (const Panel& panel : panels) {
-            std::vector<std::pair<double, double>> xy;
-            for (const MeasuredPoint& row : report.measured->points) {
-              if (panel.Holds(row.frequency_hz)) {
-                xy.emplace_back(panel.X(row.frequency_hz), SwrY(row.measured_swr));
-              }
-            }
-            if (xy.empty()) continue;
-            out += fmt::format(
-                "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" "
-                "stroke-width=\"2.2\" "
-                "stroke-dasharray=\"{}\"/>\n",
-                PolylinePath(xy), kMeasuredColour, kMeasuredDash);
-          }
-        }
-        // The lowest SWR: a dot and its value, below the dot where there is room (the curve lies
-        // above its lowest point everywhere else), else above it, on the side toward the panel's
-        // middle.
-        for (const Panel& panel : panels) {
-          if (!panel.Holds(report.sweep.min_swr_frequency_hz)) continue;
-          const double x = panel.X(report.sweep.min_swr_frequency_hz);
-          const double y = SwrY(report.sweep.min_swr);
-          out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(x), Px(y),
-                             kTraceColour);
-          const std::string text = fmt::format("SWR {:.2f} at {:.4f} MHz", report.sweep.min_swr,
-                                               report.sweep.min_swr_frequency_hz / 1e6);
-          // Beside the dot, toward the panel's middle first, or centred under (over) it and kept
-          // inside the panel; inside the panel if it can be, else anywhere free.
-          const bool right_half = x > (panel.left_px + panel.right_px) / 2.0;
-          const double half_width = TextWidth(text, 12) / 2.0;
-          const double centre = std::clamp(
-              x, panel.left_px + half_width + 3.0,
-              std::max(panel.left_px + half_width + 3.0, panel.right_px - half_width - 3.0));
-          const std::pair<double, const char*> sides[] = {
-              {x + (right_half ? -8.0 : 8.0), right_half ? "end" : "start"},
-              {x + (right_half ? 8.0 : -8.0), right_half ? "start" : "end"},
-              {centre, "middle"}};
-          std::string label;
-          for (const bool within : {true, false}) {
-            for (const double dy : {22.0, -12.0, 38.0, -28.0, -44.0}) {
-              if (y + dy > kPlotBottom_px - 4.0 || y + dy < kPlotTop_px + 14.0) continue;
-              for (const auto& [lx, anchor] : sides) {
-                const TextBox box = BoxOfText(lx, y + dy, text, 12, anchor);
-                if (within && (box.x0 < panel.left_px + 2.0 || box.x1 > panel.right_px - 2.0))
-                  continue;
-                label = Label(space, lx, y + dy, text, 12, anchor, kTraceColour, kHalo);
-                if (!label.empty()) break;
-              }
-              if (!label.empty()) break;
-            }
-            if (!label.empty()) break;
-          }
-          out += label;
-          break;
-        }
-        // Legend.
-        const double ly = kPlotBottom_px + 62.0;
-        double lx =
-            LegendEntry(out, space, kPlotLeft_px, ly, kTraceColour, 2.4, "none", "predicted") + 24;
-        if (report.measured) {
-          lx =
-              LegendEntry(out, space, lx, ly, kMeasuredColour, 2.2, kMeasuredDash, "measured") + 24;
-        }
-        out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"30\" height=\"10\" fill=\"{}\"/>\n",
-                           Px(lx), Px(ly - 5), kBandFill);
-        out += Label(space, lx + 36, ly + 4, "amateur band (ITU)", 12, "start");
-        lx += 36 + TextWidth("amateur band (ITU)", 12) + 24;
-        if (chain) {
-          lx = LegendEntry(out, space, lx, ly, kResonanceColour, 1.2, kResonanceDash,
-                           "X = 0 at the transmitter") +
-               24;
-          LegendEntry(out, space, lx, ly, kAntennaResonanceColour, 1.2, kAntennaResonanceDash,
-                      "X = 0 at the antenna terminals");
-        } else {
-          LegendEntry(out, space, lx, ly, kResonanceColour, 1.2, kResonanceDash,
-                      "resonance (X = 0)");
-        }
-        if (clipped) {
-          out += Label(space, kPlotLeft_px, ly + 24.0, "An SWR above 10 is drawn on the top edge.",
-                       12, "start", kTraceColour);
-        }
-        out += "</g>\n";
-        return out;
+  auto resonance_marks = [&](const std::vector<double>& list_hz, const char* colour,
+                             const char* dash, const char* where, double label_y) {
+    for (double f_hz : list_hz) {
+      for (const Panel& panel : panels) {
+        if (!panel.Holds(f_hz)) continue;
+        const double x = panel.X(f_hz);
+        out += fmt::format(
+            "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"1.2\" "
+            "stroke-dasharray=\"{}\"/>\n",
+            Px(x), Px(kPlotTop_px), Px(x), Px(kPlotBottom_px), colour, dash);
+        const std::string label = fmt::format("X = 0{} at {:.4f} MHz", where, f_hz / 1e6);
+        // A resonance too close to a label already drawn keeps its line only.
+        if (!space.TakeIfFree(BoxOfUpwardText(x + 4.0, label_y, label, 11, "end"))) continue;
+        out += Text(
+            x + 4.0, label_y, label, 11, "end", colour,
+            fmt::format(" transform=\"rotate(-90 {} {})\"{}", Px(x + 4.0), Px(label_y), kHalo));
       }
-
-  struct Smith {
-    double X(Complex gamma) const { return kSmithX_px + kSmithR_px * gamma.real(); }
-    double Y(Complex gamma) const { return kSmithY_px - kSmithR_px * gamma.imag(); }
+    }
   };
-
-  Complex Gamma(Complex z_normalised) { return (z_normalised - 1.0) / (z_normalised + 1.0); }
-
-  std::string SmithChart(const SweepReport& report, LabelSpace& space) {
-    const Smith s;
-    const double z0_ohm = report.sweep.z0_ohm;
-    const char* const kChartHalo = " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"";
-    std::string out = "<g class=\"smith\">\n";
-    out += Label(space, kSmithX_px, kPlotTop_px - 34.0,
-                 fmt::format("Impedance at the transmitter, normalised to {:g} ohm", z0_ohm), 15,
-                 "middle", kTextColour, " font-weight=\"bold\"");
-    out += fmt::format(
-        "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"#fbfbfb\" stroke=\"#666666\" "
-        "stroke-width=\"1.4\"/>\n",
-        Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px));
-    // Constant-resistance circles: centre r/(1+r), radius 1/(1+r) in the reflection plane.
-    for (double r : {0.2, 0.5, 1.0, 2.0, 5.0}) {
-      const double centre = r / (1.0 + r);
-      const double radius = 1.0 / (1.0 + r);
-      out += fmt::format(
-          "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" "
-          "stroke-width=\"{}\"/>\n",
-          Px(kSmithX_px + kSmithR_px * centre), Px(kSmithY_px), Px(kSmithR_px * radius),
-          r == 1.0 ? "#9a9a9a" : kGridColour, r == 1.0 ? 1.2 : 0.8);
+  resonance_marks(report.sweep.transmitter_resonances_hz, kResonanceColour, kResonanceDash,
+                  chain ? " (transmitter)" : "", kPlotTop_px + 24.0);
+  if (chain) {
+    resonance_marks(report.sweep.resonances_hz, kAntennaResonanceColour, kAntennaResonanceDash,
+                    " (antenna)", kPlotTop_px + 230.0);
+  }
+  // The predicted curve, one path per panel.
+  bool clipped = false;
+  for (const Panel& panel : panels) {
+    std::vector<std::pair<double, double>> xy;
+    for (const SweepPoint& p : report.sweep.points) {
+      if (panel.Holds(p.frequency_hz)) xy.emplace_back(panel.X(p.frequency_hz), SwrY(p.swr));
     }
-    // Constant-reactance arcs, traced point by point over r = 0 .. infinity (r = tan t).
-    for (double x : {0.2, 0.5, 1.0, 2.0, 5.0}) {
-      for (double sign : {1.0, -1.0}) {
-        std::vector<std::pair<double, double>> xy;
-        constexpr int kSamples = 160;
-        for (int i = 0; i < kSamples; ++i) {
-          const double t = (kPi / 2.0) * i / kSamples;
-          const Complex g = Gamma(Complex(std::tan(t), sign * x));
-          xy.emplace_back(s.X(g), s.Y(g));
-        }
-        xy.emplace_back(s.X(Complex(1.0, 0.0)), s.Y(Complex(1.0, 0.0)));
-        out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
-                           PolylinePath(xy), kGridColour);
-        const Complex edge = Gamma(Complex(0.0, sign * x)) * 1.07;
-        const double c = edge.real();
-        out += Label(space, s.X(edge), s.Y(edge) + 4.0,
-                     fmt::format("{}j{:g}", sign > 0 ? "+" : "-", x), 11,
-                     c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle"), "#555555");
-      }
+    if (xy.size() == 1) xy.push_back({xy[0].first + 1.0, xy[0].second});
+    for (const SweepPoint& p : report.sweep.points) {
+      if (panel.Holds(p.frequency_hz) && p.swr > kMaxSwr) clipped = true;
     }
-    // The real axis and its resistance labels.
     out += fmt::format(
-        "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
-        Px(kSmithX_px - kSmithR_px), Px(kSmithY_px), Px(kSmithX_px + kSmithR_px), Px(kSmithY_px),
-        "#9a9a9a");
-    for (double r : {0.0, 0.2, 0.5, 1.0, 2.0, 5.0}) {
-      const Complex g = Gamma(Complex(r, 0.0));
-      out += Label(space, s.X(g) + 3.0, kSmithY_px - 4.0, fmt::format("{:g}", r), 11, "start",
-                   "#555555", kChartHalo);
-    }
-    // The SWR 2 circle: |Gamma| = (2 - 1) / (2 + 1) = 1/3.
-    out += fmt::format(
-        "<circle class=\"limit\" cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" "
-        "stroke-width=\"1.4\" stroke-dasharray=\"{}\"/>\n",
-        Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px / 3.0), kLimitColour, kLimitDash);
-    out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px / 3.0 + 14.0, "SWR 2", 11, "middle",
-                 kLimitColour, kChartHalo);
-    out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 34.0,
-                 "open circle: first frequency; filled circle: last", 11, "middle", "#555555");
-    out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 50.0,
-                 "circles of constant resistance 0, 0.2, 0.5, 1, 2, 5; arcs of reactance +-j", 11,
-                 "middle", "#555555");
-    // The traces, one per span in a colour of its own, with start and end frequencies.
-    const std::vector<Panel> panels = Panels(report);
-    std::vector<SmithLegendItem> legend;
-    for (std::size_t index = 0; index < panels.size(); ++index) {
-      const Panel& panel = panels[index];
-      const char* colour = BandColour(index);
+        "<path class=\"predicted\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.4\" "
+        "stroke-linejoin=\"round\"/>\n",
+        PolylinePath(xy), kTraceColour);
+  }
+  // The measured curve, dash-dotted.
+  if (report.measured) {
+    for (const Panel& panel : panels) {
       std::vector<std::pair<double, double>> xy;
-      std::vector<const SweepPoint*> inside;
-      for (const SweepPoint& p : report.sweep.points) {
-        if (!panel.Holds(p.frequency_hz)) continue;
-        const Complex g = Gamma(p.transmitter_impedance_ohm / z0_ohm);
-        xy.emplace_back(s.X(g), s.Y(g));
-        inside.push_back(&p);
+      for (const MeasuredPoint& row : report.measured->points) {
+        if (panel.Holds(row.frequency_hz)) {
+          xy.emplace_back(panel.X(row.frequency_hz), SwrY(row.measured_swr));
+        }
       }
       if (xy.empty()) continue;
       out += fmt::format(
-          "<path class=\"smith-trace\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.2\" "
-          "stroke-linejoin=\"round\"/>\n",
-          PolylinePath(xy), colour);
-      out += fmt::format(
-          "<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"#ffffff\" stroke=\"{}\" "
-          "stroke-width=\"2\"/>\n",
-          Px(xy.front().first), Px(xy.front().second), colour);
-      out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(xy.back().first),
-                         Px(xy.back().second), colour);
-      legend.push_back(
-          {report.bands.empty() ? "predicted" : panel.name, colour, "none", "smith-legend"});
-      // Start and end labels pushed outward from the chart's centre, away from the trace, or
-      // turned about the point until they are clear of every label drawn.
-      auto label = [&](std::pair<double, double> at, double f_hz) {
-        const double out_angle = std::hypot(at.first - kSmithX_px, at.second - kSmithY_px) < 1.0
-                                     ? 0.0
-                                     : std::atan2(at.second - kSmithY_px, at.first - kSmithX_px);
-        const std::string text = fmt::format("{:.4f} MHz", f_hz / 1e6);
-        for (double distance : {12.0, 22.0, 34.0}) {
-          for (double turn_deg :
-               {0.0, 30.0, -30.0, 60.0, -60.0, 90.0, -90.0, 120.0, -120.0, 150.0, -150.0, 180.0}) {
-            const double a = out_angle + turn_deg * kPi / 180.0;
-            const double dx = std::cos(a);
-            const double dy = std::sin(a);
-            const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");
-            const std::string placed =
-                Label(space, at.first + distance * dx, at.second + distance * dy + 4.0, text, 11,
-                      anchor, colour, kChartHalo);
-            if (!placed.empty()) return placed;
-          }
-        }
-        return std::string();  // no room: the legend and the other end still say where it is
-      };
-      out += label(xy.front(), inside.front()->frequency_hz);
-      out += label(xy.back(), inside.back()->frequency_hz);
-    }
-    if (report.measured) {
-      std::vector<std::pair<double, double>> xy;
-      for (const MeasuredPoint& row : report.measured->points) {
-        const Complex g = Gamma(row.measured_z_ohm / z0_ohm);
-        xy.emplace_back(s.X(g), s.Y(g));
-      }
-      out += fmt::format(
-          "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2\" "
+          "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" "
+          "stroke-width=\"2.2\" "
           "stroke-dasharray=\"{}\"/>\n",
           PolylinePath(xy), kMeasuredColour, kMeasuredDash);
     }
-    // The legend, above the chart: one entry per trace, then the measured one, in rows no
-    // wider than the chart's column, each row centred.
-    if (report.measured) legend.push_back({"measured", kMeasuredColour, kMeasuredDash, ""});
-    constexpr double kLine_px = 22.0;
-    constexpr double kGap_px = 16.0;
-    const double column_px = 2.0 * (kWidth_px - kSmithX_px) - 20.0;
-    auto item_width = [&](const SmithLegendItem& item) {
-      return kLine_px + 6 + TextWidth(item.text, 12);
-    };
-    std::vector<std::vector<const SmithLegendItem*>> rows(1);
-    double row_width = 0.0;
-    for (const SmithLegendItem& item : legend) {
-      const double wanted = (rows.back().empty() ? 0.0 : row_width + kGap_px) + item_width(item);
-      if (!rows.back().empty() && wanted > column_px) {
-        rows.emplace_back();
-        row_width = item_width(item);
-      } else {
-        row_width = wanted;
-      }
-      rows.back().push_back(&item);
-    }
-    // Two rows fit between the heading and the chart's top label; the rows move up when there
-    // are more.
-    double ly = kPlotTop_px - 18.0 - 15.0 * std::max(0.0, double(rows.size()) - 2.0);
-    for (const auto& row : rows) {
-      double width = -kGap_px;
-      for (const SmithLegendItem* item : row) width += item_width(*item) + kGap_px;
-      double lx = kSmithX_px - width / 2.0;
-      for (const SmithLegendItem* item : row) {
-        lx = LegendEntry(out, space, lx, ly, item->colour, 2.2, item->dash, item->text,
-                         item->css_class, kLine_px) +
-             kGap_px;
-      }
-      ly += 15.0;
-    }
-    out += "</g>\n";
-    return out;
   }
+  // The lowest SWR: a dot and its value, below the dot where there is room (the curve lies
+  // above its lowest point everywhere else), else above it, on the side toward the panel's
+  // middle.
+  for (const Panel& panel : panels) {
+    if (!panel.Holds(report.sweep.min_swr_frequency_hz)) continue;
+    const double x = panel.X(report.sweep.min_swr_frequency_hz);
+    const double y = SwrY(report.sweep.min_swr);
+    out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(x), Px(y),
+                       kTraceColour);
+    const std::string text = fmt::format("SWR {:.2f} at {:.4f} MHz", report.sweep.min_swr,
+                                         report.sweep.min_swr_frequency_hz / 1e6);
+    // Beside the dot, toward the panel's middle first, or centred under (over) it and kept
+    // inside the panel; inside the panel if it can be, else anywhere free.
+    const bool right_half = x > (panel.left_px + panel.right_px) / 2.0;
+    const double half_width = TextWidth(text, 12) / 2.0;
+    const double centre =
+        std::clamp(x, panel.left_px + half_width + 3.0,
+                   std::max(panel.left_px + half_width + 3.0, panel.right_px - half_width - 3.0));
+    const std::pair<double, const char*> sides[] = {
+        {x + (right_half ? -8.0 : 8.0), right_half ? "end" : "start"},
+        {x + (right_half ? 8.0 : -8.0), right_half ? "start" : "end"},
+        {centre, "middle"}};
+    std::string label;
+    for (const bool within : {true, false}) {
+      for (const double dy : {22.0, -12.0, 38.0, -28.0, -44.0}) {
+        if (y + dy > kPlotBottom_px - 4.0 || y + dy < kPlotTop_px + 14.0) continue;
+        for (const auto& [lx, anchor] : sides) {
+          const TextBox box = BoxOfText(lx, y + dy, text, 12, anchor);
+          if (within && (box.x0 < panel.left_px + 2.0 || box.x1 > panel.right_px - 2.0)) continue;
+          label = Label(space, lx, y + dy, text, 12, anchor, kTraceColour, kHalo);
+          if (!label.empty()) break;
+        }
+        if (!label.empty()) break;
+      }
+      if (!label.empty()) break;
+    }
+    out += label;
+    break;
+  }
+  // Legend.
+  const double ly = kPlotBottom_px + 62.0;
+  double lx =
+      LegendEntry(out, space, kPlotLeft_px, ly, kTraceColour, 2.4, "none", "predicted") + 24;
+  if (report.measured) {
+    lx = LegendEntry(out, space, lx, ly, kMeasuredColour, 2.2, kMeasuredDash, "measured") + 24;
+  }
+  out += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"30\" height=\"10\" fill=\"{}\"/>\n", Px(lx),
+                     Px(ly - 5), kBandFill);
+  out += Label(space, lx + 36, ly + 4, "amateur band (ITU)", 12, "start");
+  lx += 36 + TextWidth("amateur band (ITU)", 12) + 24;
+  if (chain) {
+    lx = LegendEntry(out, space, lx, ly, kResonanceColour, 1.2, kResonanceDash,
+                     "X = 0 at the transmitter") +
+         24;
+    LegendEntry(out, space, lx, ly, kAntennaResonanceColour, 1.2, kAntennaResonanceDash,
+                "X = 0 at the antenna terminals");
+  } else {
+    LegendEntry(out, space, lx, ly, kResonanceColour, 1.2, kResonanceDash, "resonance (X = 0)");
+  }
+  if (clipped) {
+    out += Label(space, kPlotLeft_px, ly + 24.0, "An SWR above 10 is drawn on the top edge.", 12,
+                 "start", kTraceColour);
+  }
+  out += "</g>\n";
+  return out;
+}
+
+struct Smith {
+  double X(Complex gamma) const { return kSmithX_px + kSmithR_px * gamma.real(); }
+  double Y(Complex gamma) const { return kSmithY_px - kSmithR_px * gamma.imag(); }
+};
+
+Complex Gamma(Complex z_normalised) { return (z_normalised - 1.0) / (z_normalised + 1.0); }
+
+std::string SmithChart(const SweepReport& report, LabelSpace& space) {
+  const Smith s;
+  const double z0_ohm = report.sweep.z0_ohm;
+  const char* const kChartHalo = " stroke=\"#fbfbfb\" stroke-width=\"3\" paint-order=\"stroke\"";
+  std::string out = "<g class=\"smith\">\n";
+  out += Label(space, kSmithX_px, kPlotTop_px - 34.0,
+               fmt::format("Impedance at the transmitter, normalised to {:g} ohm", z0_ohm), 15,
+               "middle", kTextColour, " font-weight=\"bold\"");
+  out += fmt::format(
+      "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"#fbfbfb\" stroke=\"#666666\" "
+      "stroke-width=\"1.4\"/>\n",
+      Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px));
+  // Constant-resistance circles: centre r/(1+r), radius 1/(1+r) in the reflection plane.
+  for (double r : {0.2, 0.5, 1.0, 2.0, 5.0}) {
+    const double centre = r / (1.0 + r);
+    const double radius = 1.0 / (1.0 + r);
+    out += fmt::format(
+        "<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" "
+        "stroke-width=\"{}\"/>\n",
+        Px(kSmithX_px + kSmithR_px * centre), Px(kSmithY_px), Px(kSmithR_px * radius),
+        r == 1.0 ? "#9a9a9a" : kGridColour, r == 1.0 ? 1.2 : 0.8);
+  }
+  // Constant-reactance arcs, traced point by point over r = 0 .. infinity (r = tan t).
+  for (double x : {0.2, 0.5, 1.0, 2.0, 5.0}) {
+    for (double sign : {1.0, -1.0}) {
+      std::vector<std::pair<double, double>> xy;
+      constexpr int kSamples = 160;
+      for (int i = 0; i < kSamples; ++i) {
+        const double t = (kPi / 2.0) * i / kSamples;
+        const Complex g = Gamma(Complex(std::tan(t), sign * x));
+        xy.emplace_back(s.X(g), s.Y(g));
+      }
+      xy.emplace_back(s.X(Complex(1.0, 0.0)), s.Y(Complex(1.0, 0.0)));
+      out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
+                         PolylinePath(xy), kGridColour);
+      const Complex edge = Gamma(Complex(0.0, sign * x)) * 1.07;
+      const double c = edge.real();
+      out +=
+          Label(space, s.X(edge), s.Y(edge) + 4.0, fmt::format("{}j{:g}", sign > 0 ? "+" : "-", x),
+                11, c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle"), "#555555");
+    }
+  }
+  // The real axis and its resistance labels.
+  out += fmt::format(
+      "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
+      Px(kSmithX_px - kSmithR_px), Px(kSmithY_px), Px(kSmithX_px + kSmithR_px), Px(kSmithY_px),
+      "#9a9a9a");
+  for (double r : {0.0, 0.2, 0.5, 1.0, 2.0, 5.0}) {
+    const Complex g = Gamma(Complex(r, 0.0));
+    out += Label(space, s.X(g) + 3.0, kSmithY_px - 4.0, fmt::format("{:g}", r), 11, "start",
+                 "#555555", kChartHalo);
+  }
+  // The SWR 2 circle: |Gamma| = (2 - 1) / (2 + 1) = 1/3.
+  out += fmt::format(
+      "<circle class=\"limit\" cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"none\" stroke=\"{}\" "
+      "stroke-width=\"1.4\" stroke-dasharray=\"{}\"/>\n",
+      Px(kSmithX_px), Px(kSmithY_px), Px(kSmithR_px / 3.0), kLimitColour, kLimitDash);
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px / 3.0 + 14.0, "SWR 2", 11, "middle",
+               kLimitColour, kChartHalo);
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 34.0,
+               "open circle: first frequency; filled circle: last", 11, "middle", "#555555");
+  out += Label(space, kSmithX_px, kSmithY_px + kSmithR_px + 50.0,
+               "circles of constant resistance 0, 0.2, 0.5, 1, 2, 5; arcs of reactance +-j", 11,
+               "middle", "#555555");
+  // The traces, one per span in a colour of its own, with start and end frequencies.
+  const std::vector<Panel> panels = Panels(report);
+  std::vector<SmithLegendItem> legend;
+  for (std::size_t index = 0; index < panels.size(); ++index) {
+    const Panel& panel = panels[index];
+    const char* colour = BandColour(index);
+    std::vector<std::pair<double, double>> xy;
+    std::vector<const SweepPoint*> inside;
+    for (const SweepPoint& p : report.sweep.points) {
+      if (!panel.Holds(p.frequency_hz)) continue;
+      const Complex g = Gamma(p.transmitter_impedance_ohm / z0_ohm);
+      xy.emplace_back(s.X(g), s.Y(g));
+      inside.push_back(&p);
+    }
+    if (xy.empty()) continue;
+    out += fmt::format(
+        "<path class=\"smith-trace\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2.2\" "
+        "stroke-linejoin=\"round\"/>\n",
+        PolylinePath(xy), colour);
+    out += fmt::format(
+        "<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"#ffffff\" stroke=\"{}\" "
+        "stroke-width=\"2\"/>\n",
+        Px(xy.front().first), Px(xy.front().second), colour);
+    out += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"4\" fill=\"{}\"/>\n", Px(xy.back().first),
+                       Px(xy.back().second), colour);
+    legend.push_back(
+        {report.bands.empty() ? "predicted" : panel.name, colour, "none", "smith-legend"});
+    // Start and end labels pushed outward from the chart's centre, away from the trace, or
+    // turned about the point until they are clear of every label drawn.
+    auto label = [&](std::pair<double, double> at, double f_hz) {
+      const double out_angle = std::hypot(at.first - kSmithX_px, at.second - kSmithY_px) < 1.0
+                                   ? 0.0
+                                   : std::atan2(at.second - kSmithY_px, at.first - kSmithX_px);
+      const std::string text = fmt::format("{:.4f} MHz", f_hz / 1e6);
+      for (double distance : {12.0, 22.0, 34.0}) {
+        for (double turn_deg :
+             {0.0, 30.0, -30.0, 60.0, -60.0, 90.0, -90.0, 120.0, -120.0, 150.0, -150.0, 180.0}) {
+          const double a = out_angle + turn_deg * kPi / 180.0;
+          const double dx = std::cos(a);
+          const double dy = std::sin(a);
+          const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");
+          const std::string placed =
+              Label(space, at.first + distance * dx, at.second + distance * dy + 4.0, text, 11,
+                    anchor, colour, kChartHalo);
+          if (!placed.empty()) return placed;
+        }
+      }
+      return std::string();  // no room: the legend and the other end still say where it is
+    };
+    out += label(xy.front(), inside.front()->frequency_hz);
+    out += label(xy.back(), inside.back()->frequency_hz);
+  }
+  if (report.measured) {
+    std::vector<std::pair<double, double>> xy;
+    for (const MeasuredPoint& row : report.measured->points) {
+      const Complex g = Gamma(row.measured_z_ohm / z0_ohm);
+      xy.emplace_back(s.X(g), s.Y(g));
+    }
+    out += fmt::format(
+        "<path class=\"measured\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"2\" "
+        "stroke-dasharray=\"{}\"/>\n",
+        PolylinePath(xy), kMeasuredColour, kMeasuredDash);
+  }
+  // The legend, above the chart: one entry per trace, then the measured one, in rows no
+  // wider than the chart's column, each row centred.
+  if (report.measured) legend.push_back({"measured", kMeasuredColour, kMeasuredDash, ""});
+  constexpr double kLine_px = 22.0;
+  constexpr double kGap_px = 16.0;
+  const double column_px = 2.0 * (kWidth_px - kSmithX_px) - 20.0;
+  auto item_width = [&](const SmithLegendItem& item) {
+    return kLine_px + 6 + TextWidth(item.text, 12);
+  };
+  std::vector<std::vector<const SmithLegendItem*>> rows(1);
+  double row_width = 0.0;
+  for (const SmithLegendItem& item : legend) {
+    const double wanted = (rows.back().empty() ? 0.0 : row_width + kGap_px) + item_width(item);
+    if (!rows.back().empty() && wanted > column_px) {
+      rows.emplace_back();
+      row_width = item_width(item);
+    } else {
+      row_width = wanted;
+    }
+    rows.back().push_back(&item);
+  }
+  // Two rows fit between the heading and the chart's top label; the rows move up when there
+  // are more.
+  double ly = kPlotTop_px - 18.0 - 15.0 * std::max(0.0, double(rows.size()) - 2.0);
+  for (const auto& row : rows) {
+    double width = -kGap_px;
+    for (const SmithLegendItem* item : row) width += item_width(*item) + kGap_px;
+    double lx = kSmithX_px - width / 2.0;
+    for (const SmithLegendItem* item : row) {
+      lx = LegendEntry(out, space, lx, ly, item->colour, 2.2, item->dash, item->text,
+                       item->css_class, kLine_px) +
+           kGap_px;
+    }
+    ly += 15.0;
+  }
+  out += "</g>\n";
+  return out;
+}
 
 }  // namespace
 }  // namespace report
