@@ -1,13 +1,16 @@
 // CLI tests: every example in models/ runs through the program with exit 0 and gives the
 // contract's JSON with finite numbers, and opens with its description (what it shows, how
-// to run it, the rough result). The folder is listed at run time, so a new model is covered
+// to run it, the rough result); each "# Rough result: solve ..." line is run and its
+// impedance and SWR checked. The folder is listed at run time, so a new model is covered
 // without touching this file.
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <complex>
 #include <filesystem>
 #include <nlohmann/json.hpp>
 #include <regex>
+#include <sstream>
 #include <string>
 #include <vector>
 
@@ -54,6 +57,77 @@ TEST_P(BundledModel, OpensWithWhatItShowsHowToRunItAndTheRoughResult) {
   EXPECT_NE(header.find("# Shows:"), std::string::npos) << header;
   EXPECT_NE(header.find("# Run: wirefield solve models/"), std::string::npos) << header;
   EXPECT_NE(header.find("# Rough result:"), std::string::npos) << header;
+}
+
+// One figure a model states in its header, one line each:
+//   # Rough result: solve [ARGS] at F MHz: Z = R +|- jX ohm|kohm, SWR S (Z0 ohm)
+// Z is at the feed's terminals (`feeds[0].z_ohm`), the SWR where the transmitter connects
+// against Z0 (`feeds[0].swr`), as docs/commands.md defines them.
+struct RoughResult {
+  std::string line;
+  std::vector<std::string> args;  // the command's options before --freq
+  std::string frequency;          // "7.1MHz"
+  std::complex<double> z_ohm;
+  double swr = 0.0;
+  double z0_ohm = 0.0;
+};
+
+std::vector<RoughResult> RoughResults(const std::string& text, std::vector<std::string>* bad) {
+  static const std::regex kLine(
+      "# Rough result: solve((?: \\S+)*) at ([0-9.]+) MHz: Z = ([0-9.]+) ([+-]) j([0-9.]+) "
+      "(ohm|kohm), SWR ([0-9.]+) \\(([0-9.]+) ohm\\)");
+  std::vector<RoughResult> results;
+  std::istringstream lines(text);
+  for (std::string line; std::getline(lines, line);) {
+    if (line.rfind("# Rough result:", 0) != 0) continue;
+    std::smatch m;
+    if (!std::regex_match(line, m, kLine)) {
+      bad->push_back(line);
+      continue;
+    }
+    RoughResult r;
+    r.line = line;
+    std::istringstream args(m[1].str());
+    for (std::string arg; args >> arg;) r.args.push_back(arg);
+    r.frequency = m[2].str() + "MHz";
+    const double unit = m[6].str() == "kohm" ? 1e3 : 1.0;
+    const double sign = m[4].str() == "-" ? -1.0 : 1.0;
+    r.z_ohm = {std::stod(m[3].str()) * unit, sign * std::stod(m[5].str()) * unit};
+    r.swr = std::stod(m[7].str());
+    r.z0_ohm = std::stod(m[8].str());
+    results.push_back(r);
+  }
+  return results;
+}
+
+// Tolerance of a stated figure: 5%. The figures are written to 2-3 significant digits
+// (rounding up to 0.5% of |Z| or of the SWR), and a change of the ground model or of the mesh
+// that moves a model by a few percent should not make its comment wrong; a comment off by
+// more than that no longer describes the model.
+constexpr double kRoughTolerance = 0.05;
+
+TEST_P(BundledModel, StatesItsRoughResultAndTheProgramAgrees) {
+  std::vector<std::string> bad;
+  const std::vector<RoughResult> results = RoughResults(ReadFile(GetParam()), &bad);
+  EXPECT_TRUE(bad.empty()) << "lines not in the form '# Rough result: solve [ARGS] at F MHz: Z = "
+                              "R + jX ohm, SWR S (Z0 ohm)': "
+                           << testing::PrintToString(bad);
+  ASSERT_FALSE(results.empty()) << "no '# Rough result: solve ...' line in " << GetParam();
+  for (const RoughResult& r : results) {
+    std::vector<std::string> args{"solve", GetParam()};
+    args.insert(args.end(), r.args.begin(), r.args.end());
+    args.insert(args.end(), {"--freq", r.frequency, "--json"});
+    const nlohmann::json doc = RunForJson(args);
+    const nlohmann::json& feed = doc.at("feeds").at(0);
+    const std::complex<double> z_ohm{feed.at("z_ohm").at(0).get<double>(),
+                                     feed.at("z_ohm").at(1).get<double>()};
+    EXPECT_LE(std::abs(z_ohm - r.z_ohm), kRoughTolerance * std::abs(r.z_ohm))
+        << r.line << "\n  the program gives Z = " << z_ohm.real() << " + j" << z_ohm.imag()
+        << " ohm";
+    EXPECT_EQ(feed.at("z0_ohm").get<double>(), r.z0_ohm) << r.line;
+    EXPECT_LE(std::abs(feed.at("swr").get<double>() - r.swr), kRoughTolerance * r.swr)
+        << r.line << "\n  the program gives SWR " << feed.at("swr").get<double>();
+  }
 }
 
 std::string TestName(const testing::TestParamInfo<std::string>& info) {
