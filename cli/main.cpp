@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "command.hpp"
+#include "wirefield/names.hpp"
 #include "wirefield/simulation.hpp"
 
 namespace {
@@ -18,6 +19,23 @@ namespace {
 constexpr int kExitDone = 0;
 constexpr int kExitFailed = 1;
 constexpr int kExitBadInput = 2;
+
+// "solve, pattern, sweep, ..." in the order of `wirefield --help`.
+std::string CommandList(const std::vector<std::string>& names) {
+  std::string out;
+  for (const std::string& name : names) out += (out.empty() ? "" : ", ") + name;
+  return out;
+}
+
+// The first argument that is not an option: where the command's name belongs (the program's
+// own options, --help and --version, take no value).
+std::string FirstWord(int argc, char** argv) {
+  for (int i = 1; i < argc; ++i) {
+    const std::string arg = argv[i];
+    if (arg.empty() || arg.front() != '-') return arg;
+  }
+  return {};
+}
 
 // Runs a command and maps its exceptions to exit codes; nothing escapes.
 int RunGuarded(const wirefield::cli::Command& command) {
@@ -67,8 +85,24 @@ int Run(int argc, char** argv) {
   } catch (const CLI::ParseError& error) {
     if (error.get_exit_code() == 0) return program.exit(error);  // --help, --version
     std::string help = "wirefield --help";
+    bool command_parsed = false;
+    std::vector<std::string> names;
     for (const auto& command : commands) {
-      if (command.app->parsed()) help = fmt::format("wirefield {} --help", command.app->get_name());
+      names.push_back(command.app->get_name());
+      if (command.app->parsed()) {
+        help = fmt::format("wirefield {} --help", command.app->get_name());
+        command_parsed = true;
+      }
+    }
+    const std::string word = FirstWord(argc, argv);
+    if (!command_parsed && (argc <= 1 || !word.empty())) {
+      fmt::print(stderr,
+                 "wirefield: error: {}; the commands are {}\nRun `{}` to see the options.\n",
+                 word.empty() ? std::string("no command given")
+                              : fmt::format("unknown command '{}'{}", word,
+                                            wirefield::DidYouMeanAside(word, names)),
+                 CommandList(names), help);
+      return kExitBadInput;
     }
     fmt::print(stderr, "wirefield: error: {}\nRun `{}` to see the options.\n", error.what(), help);
     return kExitBadInput;

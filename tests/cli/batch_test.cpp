@@ -205,6 +205,58 @@ TEST(BatchCommand, JsonHasTheDocumentedKeysAndTypes) {
   }
 }
 
+TEST(BatchCommand, CompareNamesTheModelOnEveryRowOfCsvJsonAndText) {
+  // Two models with the same `let`s, two grounds and two heights: 8 rows in the grid order
+  // of docs/commands.md (ground slowest, then the model, then the --vary values).
+  const std::string mast = ModelsDir() + "/campsite_mast_dipole.wire";
+  const std::vector<std::string> base = Args({"batch", Dipole(), "--compare", mast, "--grounds",
+                                              "free,perfect", "--vary", "height=6m,8m"});
+  const std::vector<std::string> expected{
+      "hiking_club_dipole", "hiking_club_dipole", "campsite_mast_dipole", "campsite_mast_dipole",
+      "hiking_club_dipole", "hiking_club_dipole", "campsite_mast_dipole", "campsite_mast_dipole"};
+
+  const std::string csv = WriteScratchFile("batch_compare.csv", "");
+  std::vector<std::string> with_csv = base;
+  with_csv.insert(with_csv.end(), {"--csv", csv});
+  const ProgramRun run = RunWirefield(with_csv);
+  ASSERT_TRUE(run.exited && run.exit_code == 0) << Describe(run) << run.err;
+  std::istringstream lines(ReadFile(csv));
+  std::vector<std::string> rows;
+  for (std::string line; std::getline(lines, line);) rows.push_back(line);
+  ASSERT_EQ(rows.size(), expected.size() + 1);
+  EXPECT_EQ(rows[0].rfind("index,ground,model,height_m,", 0), 0u) << rows[0];
+  for (size_t i = 0; i < expected.size(); ++i) {
+    const std::string& line = rows[i + 1];
+    EXPECT_EQ(CsvFields(line), CsvFields(rows[0])) << line;
+    const std::string model_field = "\"" + expected[i] + "\"";
+    const size_t second_comma = line.find(',', line.find(',') + 1);
+    EXPECT_EQ(line.substr(second_comma + 1, model_field.size()), model_field) << line;
+  }
+
+  // The text table: one model name on each row, in the same order.
+  size_t at = run.out.find("Rows\n");
+  ASSERT_NE(at, std::string::npos) << run.out;
+  for (const std::string& name : expected) {
+    at = run.out.find(name, at + 1);
+    EXPECT_NE(at, std::string::npos) << name << "\n" << run.out;
+  }
+
+  std::vector<std::string> with_json = base;
+  with_json.push_back("--json");
+  const nlohmann::json doc = RunForJson(with_json);
+  const nlohmann::json& model = doc.at("vary").at(0);
+  EXPECT_EQ(model.at("name"), "model");
+  EXPECT_EQ(model.at("values"),
+            nlohmann::json::array({"hiking_club_dipole", "campsite_mast_dipole"}));
+  ASSERT_EQ(doc.at("rows").size(), expected.size());
+  for (size_t i = 0; i < expected.size(); ++i) {
+    const nlohmann::json& row = doc.at("rows").at(i);
+    EXPECT_EQ(row.at("variables").at("model"), expected[i]) << row.dump();
+    EXPECT_EQ(row.at("variable_labels").at("model"), expected[i]) << row.dump();
+    EXPECT_TRUE(row.at("variables").at("height").is_number());
+  }
+}
+
 TEST(BatchCommand, ResultsDoNotDependOnThreads) {
   const std::vector<std::string> base =
       Args({"batch", Dipole(), "--vary", "total=9.9m:10.3m:0.1m", "--grounds", "free,perfect"});
@@ -234,6 +286,20 @@ TEST(BatchCommand, BadGroundNameListsThePresets) {
       << err;
   for (const char* name : {"sea_water", "medium_dry", "very_dry", "free", "perfect"}) {
     EXPECT_NE(err.find(name), std::string::npos) << name;
+  }
+}
+
+TEST(BatchCommand, AllInAListSaysThatItStandsAlone) {
+  for (const char* list : {"all,free", "perfect, all"}) {
+    const std::string err = RunBadInput(Args({"batch", Dipole(), "--grounds", list}));
+    EXPECT_EQ(err.rfind("--grounds:1:1: error: 'all' stands alone: --grounds all runs every "
+                        "ground preset and nothing else; to add free or perfect, list the presets "
+                        "by name: --grounds sea_water,",
+                        0),
+              0u)
+        << err;
+    EXPECT_NE(err.find(",free,perfect\n"), std::string::npos) << err;
+    EXPECT_EQ(err.find("unknown ground"), std::string::npos) << err;
   }
 }
 

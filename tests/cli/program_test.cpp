@@ -1,9 +1,13 @@
 // CLI tests: the program's own surface: --version, --help, unknown options and missing
 // commands, and the exit codes of docs/commands.md (0 done, 2 bad input, 1 failed run).
 // Runs the built binary; checks exit codes and the exact text users see.
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <regex>
+#include <string>
+#include <utility>
+#include <vector>
 
 #include "cli/program_runner.hpp"
 
@@ -61,12 +65,33 @@ TEST(Program, UnknownOptionExitsTwoNotTheParserLibraryCode) {
       << run.err;
 }
 
-TEST(Program, UnknownCommandExitsTwo) {
+TEST(Program, UnknownCommandIsNamedWithTheListOfCommands) {
   const ProgramRun run = RunWirefield({"polish", "model.wire"});
   ASSERT_TRUE(run.exited) << Describe(run);
   EXPECT_EQ(run.exit_code, 2);
   EXPECT_EQ(run.out, "");
-  EXPECT_NE(run.err.find("wirefield: error: "), std::string::npos) << run.err;
+  EXPECT_EQ(run.err,
+            "wirefield: error: unknown command 'polish'; the commands are solve, pattern, sweep, "
+            "batch, coil, tune\nRun `wirefield --help` to see the options.\n");
+}
+
+TEST(Program, MistypedCommandGetsADidYouMean) {
+  // One letter dropped (edit distance 1) and two letters swapped (edit distance 2 within a
+  // third of the word's 7 letters): both are slips of a command's name.
+  for (const auto& [typed, meant] : std::vector<std::pair<std::string, std::string>>{
+           {"solv", "solve"}, {"pattren", "pattern"}, {"SWEEP", "sweep"}}) {
+    const ProgramRun run = RunWirefield({typed, ModelsDir() + "/hiking_club_dipole.wire"});
+    ASSERT_TRUE(run.exited) << Describe(run);
+    EXPECT_EQ(run.exit_code, 2) << typed;
+    EXPECT_EQ(run.out, "");
+    EXPECT_EQ(run.err.rfind(fmt::format("wirefield: error: unknown command '{}' (did you mean "
+                                        "'{}'?); the commands are solve, pattern, sweep, batch, "
+                                        "coil, tune\n",
+                                        typed, meant),
+                            0),
+              0u)
+        << run.err;
+  }
 }
 
 TEST(Program, SolveWithoutAModelExitsTwo) {

@@ -1,7 +1,9 @@
 // CLI tests: --power on solve, sweep and pattern: the stress section and its JSON keys, the
 // exposure estimate of pattern, the cautions, and the errors of bad powers and ratings.
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <nlohmann/json.hpp>
 #include <numbers>
@@ -146,6 +148,50 @@ TEST(PowerFlag, BadModeAndDutyAreRefused) {
   EXPECT_EQ(duty.err,
             "--duty:1:1: error: --duty needs a duty factor greater than 0 and at most 1, e.g. "
             "0.5; got '1.5'\n");
+}
+
+TEST(PowerFlag, FreeEndHighVoltageCautionStartsAtFiftyVoltsRms) {
+  // Where the caution starts: 50 V RMS, the upper limit of extra-low voltage for AC (IEC
+  // 61140, from memory), as docs/commands.md states. The free-end voltage scales with the
+  // square root of the power (the solution is scaled linearly, docs/numerics.md §7c), so the
+  // powers that put both ends of a free-space dipole 5% below and 5% above the line follow
+  // from one run at 1 W; 5% is far beyond the rounding of a printed power (6 digits).
+  const std::string dipole = ModelsDir() + "/hiking_club_dipole.wire";
+  const nlohmann::json one_watt = RunForJson({"solve", dipole, "--power", "1W", "--json"});
+  const nlohmann::json& ends = one_watt.at("stress").at("free_ends");
+  ASSERT_EQ(ends.size(), 2u);
+  double rms_at_1w = 0.0;
+  for (const nlohmann::json& end : ends) {
+    rms_at_1w = std::max(rms_at_1w, end.at("voltage").at("rms_v").get<double>());
+  }
+  double lowest_at_1w = rms_at_1w;
+  for (const nlohmann::json& end : ends) {
+    lowest_at_1w = std::min(lowest_at_1w, end.at("voltage").at("rms_v").get<double>());
+  }
+  ASSERT_GT(lowest_at_1w, 0.97 * rms_at_1w);  // a symmetric dipole: both ends alike
+  constexpr double kLimitRmsV = 50.0;
+  for (const double factor : {0.95, 1.05}) {
+    const double ratio = factor * kLimitRmsV / (factor < 1.0 ? rms_at_1w : lowest_at_1w);
+    const std::string power = fmt::format("{:.6g}W", ratio * ratio);
+    const bool above = factor > 1.0;
+    const nlohmann::json doc = RunForJson({"solve", dipole, "--power", power, "--json"});
+    for (const nlohmann::json& end : doc.at("stress").at("free_ends")) {
+      EXPECT_EQ(end.at("high_voltage").get<bool>(), above) << power << " " << end.dump();
+      EXPECT_EQ(end.at("voltage").at("rms_v").get<double>() > kLimitRmsV, above) << power;
+    }
+    int free_end_cautions = 0;
+    for (const nlohmann::json& caution : doc.at("stress").at("cautions")) {
+      if (caution.get<std::string>().rfind("free end", 0) == 0) ++free_end_cautions;
+    }
+    EXPECT_EQ(free_end_cautions, above ? 2 : 0) << power;
+    const ProgramRun text = RunWirefield({"solve", dipole, "--power", power});
+    ASSERT_TRUE(text.exited && text.exit_code == 0) << Describe(text);
+    EXPECT_EQ(text.out.find("(high voltage)") != std::string::npos, above) << text.out;
+    EXPECT_NE(text.out.find("A free end above 50 V RMS (70.7 V peak) gets the high-voltage "
+                            "caution below."),
+              std::string::npos)
+        << text.out;
+  }
 }
 
 }  // namespace

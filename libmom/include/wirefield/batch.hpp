@@ -42,6 +42,9 @@ struct BatchVariable {
   std::string unit;        // SI unit of `si` ("m", "Hz", ...), empty for a plain number
   std::string shown_unit;  // unit of the labels ("m", "MHz", "uH", "pF", ...)
   std::vector<BatchValue> values;
+  // True for the `model` column of RunBatchFiles: each value is a model's name (its label),
+  // not a number (its `si` is 0 and unused), and reports print the name.
+  bool names = false;
 };
 
 // The most values one --vary may give (a range finer than this is surely a typing slip).
@@ -177,7 +180,8 @@ BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
                          const std::function<void(int, int)>& progress = {});
 
 // Several models over the same grid, compared row by row: the result has a first variable
-// "model" (the file name without its folder and extension) before the --vary ones, so reports
+// "model" (the file name without its folder and extension, or the path as given when two
+// files share that name; BatchVariable::names) before the --vary ones, so reports
 // and the summary treat each model as a setting ("which shape is best whatever the ground").
 // Every model must accept the same --vary names. One path: RunBatchFile.
 BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOptions& options,

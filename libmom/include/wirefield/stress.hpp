@@ -20,6 +20,12 @@ namespace wirefield {
 inline constexpr double kDefaultCapacitorRatingV = 500.0;
 inline constexpr double kDefaultLoadRatingV = 2000.0;
 
+// RMS voltage above which a free wire end gets the high-voltage caution: 50 V RMS (70.7 V
+// peak), the upper limit of extra-low voltage for AC (IEC 61140, from memory). That limit is
+// set for power frequencies; it serves here as the line where touching becomes dangerous
+// (common practice). Below it a free end's voltage is shown without a caution.
+inline constexpr double kHighVoltageRmsV = 50.0;
+
 struct StressOptions {
   // Power the transmitter delivers into the feed chain(s) (line, transformer, feed), W; > 0.
   // With several feeds the solved excitations keep their ratios and the total is this power.
@@ -75,6 +81,7 @@ struct FreeEndStress {
   // The scalar potential of all segment charges (and their ground images) against far away,
   // on the wire surface at the centre of the last segment; docs/numerics.md §7c.
   Amplitude voltage_v;
+  bool high_voltage = false;  // voltage_v.rms above kHighVoltageRmsV: the caution applies
 };
 
 struct StressResult {
@@ -86,8 +93,8 @@ struct StressResult {
   std::vector<FeedStress> feeds;
   std::vector<LoadStress> loads;
   std::vector<FreeEndStress> free_ends;
-  // One sentence each: every voltage above its rating, and always the high-voltage caution
-  // for free ends (keep them out of reach).
+  // One sentence each: every voltage above its rating, and the high-voltage caution for each
+  // free end above kHighVoltageRmsV (keep it out of reach).
   std::vector<std::string> cautions;
 };
 

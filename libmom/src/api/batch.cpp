@@ -6,6 +6,7 @@
 #include "wirefield/batch.hpp"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <algorithm>
 #include <atomic>
@@ -345,6 +346,13 @@ std::vector<BatchGround> ParseGroundList(const std::string& text) {
       ground.spec->kind = GroundKind::kPerfect;
     } else if (const GroundPreset* preset = FindGroundPreset(name)) {
       ground.spec = RealGround(*preset);
+    } else if (name == "all") {
+      std::vector<std::string> presets(known.begin(), known.end() - 2);
+      throw InputError({"--grounds", 1, 1},
+                       fmt::format("'all' stands alone: --grounds all runs every ground preset "
+                                   "and nothing else; to add free or perfect, list the presets "
+                                   "by name: --grounds {},free,perfect",
+                                   fmt::join(presets, ",")));
     } else {
       throw InputError(
           {"--grounds", 1, 1},
@@ -611,13 +619,17 @@ BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOpti
   std::vector<BatchResult> results;
   BatchVariable model_variable;
   model_variable.name = "model";
+  model_variable.names = true;
+  std::map<std::string, int> stems;  // a name two files share is replaced by their paths
+  for (const std::string& path : paths) ++stems[std::filesystem::path(path).stem().string()];
   for (size_t m = 0; m < paths.size(); ++m) {
     const int offset = static_cast<int>(per_model * static_cast<double>(m));
     results.push_back(RunBatch(texts[m], paths[m], options, [&](int done, int) {
       if (progress) progress(offset + done, total);
     }));
+    const std::string stem = std::filesystem::path(paths[m]).stem().string();
     BatchValue v;
-    v.label = v.shown = v.expression = std::filesystem::path(paths[m]).stem().string();
+    v.label = v.shown = v.expression = stems[stem] > 1 ? paths[m] : stem;
     model_variable.values.push_back(v);
   }
   // Interleave so that the ground still varies slowest, then the model, then the --vary ones.

@@ -225,10 +225,11 @@ StressResult ComputeStress(const Model& model, const SolveResult& solved,
     fe.at_m = end.point;
     fe.voltage_v = FromPeak(std::abs(post::ScalarPotential(charged, f_hz, model.ground, centre)));
     CheckFinite(fe.voltage_v.peak, "voltage at the free end " + fe.wire + "@" + fe.end);
+    fe.high_voltage = fe.voltage_v.rms > kHighVoltageRmsV;
     r.free_ends.push_back(fe);
   }
 
-  // Cautions: every rating exceeded, then the free ends (always).
+  // Cautions: every rating exceeded, then the free ends above kHighVoltageRmsV.
   for (const FeedStress& fs : r.feeds) {
     if (fs.compensation_over_rating) {
       r.cautions.push_back(fmt::format(
@@ -252,6 +253,7 @@ StressResult ComputeStress(const Model& model, const SolveResult& solved,
     }
   }
   for (const FreeEndStress& fe : r.free_ends) {
+    if (!fe.high_voltage) continue;
     r.cautions.push_back(fmt::format(
         "free end {}@{}: about {} peak (high voltage): keep the wire end out of reach of people "
         "and animals, insulate it for this voltage and keep it clear of anything it could arc "

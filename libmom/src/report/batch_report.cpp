@@ -331,6 +331,11 @@ void PutPattern(const Figures& f, nlohmann::json& j) {
   j["efficiency"] = f.efficiency;
 }
 
+// A variable's value: its SI number, or the model's name for the `model` column.
+nlohmann::json ValueJson(const BatchVariable& variable, const BatchValue& value) {
+  return variable.names ? nlohmann::json(value.label) : nlohmann::json(value.si);
+}
+
 nlohmann::json SummaryJson(const BatchSummary& summary) {
   nlohmann::json s;
   s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
@@ -370,7 +375,7 @@ std::string FormatBatchJson(const BatchResult& result) {
   nlohmann::json vary = nlohmann::json::array();
   for (const BatchVariable& v : result.variables) {
     nlohmann::json values = nlohmann::json::array();
-    for (const BatchValue& value : v.values) values.push_back(value.si);
+    for (const BatchValue& value : v.values) values.push_back(report::ValueJson(v, value));
     vary.push_back({{"name", v.name}, {"unit", v.unit}, {"values", values}});
   }
   doc["vary"] = vary;
@@ -388,7 +393,7 @@ std::string FormatBatchJson(const BatchResult& result) {
     nlohmann::json variables = nlohmann::json::object();
     nlohmann::json labels = nlohmann::json::object();
     for (size_t v = 0; v < row.values.size(); ++v) {
-      variables[result.variables[v].name] = row.values[v].si;
+      variables[result.variables[v].name] = report::ValueJson(result.variables[v], row.values[v]);
       labels[result.variables[v].name] = row.values[v].label;
     }
     r["variables"] = variables;
@@ -480,7 +485,10 @@ std::string FormatBatchCsv(const BatchResult& result) {
   const size_t band_columns = 9 * result.spans.size();
   for (const BatchRow& row : result.rows) {
     out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
-    for (const BatchValue& v : row.values) out += fmt::format(",{:.10g}", v.si);
+    for (size_t v = 0; v < row.values.size(); ++v) {
+      out += result.variables[v].names ? fmt::format(",{}", report::CsvQuoted(row.values[v].label))
+                                       : fmt::format(",{:.10g}", row.values[v].si);
+    }
     if (row.error) {
       out += std::string(3 + result.at_hz.size() + 9 + band_columns + 1, ',');
       out += report::CsvQuoted(*row.error) + "\n";

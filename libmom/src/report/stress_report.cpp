@@ -33,6 +33,13 @@ std::string CautionLines(const std::vector<std::string>& cautions) {
   return out;
 }
 
+// Where the free ends' caution starts (wirefield/stress.hpp, kHighVoltageRmsV).
+std::string HighVoltageNote() {
+  return fmt::format(
+      "  A free end above {:.0f} V RMS ({:.1f} V peak) gets the high-voltage caution below.\n",
+      kHighVoltageRmsV, kHighVoltageRmsV * std::sqrt(2.0));
+}
+
 constexpr const char* kDefer =
     "  These are estimates of the model. High RF voltage burns and arcs: keep people clear "
     "while\n  transmitting, and follow local rules and licensed practice.\n";
@@ -106,6 +113,7 @@ std::string FormatStressText(const StressResult& stress) {
     out +=
         "  Free-end voltage: the potential of the segment charges against far away, at the "
         "last\n  segment of the wire (docs/numerics.md §7c).\n";
+    out += report::HighVoltageNote();
   }
   out += report::CautionLines(stress.cautions);
   out += report::kDefer;
@@ -164,7 +172,8 @@ std::string FormatStressJson(const StressResult& stress) {
     doc["free_ends"].push_back({{"wire", e.wire},
                                 {"end", e.end},
                                 {"at_m", {e.at_m[0], e.at_m[1], e.at_m[2]}},
-                                {"voltage", report::AmplitudeJson(e.voltage_v, "v")}});
+                                {"voltage", report::AmplitudeJson(e.voltage_v, "v")},
+                                {"high_voltage", e.high_voltage}});
   }
   doc["cautions"] = stress.cautions;
   return doc.dump();
@@ -194,7 +203,7 @@ std::string FormatStressPeaksText(const std::vector<StressPeak>& peaks, double p
                       "rating",
                       p.what, p.peak_v, p.frequency_hz / 1e6, p.rating_v));
     }
-    if (p.what.rfind("free end", 0) == 0) {
+    if (p.what.rfind("free end", 0) == 0 && p.rms_v > kHighVoltageRmsV) {
       cautions.push_back(fmt::format(
           "{} reaches about {:.0f} V peak (high voltage): keep the wire end out of reach and "
           "insulated",
