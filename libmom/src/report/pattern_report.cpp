@@ -298,12 +298,14 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
                          ? report::FlooredRatioText(*pattern.front_to_side_db, true)
                          : "none (no clear front in the azimuth cut)");
 
-  out += "\nPower budget (share of the power into the feeds)\n";
+  out +=
+      "\nPower budget (share of the power delivered to the antenna terminals, after any feed "
+      "line\nand transformer)\n";
   TextTable budget;
   budget.AddColumn("where", Align::kLeft);
   budget.AddColumn("power", Align::kRight);
   budget.AddColumn("share", Align::kRight);
-  budget.AddRow({"into the feeds", report::Watts(power.input_w),
+  budget.AddRow({"into the antenna terminals", report::Watts(power.input_w),
                  report::Percent(power.input_w, power.input_w)});
   budget.AddRow({model.ground.kind == GroundKind::kFree ? "radiated (whole sphere)"
                                                         : "radiated (above the ground)",
@@ -319,7 +321,7 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
                    report::Percent(power.ground_w, power.input_w)});
   }
   out += budget.Render(2);
-  out += fmt::format("  efficiency       {:.2f} % (radiated / into the feeds)\n",
+  out += fmt::format("  efficiency       {:.2f} % (radiated / into the antenna terminals)\n",
                      100.0 * power.efficiency);
   if (real_ground) {
     out += "  ground loss      input - radiated - loads - wires (not checked independently)\n";
@@ -330,9 +332,10 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   }
   if (power.input_w > 0.0) {
     const double scale = report::kScaledPower_w / power.input_w;
-    out += fmt::format("  at {:.0f} W into the feeds: {} radiated, {} in loads, {} in wires\n",
-                       report::kScaledPower_w, report::Watts(power.radiated_w * scale),
-                       report::Watts(power.loads_w * scale), report::Watts(power.wires_w * scale));
+    out += fmt::format(
+        "  at {:.0f} W into the antenna terminals: {} radiated, {} in loads, {} in wires\n",
+        report::kScaledPower_w, report::Watts(power.radiated_w * scale),
+        report::Watts(power.loads_w * scale), report::Watts(power.wires_w * scale));
     if (real_ground) {
       out += fmt::format("  and {} in the ground\n", report::Watts(power.ground_w * scale));
     }

@@ -361,7 +361,7 @@ std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& 
       "azimuth from +x (0&#176;, right) counterclockwise toward +y (90&#176;, up)", space);
   out += fmt::format(
       "<text x=\"{}\" y=\"{}\" font-size=\"11\" fill=\"#555555\" text-anchor=\"middle\">"
-      "Gain in dBi, relative to the power into the feeds. Rings every {:.0f} dB; gains more "
+      "Gain in dBi, relative to the power at the feed terminals. Rings every {:.0f} dB; gains more "
       "than {:.0f} dB below the outer ring ({:.0f} dBi) are drawn at the centre.</text>\n",
       Px(report::kWidth_px / 2), Px(report::kHeight_px - 10), report::kRingSpacing_db,
       report::kRange_db, outer_dbi + 0.0);
