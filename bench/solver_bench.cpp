@@ -3,6 +3,7 @@
 // and the symmetric zsytrf path on the same matrix).
 #include <benchmark/benchmark.h>
 
+#include <cmath>
 #include <complex>
 #include <vector>
 
@@ -63,8 +64,8 @@ BENCHMARK(BM_DipoleWholeSolve)->Unit(benchmark::kMillisecond);
 
 // A low 40 m end-fed layout of 200 unknowns over average ground (13, 5 mS/m): a level wire
 // 1.5 m up and a sloping one to 6 m. Arg 0: reflection-coefficient approximation; 1: the exact
-// half-space below 0.3 wavelength (the whole model), table built inside the fill; 2: the
-// half-space table alone.
+// half-space for every pair (the default), table built inside the fill; 2: the half-space table
+// alone.
 void BM_LowModelGroundFill(benchmark::State& state) {
   wirefield::Model m = LongWire(101);
   m.wires[0].from_m = {-10, 0, 1.5};
@@ -96,6 +97,47 @@ void BM_LowModelGroundFill(benchmark::State& state) {
   state.counters["unknowns"] = static_cast<double>(mesh.bases.size());
 }
 BENCHMARK(BM_LowModelGroundFill)->Arg(0)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+
+// A tall model of 200 unknowns over average ground (13, 5 mS/m): a vertical half-wave dipole
+// for 7.1 MHz from 1 m to 21.3 m (201 segments), whose pairs span every mean height from 0.02 to
+// 0.5 wavelength. Arg 0: reflection-coefficient approximation; 1: the exact half-space for
+// every pair (the default), table built inside the fill; 2: the mixture of an explicit
+// exact_below at 0.3 wavelength (12.67 m), the default of earlier builds; 3: the half-space
+// table alone.
+void BM_TallModelGroundFill(benchmark::State& state) {
+  wirefield::Model m = LongWire(201);
+  m.wires[0].from_m = {0, 0, 1};
+  m.wires[0].to_m = {0, 0, 21.3};
+  m.feeds[0].at.value = 50.0;
+  m.frequency_hz = 7.1e6;
+  m.ground.kind = wirefield::GroundKind::kReal;
+  m.ground.permittivity = 13.0;
+  m.ground.conductivity_s_per_m = 5e-3;
+  m.ground.method =
+      state.range(0) == 0 ? wirefield::GroundMethod::kReflection : wirefield::GroundMethod::kExact;
+  if (state.range(0) == 2) m.ground.exact_below_m = 0.3 * 299792458.0 / 7.1e6;
+  const wirefield::geometry::Mesh mesh = MeshOf(m);
+  const wirefield::fill::NearFieldCache cache = wirefield::fill::BuildNearFieldCache(mesh);
+  const double k = 2.0 * 3.14159265358979323846 * 7.1e6 / 299792458.0;
+  const std::complex<double> eps(13.0,
+                                 -5e-3 / (2.0 * 3.14159265358979323846 * 7.1e6 * 8.8541878128e-12));
+  for (auto _ : state) {
+    if (state.range(0) == 3) {
+      benchmark::DoNotOptimize(wirefield::fill::HalfSpaceFill(mesh, eps, k, INFINITY));
+    } else {
+      benchmark::DoNotOptimize(wirefield::fill::AssembleImpedance(mesh, 7.1e6, cache, 1));
+    }
+  }
+  state.counters["unknowns"] = static_cast<double>(mesh.bases.size());
+}
+// CPU time of the whole process: the table's second thread counts too.
+BENCHMARK(BM_TallModelGroundFill)
+    ->Arg(0)
+    ->Arg(1)
+    ->Arg(2)
+    ->Arg(3)
+    ->MeasureProcessCPUTime()
+    ->Unit(benchmark::kMillisecond);
 
 void BM_Fill(benchmark::State& state) {
   const wirefield::Model m = LongWire(static_cast<int>(state.range(0)) + 1);

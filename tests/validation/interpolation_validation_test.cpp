@@ -107,9 +107,9 @@ TEST(MatrixInterpolation, VerticalOverRealGroundStaysWithinBound) {
 }
 
 TEST(MatrixInterpolation, VerticalOverTheExactGroundStaysWithinBound) {
-  // The same model over the exact half-space (the default below 0.3 wavelength, which covers
-  // every pair here): 71 points (5 kHz steps), each against a fill with its own Sommerfeld
-  // table. Measured: 4.3e-8 of |Z| at worst (the reflection images above: 1.2e-7).
+  // The same model over the exact half-space (the default, for every pair): 71 points (5 kHz
+  // steps), each against a fill with its own Sommerfeld table. Measured: 4.3e-8 of |Z| at worst
+  // (the reflection images above: 1.2e-7).
   const Comparison c =
       CompareSweeps(std::string(kVerticalAndDipole) +
                         "ground real permittivity=13 conductivity=0.005 method=exact\n",
@@ -129,7 +129,7 @@ TEST(MatrixInterpolation, LowDipoleOverTheExactGroundStaysWithinBound) {
   const Comparison c = CompareSweeps(
       "wire dip from (-10.05, 0, 2.1) to (10.05, 0, 2.1) radius 1mm segments 21\n"
       "feed src at dip@50%\n"
-      "ground real permittivity=13 conductivity=0.005 method=exact exact_below=10m\n",
+      "ground real permittivity=13 conductivity=0.005 method=exact\n",
       7.0e6, 7.2e6, 5e3);
   EXPECT_LT(c.worst, kMaxRelativeError);
   EXPECT_EQ(c.fills, 3);

@@ -122,16 +122,11 @@ struct LoadSpec {
 enum class GroundKind { kFree, kPerfect, kReal };
 
 // How the matrix treats a real ground (the far field always uses the Fresnel reflection, which
-// is exact there). kExact: the Sommerfeld half-space solution for every pair of segments whose
-// mean height is below exact_below_m, the reflection-coefficient approximation above it.
-// kReflection: the approximation everywhere (faster, weak below about 0.2 wavelength).
+// is exact there). kExact: the Sommerfeld half-space solution for every pair of segments (unless
+// exact_below_m is given: then only for the pairs whose mean height is below it, the
+// reflection-coefficient approximation above it). kReflection: the approximation everywhere
+// (faster, weak below about 0.2 wavelength).
 enum class GroundMethod { kExact, kReflection };
-
-// Default of GroundSpec::exact_below_m in wavelengths at the solve frequency: from this mean
-// height up, the reflection-coefficient approximation's error in a horizontal half-wave
-// dipole's feed impedance stays under 1% over the presets from wet to very dry ground (measured:
-// 0.17-0.61% at 0.3 wavelength, 0.66-1.92% at 0.2; docs/numerics.md, "Real ground").
-inline constexpr double kDefaultExactBelowWavelengths = 0.3;
 
 struct GroundSpec {
   GroundKind kind = GroundKind::kFree;
@@ -139,9 +134,11 @@ struct GroundSpec {
   double conductivity_s_per_m = 0.0;           // real ground only
   std::string preset;                          // the preset's name when given as preset=NAME
   GroundMethod method = GroundMethod::kExact;  // real ground only
-  // Real ground, kExact: pairs of segments whose mean height is below this use the exact
-  // half-space; unset means kDefaultExactBelowWavelengths wavelengths at each frequency.
-  // Raising it costs fill time (a table lookup per quadrature point of every such pair).
+  // Real ground, kExact: unset (the default) gives every pair of segments the exact half-space.
+  // Set, only the pairs whose mean height is below it get it and the others the reflection
+  // coefficients: a mixture kept for models written with it, which on wires spanning the height
+  // can be several percent off both methods (the mesher warns; docs/numerics.md, "Real
+  // ground"); 0 gives the reflection coefficients everywhere.
   std::optional<double> exact_below_m;
   // Real ground, kExact: false integrates the half-space correction at every quadrature point
   // instead of interpolating it from the table built once per frequency; the fill then costs

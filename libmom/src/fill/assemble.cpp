@@ -199,13 +199,13 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   }
   const geometry::Vec3 mirror(1.0, 1.0, -1.0);
   const ground::Ground ground(mesh.ground, frequency_hz);
-  // Over a real ground by the exact method, the pairs low enough get the half-space correction
-  // on top of the perfect image (fill/half_space.hpp); the others the reflection coefficients.
+  // Over a real ground by the exact method every pair gets the half-space correction on top of
+  // the perfect image (fill/half_space.hpp); with an explicit exact_below only the pairs below
+  // it, the others the reflection coefficients.
   std::optional<HalfSpaceFill> half_space;
   if (images && mesh.ground_images && mesh.ground.kind == GroundKind::kReal &&
       mesh.ground.method == GroundMethod::kExact) {
-    const double exact_below_m = mesh.ground.exact_below_m.value_or(
-        kDefaultExactBelowWavelengths * core::kSpeedOfLight_m_per_s / frequency_hz);
+    const double exact_below_m = mesh.ground.exact_below_m.value_or(INFINITY);
     if (exact_below_m > 0.0) {
       half_space.emplace(mesh, ground.permittivity(), k, exact_below_m,
                          mesh.ground.half_space_table);

@@ -145,6 +145,9 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   ground::TableOptions table_options;
   table_options.direct = !tabulate;
   table_options.zeta_max_m = std::max(2.0 * std::max(hi.z(), 0.0), zeta_min);
+  // Nor horizontal distances beyond the mesh's horizontal extent (with a margin for rounding):
+  // a tall vertical needs only the rows near the zenith.
+  table_options.rho_max_m = 1.01 * horizontal + floor_m_;
   table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
                                                     zeta_min, r_max, zeta_min, table_options);
 }

@@ -1,9 +1,10 @@
 // Fill stage: the exact (Sommerfeld) half-space ground in the Galerkin matrix. Each pair of
-// segments low enough over a real ground gets, on top of its perfect-ground image, the
-// correction of the half-space (ground/sommerfeld.hpp) integrated over both segments: a vector
-// part (horizontal, vertical and horizontal-vertical coupling kernels) and a scalar part (one
-// kernel for every charge). Inputs: the mesh, the ground, the frequency; output: moments that
-// fill/assemble.cpp scatters like any other pair's. See docs/numerics.md, "Real ground".
+// segments over a real ground (by default every pair; with exact_below, those below it) gets, on
+// top of its perfect-ground image, the correction of the half-space (ground/sommerfeld.hpp)
+// integrated over both segments: a vector part (horizontal, vertical and horizontal-vertical
+// coupling kernels) and a scalar part (one kernel for every charge). Inputs: the mesh, the ground,
+// the frequency; output: moments that fill/assemble.cpp scatters like any other pair's. See
+// docs/numerics.md, "Real ground".
 #pragma once
 
 #include <complex>
@@ -27,13 +28,15 @@ struct HalfSpacePair {
 // over the distances the mesh spans, and the quadrature over pairs of segments.
 class HalfSpaceFill {
  public:
-  // The table covers every pair of the mesh; pairs whose mean height is below exact_below_m
-  // use it. Costs one table (some 0.05 s, two threads). tabulate = false builds no table and
-  // integrates the correction at every quadrature point instead (checks of the table).
+  // The table covers every pair of the mesh, from its lowest to its highest point; pairs whose
+  // mean height is below exact_below_m (infinity: every pair) use it. Costs one table (some 0.05 s,
+  // two threads). tabulate = false builds no table and integrates the correction at every
+  // quadrature point instead (checks of the table).
   HalfSpaceFill(const geometry::Mesh& mesh, std::complex<double> eps_c, double wavenumber_per_m,
                 double exact_below_m, bool tabulate = true);
 
-  // True when the pair (observation a, source b) is low enough for the exact ground.
+  // True when the pair (observation a, source b) gets the exact ground (always, but for an
+  // explicit exact_below).
   bool Applies(const geometry::Segment& a, const geometry::Segment& b) const;
 
   // The correction's moments between observation segment a0-a1 and source segment b0-b1.

@@ -349,12 +349,16 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   }
   // The nodes a lookup can reach: a point in cell (i, j) reads nodes i-1..i+2 and j-1..j+2,
   // so node (i, j) serves R' between the radii of nodes i-2 and i+2 and y between nodes j-2
-  // and j+2; it is needed where that window meets zeta_min <= R' sin(psi) <= zeta_max.
+  // and j+2; it is needed where that window meets zeta_min <= R' sin(psi) <= zeta_max and
+  // R' cos(psi) <= rho_max. Within the window psi >= asin(zeta_min / r_hi) and psi >=
+  // acos(rho_max / r_lo): a lower bound on the elevations it serves.
   const size_t nx = x_.size(), ny = y_.size();
   auto y_of = [](double psi) { return std::sqrt(std::tan(0.5 * psi)); };
+  const double rho_max = options.rho_max_m;
   auto needed = [&](size_t i, size_t j) {
     const double r_lo = radius[i < 2 ? 0 : i - 2], r_hi = radius[std::min(i + 2, nx - 1)];
-    const double y_low = y_of(std::asin(std::min(1.0, zeta_min_m / r_hi)));
+    const double psi_rho = rho_max >= r_lo ? 0.0 : std::acos(rho_max / r_lo);
+    const double y_low = y_of(std::max(std::asin(std::min(1.0, zeta_min_m / r_hi)), psi_rho));
     const double y_high = zeta_max_ >= r_lo ? INFINITY : y_of(std::asin(zeta_max_ / r_lo));
     return y_[std::min(j + 2, ny - 1)] >= y_low && y_[j < 2 ? 0 : j - 2] <= y_high;
   };

@@ -89,6 +89,10 @@ struct TableOptions {
   // build for a low model; they hold NaN, so a lookup there could not go unnoticed, and
   // lookups clamp zeta to it. Infinity (the default): the whole range.
   double zeta_max_m = INFINITY;
+  // The greatest horizontal distance rho (m) that will be looked up: nodes that serve only
+  // points farther out (at low elevation) are not integrated either. A vertical wire looks up
+  // rho near 0 only and needs a few rows of the table near the zenith. Infinity: all of them.
+  double rho_max_m = INFINITY;
 };
 
 class HalfSpaceTable {

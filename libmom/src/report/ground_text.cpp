@@ -6,20 +6,19 @@
 namespace wirefield::report {
 namespace {
 
-std::string ExactBelowText(const GroundSpec& ground) {
-  return ground.exact_below_m ? fmt::format("{:.4g} m", *ground.exact_below_m)
-                              : fmt::format("{:g} wavelength", kDefaultExactBelowWavelengths);
-}
-
 std::string MethodText(const GroundSpec& ground) {
   if (ground.method == GroundMethod::kReflection ||
       (ground.exact_below_m && *ground.exact_below_m == 0.0)) {
     return "reflection-coefficient approximation";
   }
+  if (!ground.exact_below_m) {
+    return "exact half-space (Sommerfeld integrals) for every pair of segments, reflection "
+           "coefficients in the far field";
+  }
   return fmt::format(
-      "exact half-space (Sommerfeld integrals) for segment pairs below a mean height of {}, "
+      "exact half-space (Sommerfeld integrals) for segment pairs below a mean height of {:.4g} m, "
       "reflection coefficients above it and in the far field",
-      ExactBelowText(ground));
+      *ground.exact_below_m);
 }
 
 }  // namespace
@@ -56,11 +55,8 @@ nlohmann::json GroundJson(const GroundSpec& ground) {
         g["method"] = "reflection_coefficient";
       } else {
         g["method"] = "exact_half_space";
-        if (ground.exact_below_m) {
-          g["exact_below_m"] = *ground.exact_below_m;
-        } else {
-          g["exact_below_wavelengths"] = kDefaultExactBelowWavelengths;
-        }
+        // Every pair by default; an explicit exact_below keeps the mixture below/above it.
+        if (ground.exact_below_m) g["exact_below_m"] = *ground.exact_below_m;
         g["far_field_method"] = "reflection_coefficient";
       }
       g["permittivity"] = ground.permittivity;

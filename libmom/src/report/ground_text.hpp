@@ -12,8 +12,9 @@ namespace wirefield::report {
 // (reflection-coefficient approximation)".
 std::string GroundText(const GroundSpec& ground);
 // {"kind": "real", "preset": .., "permittivity": .., "conductivity_s_per_m": ..,
-//  "method": "exact_half_space", "exact_below_wavelengths": .. (or "exact_below_m"),
-//  "far_field_method": "reflection_coefficient"}; method "reflection_coefficient" for the
+//  "method": "exact_half_space" (every pair of segments; with "exact_below_m": .. only the
+//  pairs below that mean height), "far_field_method": "reflection_coefficient"}; method
+//  "reflection_coefficient" for the
 //  approximation, "image" for a perfect ground, "none" in free space.
 nlohmann::json GroundJson(const GroundSpec& ground);
 
