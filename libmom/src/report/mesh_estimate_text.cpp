@@ -58,7 +58,6 @@ nlohmann::json MeshEstimateJson(const SolveResult& result) {
   out["segments"] = estimate.segments;
   out["half_segments"] = estimate.half_segments;
   out["quarter_segments"] = estimate.quarter_segments;
-  out["time_s"] = Finite(estimate.time_s);
   out["notes"] = estimate.notes;
   out["feeds"] = nlohmann::json::array();
   for (size_t f = 0; f < estimate.feeds.size() && f < result.feeds.size(); ++f) {

@@ -19,9 +19,10 @@ std::string ImpedanceWithMeshError(Complex z_ohm, std::optional<double> error_oh
 // and the estimate's notes. Empty without an estimate.
 std::string FormatMeshEstimateText(const SolveResult& result);
 
-// {"segments", "half_segments", "quarter_segments", "time_s", "notes", "feeds": [{"name",
+// {"segments", "half_segments", "quarter_segments", "notes", "feeds": [{"name",
 // "mesh_error_ohm", "observed_order", "asymptotic", "half_mesh_z_ohm",
-// "quarter_mesh_z_ohm"}]}; every number finite.
+// "quarter_mesh_z_ohm"}]}; every number finite. No time: the solve's JSON is the same
+// on every run.
 nlohmann::json MeshEstimateJson(const SolveResult& result);
 
 // Adds feeds[].mesh_error_ohm and "mesh_estimate" to a solve document and the estimate's
