@@ -28,11 +28,9 @@ int RunSolve(const SolveFlags& all) {
   options.max_frequency_hz = frequency_hz;
   Simulation simulation(std::move(model), options);
   PrintWarnings(simulation.warnings());
-  SolveResult result = simulation.Solve(frequency_hz);
-  if (!all.no_mesh_estimate) {
-    EstimateMeshError(simulation, &result);
-    PrintWarnings(result.mesh_estimate->warnings);
-  }
+  const SolveResult result = all.no_mesh_estimate ? simulation.Solve(frequency_hz)
+                                                  : SolveWithMeshEstimate(simulation, frequency_hz);
+  if (result.mesh_estimate) PrintWarnings(result.mesh_estimate->warnings);
   std::optional<StressResult> stress;
   if (stress_options) stress = ComputeStress(simulation.model(), result, *stress_options);
   const StressResult* shown = stress ? &*stress : nullptr;

@@ -159,12 +159,17 @@ class Simulation {
   std::unique_ptr<Impl> impl_;
 };
 
-// Estimates how far each feed impedance of `result` (a Solve of `simulation`) is from the
-// converged value: solves the model with half and a quarter of its segments on every wire at
-// result.frequency_hz (about a third of a fill's time more), sets result->mesh_estimate and
-// each feed's mesh_error_ohm. A wire of two segments or fewer keeps its count (said in the
-// notes); when no wire can be made coarser, or a coarser solve fails, mesh_estimate->feeds
-// stays empty and its notes say why. Method and limits: docs/numerics.md, "Mesh error estimate".
+// Solve(frequency_hz) with an estimate of how far each feed impedance is from the converged
+// value (docs/numerics.md, "Mesh error estimate"): the same system restricted to the triangle
+// bases of two nested coarser meshes, with every other node and every fourth node of each
+// wire (ends, feeds, loads and bends kept), which costs no new fill, two small solves and one
+// copy of the matrix. Sets mesh_estimate and each feed's mesh_error_ohm. A wire of two segments
+// or fewer keeps its count (said in the notes); when no wire can be made coarser, or a coarser
+// solve fails, mesh_estimate->feeds stays empty and its notes say why.
+SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency_hz,
+                                  int fill_threads = 0);
+// The same estimate for a result already solved, from the model meshed again with half and a
+// quarter of the segments per wire and filled anew (about a third of a fill more).
 void EstimateMeshError(const Simulation& simulation, SolveResult* result, int fill_threads = 0);
 
 // The first feed at one frequency with its mesh estimate (Solve, then EstimateMeshError): what a

@@ -650,10 +650,11 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     out.value_si = trials.value(i);
     out.target_hz = targets[i].frequency_hz;
     const Simulation simulation = trials.SimulationAt(i, out.value_si);
-    SolveResult solved = simulation.Solve(out.target_hz);
+    const SolveResult solved = options.mesh_estimate
+                                   ? SolveWithMeshEstimate(simulation, out.target_hz)
+                                   : simulation.Solve(out.target_hz);
     trials.count_solves(1);
-    if (options.mesh_estimate) {
-      EstimateMeshError(simulation, &solved);
+    if (solved.mesh_estimate) {
       out.mesh_error_ohm = solved.feeds.front().mesh_error_ohm;
       out.mesh_notes = solved.mesh_estimate->notes;
       const std::vector<Warning>& mesh_warnings = solved.mesh_estimate->warnings;
