@@ -1,4 +1,4 @@
-// Validation: the mesh error estimate (EstimateMeshError). The feed impedance of a mesh of N
+// Validation: the mesh error estimate (SolveWithMeshEstimate). The feed impedance of a mesh of N
 // segments per wire is compared with that of a mesh four times finer: the estimate must bound
 // the difference, as Richardson extrapolation with Roache's grid convergence index promises
 // (P. J. Roache, "Quantification of uncertainty in computational fluid dynamics", Annu. Rev.

@@ -10,10 +10,6 @@
 #include <array>
 #include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
-#include <deque>
-#include <memory>
-#include <mutex>
-#include <utility>
 #include <vector>
 
 #include "core/constants.hpp"
@@ -126,44 +122,6 @@ void CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_lo
 
 }  // namespace
 
-namespace {
-
-// The last few tables built, by their exact parameters: a table is a pure function of them, so
-// a fill that asks again (the coarser meshes of a mesh error estimate, over the same range)
-// shares the one built, bit for bit the same. A few entries: one sweep's frequencies differ.
-constexpr size_t kSharedTables = 4;
-
-std::shared_ptr<const ground::HalfSpaceTable> SharedTable(Complex eps_c, double wavenumber_per_m,
-                                                          double zeta_min, double r_max,
-                                                          const ground::TableOptions& options) {
-  using Key = std::array<double, 9>;
-  const Key key{eps_c.real(),
-                eps_c.imag(),
-                wavenumber_per_m,
-                zeta_min,
-                r_max,
-                options.zeta_max_m,
-                options.direct ? 1.0 : 0.0,
-                static_cast<double>(options.nodes_per_octave),
-                static_cast<double>(options.angle_nodes)};
-  static std::mutex mutex;
-  static std::deque<std::pair<Key, std::shared_ptr<const ground::HalfSpaceTable>>> recent;
-  {
-    const std::lock_guard<std::mutex> lock(mutex);
-    for (const auto& [k, table] : recent) {
-      if (k == key) return table;
-    }
-  }
-  auto table = std::make_shared<const ground::HalfSpaceTable>(
-      ground::HalfSpace(eps_c, wavenumber_per_m), zeta_min, r_max, zeta_min, options);
-  const std::lock_guard<std::mutex> lock(mutex);
-  recent.emplace_front(key, table);
-  if (recent.size() > kSharedTables) recent.pop_back();
-  return table;
-}
-
-}  // namespace
-
 HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double wavenumber_per_m,
                              double exact_below_m, bool tabulate)
     : wavenumber_(wavenumber_per_m), exact_below_m_(exact_below_m) {
@@ -187,7 +145,8 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   ground::TableOptions table_options;
   table_options.direct = !tabulate;
   table_options.zeta_max_m = std::max(2.0 * std::max(hi.z(), 0.0), zeta_min);
-  table_ = SharedTable(eps_c, wavenumber_per_m, zeta_min, r_max, table_options);
+  table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
+                                                    zeta_min, r_max, zeta_min, table_options);
 }
 
 bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {

@@ -28,9 +28,7 @@ struct HalfSpacePair {
 class HalfSpaceFill {
  public:
   // The table covers every pair of the mesh; pairs whose mean height is below exact_below_m
-  // use it. Costs one table (some 0.05 s, two threads), unless one of the same ground,
-  // frequency and range was built lately (the coarser meshes of a mesh error estimate span the
-  // same range): the last few tables are kept and shared. tabulate = false builds no table and
+  // use it. Costs one table (some 0.05 s, two threads). tabulate = false builds no table and
   // integrates the correction at every quadrature point instead (checks of the table).
   HalfSpaceFill(const geometry::Mesh& mesh, std::complex<double> eps_c, double wavenumber_per_m,
                 double exact_below_m, bool tabulate = true);
@@ -44,7 +42,7 @@ class HalfSpaceFill {
   const ground::HalfSpaceTable& table() const { return *table_; }
 
  private:
-  std::shared_ptr<const ground::HalfSpaceTable> table_;
+  std::unique_ptr<ground::HalfSpaceTable> table_;
   double wavenumber_ = 0.0;
   double ground_wavenumber_ = 0.0;  // |k1|
   double ground_wave_decay_ = 0.0;  // |sqrt(k1^2 - k0^2)|: the ground wave's decay in height
