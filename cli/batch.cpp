@@ -29,6 +29,7 @@ struct BatchFlags {
   std::vector<std::string> vary, at, compare;
   bool yes_large = false;
   bool exact = false;
+  bool no_mesh_estimate = false;
   CLI::Option* grounds_option = nullptr;
   CLI::Option* elevation_option = nullptr;
   CLI::Option* pattern_freq_option = nullptr;
@@ -135,6 +136,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   options.allow_large = flags.yes_large;
   options.cancel = &interrupt_requested;
   options.interpolate = !flags.exact;
+  options.mesh_estimate = !flags.no_mesh_estimate;
 
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
@@ -210,6 +212,8 @@ Command AddBatchCommand(CLI::App& program) {
       AddTextOption(*app, "--csv", flags->csv_path, "FILE",
                     "Also write the rows to FILE as CSV (columns in docs/commands.md). "
                     "Default: none.");
+  AddMeshEstimateFlag(*app, flags->no_mesh_estimate,
+                      "each row's first feed at the centre of the first span");
   app->add_flag("--exact", flags->exact,
                 "Fill each row's matrix exactly at every sweep point instead of interpolating "
                 "it between exact fills up to 10% apart (which adds under 0.2% to the "

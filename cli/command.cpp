@@ -255,6 +255,14 @@ void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
                    "docs/commands.md). Default: off.");
 }
 
+void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where) {
+  command.add_flag("--no-mesh-estimate", skip,
+                   fmt::format("Skip the mesh error estimate of {} (coarser solves with half and "
+                               "a quarter of the segments; docs/numerics.md), which adds about "
+                               "a third of a fill's time. Default: off (estimated).",
+                               where));
+}
+
 void AddPowerFlags(CLI::App& command, PowerFlags& flags) {
   flags.power_option = AddTextOption(
       command, "--power", flags.power, "W",

@@ -47,6 +47,9 @@ Model LoadModel(const ModelFlags& flags);
 // The frequency to work at: --freq, else the model's `frequency`; InputError when neither.
 double ChosenFrequency(const ModelFlags& flags, const Model& model);
 
+// Adds --no-mesh-estimate (sets `skip`); `where` says which impedances get the estimate.
+void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where);
+
 // Prints each warning to stderr, one per line.
 void PrintWarnings(const std::vector<Warning>& warnings);
 

@@ -14,6 +14,7 @@ namespace {
 struct SolveFlags {
   ModelFlags model;
   PowerFlags power;
+  bool no_mesh_estimate = false;
 };
 
 int RunSolve(const SolveFlags& all) {
@@ -27,7 +28,9 @@ int RunSolve(const SolveFlags& all) {
   options.max_frequency_hz = frequency_hz;
   Simulation simulation(std::move(model), options);
   PrintWarnings(simulation.warnings());
-  const SolveResult result = simulation.Solve(frequency_hz);
+  const SolveResult result = all.no_mesh_estimate ? simulation.Solve(frequency_hz)
+                                                  : SolveWithMeshEstimate(simulation, frequency_hz);
+  if (result.mesh_estimate) PrintWarnings(result.mesh_estimate->warnings);
   std::optional<StressResult> stress;
   if (stress_options) stress = ComputeStress(simulation.model(), result, *stress_options);
   const StressResult* shown = stress ? &*stress : nullptr;
@@ -48,6 +51,7 @@ Command AddSolveCommand(CLI::App& program) {
       "feed, current, voltage and power at each load.");
   AddModelFlags(*app, flags->model, /*with_frequency=*/true);
   AddPowerFlags(*app, flags->power);
+  AddMeshEstimateFlag(*app, flags->no_mesh_estimate, "each feed impedance");
   app->footer(
       "Examples:\n"
       "  wirefield solve models/hiking_club_dipole.wire\n"

@@ -29,6 +29,7 @@ struct SweepFlags {
   PowerFlags power;
   std::string threads;
   bool exact = false;
+  bool no_mesh_estimate = false;
   std::string csv_path, svg_path, s1p_path, measured_path;
   CLI::Option* threads_option = nullptr;
   CLI::Option* csv_option = nullptr;
@@ -99,6 +100,15 @@ int RunSweepCommand(const SweepFlags& flags) {
   }
   for (const Band& band : bands) report.bands.push_back(SummarizeBand(report.sweep, band));
   if (measured) report.measured = CompareMeasured(report.sweep, *measured, ranges_hz);
+  if (!flags.no_mesh_estimate) {
+    for (const SweepSpan& span : spans) {
+      const double centre_hz = 0.5 * (span.frequencies_hz.front() + span.frequencies_hz.back());
+      report.mesh_estimates.push_back(EstimateFirstFeedAt(simulation, centre_hz, span.name));
+      const std::vector<Warning>& mesh_warnings = report.mesh_estimates.back().warnings;
+      PrintWarnings(mesh_warnings);
+      report.warnings.insert(report.warnings.end(), mesh_warnings.begin(), mesh_warnings.end());
+    }
+  }
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
@@ -132,6 +142,8 @@ Command AddSweepCommand(CLI::App& program) {
                 "Fill the matrix exactly at every point instead of interpolating it between "
                 "exact fills up to 10% apart (which adds under 0.2% to the impedance). "
                 "Default: off; several times slower on a long sweep.");
+  AddMeshEstimateFlag(*app, flags->no_mesh_estimate,
+                      "the first feed's impedance at each band's centre (not at every point)");
   flags->csv_option =
       AddTextOption(*app, "--csv", flags->csv_path, "FILE",
                     "Also write the points to FILE as CSV (columns in docs/commands.md). "

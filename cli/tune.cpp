@@ -25,6 +25,7 @@ struct TuneFlags {
   std::string goal, kind;
   CLI::Option* goal_option = nullptr;
   CLI::Option* kind_option = nullptr;
+  bool no_mesh_estimate = false;
 };
 
 int RunTune(const TuneFlags& flags) {
@@ -45,6 +46,7 @@ int RunTune(const TuneFlags& flags) {
     }
   }
   TuneOptions options;
+  options.mesh_estimate = !flags.no_mesh_estimate;
   if (Given(flags.goal_option)) {
     const std::optional<TuneGoal> goal = ParseTuneGoal(flags.goal);
     if (!goal) {
@@ -108,6 +110,7 @@ Command AddTuneCommand(CLI::App& program) {
       "two --vary/--target pairs tune two variables for two bands. Reports the value, the "
       "impedance, the SWR and how far the resonance moves per cm, uH or pF.");
   AddModelFlags(*app, flags->model, /*with_frequency=*/false);
+  AddMeshEstimateFlag(*app, flags->no_mesh_estimate, "the tuned impedance");
   app->add_option("--vary", flags->vary,
                   "The `let` variable to tune, by name; repeatable, paired in order with "
                   "--target. Required.")

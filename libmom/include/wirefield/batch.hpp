@@ -88,6 +88,10 @@ struct BatchOptions {
   // Matrix interpolation in each row's sweep (SweepOptions::interpolate). Default true;
   // false fills the matrix exactly at every point (the CLI's --exact), several times slower.
   bool interpolate = true;
+  // Estimate each row's mesh error (EstimateFirstFeedAt at the centre of the first span: one
+  // exact solve and two coarser ones per row). Default true; the CLI's --no-mesh-estimate
+  // turns it off.
+  bool mesh_estimate = true;
   // Run grids of more than kMaxBatchRows rows (otherwise InputError before any row).
   bool allow_large = false;
   // Asks the run to stop early (the CLI sets it on Ctrl-C; null: never). Once it reads true,
@@ -140,6 +144,9 @@ struct BatchRow {
   std::vector<BatchBand> bands;   // one per BatchOptions::spans, in that order
   int unknowns = 0;               // of the sweep's mesh
   std::vector<Warning> warnings;  // of the model, meshes and pattern of this row
+  // The first feed's impedance at the centre of the first span with its mesh error estimate
+  // (BatchOptions::mesh_estimate).
+  std::optional<FeedMeshEstimateAt> mesh_estimate;
 };
 
 struct BatchResult {

@@ -62,6 +62,9 @@ struct FeedResult {
   double transmitter_power_w = 0.0;
   double line_loss_w = 0.0;
   double transformer_loss_w = 0.0;
+  // How far impedance_ohm may be from the converged (infinitely fine mesh) value, ohm, from
+  // coarser solves of the same model (EstimateMeshError); empty when not estimated.
+  std::optional<double> mesh_error_ohm;
 };
 
 struct LoadResult {
@@ -84,6 +87,32 @@ struct SegmentCurrent {
   Complex current_end_a;
 };
 
+// A discretisation estimate of the feed impedances (docs/numerics.md, "Mesh error estimate"):
+// the model solved again with half and a quarter of the segments on every wire, and Richardson
+// extrapolation with the observed order of convergence (Roache's grid convergence index).
+struct FeedMeshError {
+  double error_ohm = 0.0;  // estimated |Z - Z_converged| of the feed's terminal impedance
+  // Observed order p of |Z_N - Z_N/2| ~ h^p; 0 when not observed (two levels only).
+  double observed_order = 0.0;
+  // True when p lay in the range where the extrapolation is trusted; false: the conservative
+  // fallback estimate (docs/numerics.md).
+  bool asymptotic = false;
+  Complex half_mesh_impedance_ohm;     // with half the segments
+  Complex quarter_mesh_impedance_ohm;  // with a quarter (equal to half's with two levels)
+};
+
+struct MeshEstimate {
+  std::vector<FeedMeshError> feeds;  // in the order of SolveResult::feeds
+  int segments = 0;                  // of the mesh estimated
+  int half_segments = 0;             // of the coarser meshes
+  int quarter_segments = 0;          // 0 with two levels only
+  double time_s = 0.0;               // the coarser meshes and solves
+  // What limits the estimate (a wire too short to halve, an order outside the trusted range).
+  std::vector<std::string> notes;
+  // An estimate above 2% of |Z|, saying what to change.
+  std::vector<Warning> warnings;
+};
+
 struct SolveResult {
   double frequency_hz = 0.0;
   int unknowns = 0;
@@ -99,6 +128,7 @@ struct SolveResult {
   double relative_residual = 0.0;  // |Z I - V| / |V| of the solved system
   double fill_time_s = 0.0;
   double solve_time_s = 0.0;
+  std::optional<MeshEstimate> mesh_estimate;  // set by EstimateMeshError
 };
 
 // Segment counts per wire: what the model gave (0 = none) and what the mesher used.
@@ -138,6 +168,32 @@ class Simulation {
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };
+
+// Solve(frequency_hz) with an estimate of how far each feed impedance is from the converged
+// value (docs/numerics.md, "Mesh error estimate"): the same system restricted to the triangle
+// bases of two nested coarser meshes, with every other node and every fourth node of each
+// wire (ends, feeds, loads and bends kept), which costs no new fill, two small solves and one
+// copy of the matrix. Sets mesh_estimate and each feed's mesh_error_ohm. A wire of two segments
+// or fewer keeps its count (said in the notes); when no wire can be made coarser, or a coarser
+// solve fails, mesh_estimate->feeds stays empty and its notes say why.
+SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency_hz,
+                                  int fill_threads = 0);
+// The same estimate for a result already solved, from the model meshed again with half and a
+// quarter of the segments per wire and filled anew (about a third of a fill more).
+void EstimateMeshError(const Simulation& simulation, SolveResult* result, int fill_threads = 0);
+
+// The first feed at one frequency with its mesh estimate (Solve, then EstimateMeshError): what a
+// sweep reports at each band's centre and a batch row at its first span's centre.
+struct FeedMeshEstimateAt {
+  std::string label;  // the band's name, "range", ... (the caller's)
+  double frequency_hz = 0.0;
+  Complex z_ohm;  // at the first feed's terminals, an exact fill
+  std::optional<double> mesh_error_ohm;
+  std::vector<std::string> notes;
+  std::vector<Warning> warnings;  // an estimate above 2% of |Z|
+};
+FeedMeshEstimateAt EstimateFirstFeedAt(const Simulation& simulation, double frequency_hz,
+                                       const std::string& label, int fill_threads = 0);
 
 // The version string, e.g. "0.1.0".
 std::string Version();

@@ -26,6 +26,9 @@ struct SweepReport {
   int region = 1;
   bool region_given = false;  // false: region 1 was assumed
   std::optional<MeasuredComparison> measured;
+  // The first feed's mesh error estimate at the centre of each band (or of the range), in
+  // order; only at the centres, not at every point (empty with --no-mesh-estimate).
+  std::vector<FeedMeshEstimateAt> mesh_estimates;
   std::vector<Warning> warnings;
 };
 

@@ -64,6 +64,10 @@ struct TuneOptions {
   // Largest number of alternations for two variables. Default 30; each costs a few dozen
   // solves.
   int max_iterations = 30;
+  // Estimate the mesh error of each tuned impedance (EstimateMeshError, at the target
+  // frequency with the tuned values; two coarser solves, small against a tune's dozens).
+  // Default true; the CLI's --no-mesh-estimate turns it off.
+  bool mesh_estimate = true;
   // Mesh options for every trial (max_frequency_hz defaults to the highest target).
   SimulationOptions simulation;
   // Called with one line of progress text (no newline) at each stage; may be empty.
@@ -88,6 +92,10 @@ struct TunedVariable {
   Complex z_ohm;              // at the feed terminals
   Complex transmitter_z_ohm;  // at the transmitter
   double swr = 0.0;           // at the transmitter, against z0_ohm
+  // How far z_ohm may be from the converged mesh's value, ohm (TuneOptions::mesh_estimate);
+  // mesh_notes: what limits the estimate (empty when it holds as documented).
+  std::optional<double> mesh_error_ohm;
+  std::vector<std::string> mesh_notes;
   // How far the resonance moves per SI unit of the variable (Hz/m, Hz/H, Hz/F): a central
   // finite difference of the resonance frequency at value -/+ sensitivity_step_si. Absent
   // when no resonance lies near the target.

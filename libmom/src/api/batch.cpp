@@ -231,6 +231,15 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
     if (!row_set) pattern_at(row.min_swr_frequency_hz, row);
   }
 
+  if (options.mesh_estimate) {
+    const SweepSpan& first = options.spans.front();
+    row.mesh_estimate = EstimateFirstFeedAt(
+        simulation, 0.5 * (first.frequencies_hz.front() + first.frequencies_hz.back()), first.name,
+        fill_threads);
+    pattern_warnings.insert(pattern_warnings.end(), row.mesh_estimate->warnings.begin(),
+                            row.mesh_estimate->warnings.end());
+  }
+
   // The sweep's mesh is the finest (highest frequency), so its warnings stand for the
   // patterns' meshes too; those would repeat them at other frequencies.
   std::set<std::string> seen;

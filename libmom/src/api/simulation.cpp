@@ -143,6 +143,10 @@ const fill::NearFieldCache& SimulationAccess::NearField(const Simulation& simula
   return simulation.impl_->near_field;
 }
 
+const SimulationOptions& SimulationAccess::Options(const Simulation& simulation) {
+  return simulation.impl_->options;
+}
+
 int SimulationAccess::FillThreads(const Simulation& simulation) {
   return ResolveFillThreads(simulation.impl_->options.fill_threads);
 }

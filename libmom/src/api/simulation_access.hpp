@@ -14,6 +14,7 @@ namespace wirefield {
 struct SimulationAccess {
   static const geometry::Mesh& Mesh(const Simulation& simulation);
   static const fill::NearFieldCache& NearField(const Simulation& simulation);
+  static const SimulationOptions& Options(const Simulation& simulation);
   // The fill threads the Simulation's options ask for (0 resolved to one per core).
   static int FillThreads(const Simulation& simulation);
   // Solve() from the antenna's own matrix z (as fill::AssembleImpedance returns it, or

@@ -650,8 +650,17 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     out.value_si = trials.value(i);
     out.target_hz = targets[i].frequency_hz;
     const Simulation simulation = trials.SimulationAt(i, out.value_si);
-    const Sample at = Trials::FromSolve(simulation.Solve(out.target_hz), out.value_si);
+    const SolveResult solved = options.mesh_estimate
+                                   ? SolveWithMeshEstimate(simulation, out.target_hz)
+                                   : simulation.Solve(out.target_hz);
     trials.count_solves(1);
+    if (solved.mesh_estimate) {
+      out.mesh_error_ohm = solved.feeds.front().mesh_error_ohm;
+      out.mesh_notes = solved.mesh_estimate->notes;
+      const std::vector<Warning>& mesh_warnings = solved.mesh_estimate->warnings;
+      result.warnings.insert(result.warnings.end(), mesh_warnings.begin(), mesh_warnings.end());
+    }
+    const Sample at = Trials::FromSolve(solved, out.value_si);
     out.z_ohm = at.z_ohm;
     out.transmitter_z_ohm = at.transmitter_z_ohm;
     out.swr = at.swr;

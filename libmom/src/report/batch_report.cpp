@@ -4,12 +4,14 @@
 // checked to be finite first; a failed row shows its reason and no numbers.
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cmath>
 #include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
 #include <vector>
 
+#include "report/mesh_estimate_text.hpp"
 #include "report/notes.hpp"
 #include "report/pattern_format.hpp"
 #include "report/sweep_format.hpp"
@@ -105,6 +107,20 @@ std::string AtHeader(double f_hz) {
   return fmt::format("SWR @{} MHz", fmt::format("{:.6g}", f_hz / 1e6));
 }
 
+// The row's first feed at its first span's centre with the mesh estimate, or "-".
+std::string RowMeshCell(const BatchRow& row) {
+  if (!row.mesh_estimate) return "-";
+  return ImpedanceWithMeshError(row.mesh_estimate->z_ohm, row.mesh_estimate->mesh_error_ohm);
+}
+
+// ",F,R,X,E" of the row's mesh estimate (empty fields without one).
+std::string RowMeshCsv(const BatchRow& row) {
+  if (!row.mesh_estimate) return ",,,,";
+  const FeedMeshEstimateAt& e = *row.mesh_estimate;
+  return fmt::format(",{:.10g},{:.10g},{:.10g},{}", e.frequency_hz, e.z_ohm.real(), e.z_ohm.imag(),
+                     e.mesh_error_ohm ? fmt::format("{:.10g}", *e.mesh_error_ohm) : "");
+}
+
 }  // namespace
 }  // namespace report
 
@@ -152,6 +168,9 @@ std::string FormatBatchText(const BatchResult& result) {
                   report::Align::kRight);
   table.AddColumn("toward (deg)", report::Align::kRight);
   table.AddColumn("eff (%)", report::Align::kRight);
+  const bool with_mesh = std::any_of(result.rows.begin(), result.rows.end(),
+                                     [](const BatchRow& row) { return row.mesh_estimate; });
+  if (with_mesh) table.AddColumn("Z at centre, mesh +- (ohm)", report::Align::kRight);
   table.AddColumn("", report::Align::kLeft);
   std::vector<BatchSummary> band_summaries;
   if (per_band) {
@@ -165,7 +184,7 @@ std::string FormatBatchText(const BatchResult& result) {
       std::vector<std::string> cells{fmt::format("{}", row.index + 1), row.ground};
       for (const BatchValue& v : row.values) cells.push_back(v.shown);
       if (row.error) {
-        const size_t blanks = 8 + result.at_hz.size() + (per_band ? 1 : 0);
+        const size_t blanks = 8 + result.at_hz.size() + (per_band ? 1 : 0) + (with_mesh ? 1 : 0);
         for (size_t i = 0; i < blanks; ++i) cells.push_back("-");
         cells.push_back("failed (below)");
         table.AddRow(std::move(cells));
@@ -185,6 +204,7 @@ std::string FormatBatchText(const BatchResult& result) {
         cells.push_back(report::GainText(band.gain_at_elevation_dbi));
         cells.push_back(report::AngleText(band.gain_at_elevation_azimuth_deg));
         cells.push_back(fmt::format("{:.1f}", 100.0 * band.efficiency));
+        if (with_mesh) cells.push_back(line == 0 ? report::RowMeshCell(row) : std::string());
         const std::optional<int>& best = band_summaries[line].best_row;
         cells.push_back(best && *best == row.index ? "best on " + band.name : "");
       } else {
@@ -197,6 +217,7 @@ std::string FormatBatchText(const BatchResult& result) {
         cells.push_back(report::GainText(row.gain_at_elevation_dbi));
         cells.push_back(report::AngleText(row.gain_at_elevation_azimuth_deg));
         cells.push_back(fmt::format("{:.1f}", 100.0 * row.efficiency));
+        if (with_mesh) cells.push_back(report::RowMeshCell(row));
         cells.push_back(summary.best_row && *summary.best_row == row.index ? "best" : "");
       }
       table.AddRow(std::move(cells));
@@ -204,6 +225,13 @@ std::string FormatBatchText(const BatchResult& result) {
   }
   out += "Rows\n";
   out += table.Render(2);
+  if (with_mesh) {
+    out += fmt::format(
+        "  Z at centre: the first feed's terminals at the centre of the first span ({}), "
+        "with the\n  mesh error estimate (docs/numerics.md); the other points are not "
+        "estimated.\n",
+        result.spans.front().name);
+  }
   if (result.rows_failed > 0) {
     out += fmt::format("\nFailed rows ({} of {}; the others ran)\n", result.rows_failed,
                        result.rows.size());
@@ -435,6 +463,9 @@ std::string FormatBatchJson(const BatchResult& result) {
       }
       r["bands"] = bands;
       r["unknowns"] = row.unknowns;
+      r["mesh_estimate"] = row.mesh_estimate
+                               ? report::CentreEstimatesJson({*row.mesh_estimate}).front()
+                               : nlohmann::json();
       r["error"] = nullptr;
       r["error_kind"] = nullptr;
     }
@@ -481,7 +512,7 @@ std::string FormatBatchCsv(const BatchResult& result) {
       out += fmt::format(",{}_{}", span.name, key);
     }
   }
-  out += ",error\n";
+  out += ",mesh_frequency_hz,mesh_r_ohm,mesh_x_ohm,mesh_error_ohm,error\n";
   const size_t band_columns = 9 * result.spans.size();
   for (const BatchRow& row : result.rows) {
     out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
@@ -490,7 +521,7 @@ std::string FormatBatchCsv(const BatchResult& result) {
                                        : fmt::format(",{:.10g}", row.values[v].si);
     }
     if (row.error) {
-      out += std::string(3 + result.at_hz.size() + 9 + band_columns + 1, ',');
+      out += std::string(3 + result.at_hz.size() + 9 + band_columns + 4 + 1, ',');
       out += report::CsvQuoted(*row.error) + "\n";
       continue;
     }
@@ -521,6 +552,7 @@ std::string FormatBatchCsv(const BatchResult& result) {
         out += ",,,,,,";
       }
     }
+    out += report::RowMeshCsv(row);
     out += ",\n";
   }
   return out;

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "report/ground_text.hpp"
+#include "report/mesh_estimate_text.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/report.hpp"
 
@@ -275,6 +276,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
                   Number(feed.power_w)});
   }
   out += feeds.Render(2);
+  out += report::FormatMeshEstimateText(result);
   out += report::TransmitterTable(model, result, z0_ohm);
 
   if (!result.loads.empty()) {
@@ -395,6 +397,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   }
   doc["warnings"] = nlohmann::json::array();
   for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  report::AddMeshEstimateJson(result, &doc);
   if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   return doc.dump(2) + "\n";
 }

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "report/ground_text.hpp"
+#include "report/mesh_estimate_text.hpp"
 #include "report/notes.hpp"
 #include "report/sweep_format.hpp"
 #include "report/text_table.hpp"
@@ -265,6 +266,7 @@ std::string FormatSweepText(const SweepReport& report) {
   out += fmt::format("  lowest SWR of the sweep (at the transmitter) {:.3f} at {} MHz\n",
                      sweep.min_swr, report::Mhz(sweep.min_swr_frequency_hz));
   out += report::ResonancesText(sweep.resonances_hz, sweep.transmitter_resonances_hz, chain, "  ");
+  out += report::FormatCentreEstimatesText(report.feed_name, report.mesh_estimates);
 
   if (report.measured) {
     const MeasuredComparison& m = *report.measured;
@@ -374,6 +376,7 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["interpolated"] = sweep.interpolated_points > 0;
   doc["elapsed_s"] = sweep.elapsed_s;
   doc["warnings"] = report::WarningsJson(report.warnings);
+  doc["mesh_estimates"] = report::CentreEstimatesJson(report.mesh_estimates);
   const std::vector<StressResult> stress = report::PointStress(report.sweep);
   if (!stress.empty()) {
     doc["stress"] =

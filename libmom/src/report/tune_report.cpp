@@ -8,6 +8,7 @@
 #include <nlohmann/json.hpp>
 #include <string>
 
+#include "report/mesh_estimate_text.hpp"
 #include "report/notes.hpp"
 #include "wirefield/tune.hpp"
 
@@ -107,6 +108,11 @@ std::string FormatTuneText(const TuneResult& result) {
         "SWR {:.2f} (z0 {:g} ohm)\n",
         v.target_hz / 1e6, ShowZ(v.z_ohm), ShowZ(v.transmitter_z_ohm), Finite(v.swr, "SWR"),
         result.z0_ohm);
+    if (v.mesh_error_ohm || !v.mesh_notes.empty()) {
+      out += fmt::format("  Mesh estimate at the feed terminals: Z = {}\n",
+                         report::ImpedanceWithMeshError(v.z_ohm, v.mesh_error_ohm));
+      for (const std::string& note : v.mesh_notes) out += fmt::format("    note: {}\n", note);
+    }
     if (v.sensitivity_hz_per_si) {
       const TradeUnit unit = TradeUnitOf(v.unit);
       const double khz_per_unit = Finite(*v.sensitivity_hz_per_si * unit.si / 1e3, "sensitivity");
@@ -155,6 +161,8 @@ std::string FormatTuneJson(const TuneResult& result) {
     j["z_ohm"] = pair(v.z_ohm);
     j["transmitter_z_ohm"] = pair(v.transmitter_z_ohm);
     j["swr"] = Finite(v.swr, "SWR");
+    if (v.mesh_error_ohm) j["mesh_error_ohm"] = Finite(*v.mesh_error_ohm, "mesh estimate");
+    if (v.mesh_error_ohm || !v.mesh_notes.empty()) j["mesh_notes"] = v.mesh_notes;
     const TradeUnit unit = TradeUnitOf(v.unit);
     j["sensitivity_unit"] = unit.name;
     j["sensitivity_step_si"] = Finite(v.sensitivity_step_si, "step");
