@@ -185,9 +185,15 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
   const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
   const double vertical = ua.z() * ub.z();
-  // Two horizontal segments need neither the vertical nor the coupling kernel; one horizontal
-  // segment no vertical kernel.
-  const int parts = ua.z() == 0.0 && ub.z() == 0.0 ? 2 : (vertical == 0.0 ? 3 : 4);
+  // Only the kernels whose direction factors can be nonzero are looked up: two horizontal
+  // segments need neither the vertical nor the coupling kernel, two vertical ones neither the
+  // horizontal nor the coupling kernel (u_src . rho_hat = u_obs . rho_hat = 0).
+  using Table = ground::HalfSpaceTable;
+  const bool a_level = ua.x() != 0.0 || ua.y() != 0.0, b_level = ub.x() != 0.0 || ub.y() != 0.0;
+  const bool coupled = (ua.z() != 0.0 && b_level) || (ub.z() != 0.0 && a_level);
+  const unsigned parts = Table::kCharge | (horizontal != 0.0 ? Table::kHorizontal : 0u) |
+                         (vertical != 0.0 ? Table::kVertical : 0u) |
+                         (coupled ? Table::kCoupling : 0u);
   // The image factor exp(-jkR')/R' from one sine and cosine at the centres and the series of
   // fill/kernel.hpp in k (R' - R'_c) at each pair of points (one sine and cosine per pair of
   // points where the phase difference exceeds the series' range).
@@ -218,7 +224,7 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
       // The coupling's direction factor u_obs,z (u_src . rho_hat) - u_src,z (u_obs . rho_hat),
       // rho_hat the horizontal unit vector from the source point toward the observer.
       double coupling = 0.0;
-      if (parts > 2 && rho > 0.0) {
+      if (coupled && rho > 0.0) {
         const double inv_rho = 1.0 / rho;
         coupling =
             (ua.z() * (ub.x() * dx + ub.y() * dy) - ub.z() * (ua.x() * dx + ua.y() * dy)) * inv_rho;

@@ -396,13 +396,13 @@ bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
 HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) const {
   if (!Covers(rho_m, zeta_m)) return ground_.Correction(rho_m, zeta_m);
   const double r = std::hypot(rho_m, zeta_m);
-  const std::array<Complex, 4> v = Interpolate<4>(rho_m, zeta_m, r);
+  const std::array<Complex, 4> v = Interpolate<15>(rho_m, zeta_m, r);
   const Complex image = std::polar(1.0 / r, -ground_.wavenumber() * r);
   return {v[0] * image, v[1] * image, v[2] * image, v[3] * image};
 }
 
 std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double zeta_m,
-                                                         int parts) const {
+                                                         unsigned parts) const {
   double rho = std::max(rho_m, 0.0);
   double zeta = std::clamp(zeta_m, zeta_min_, zeta_max_);
   double r = std::sqrt(rho * rho + zeta * zeta);
@@ -418,20 +418,35 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
     // The public order (horizontal, vertical, charge, coupling), the parts left out zero.
     const HalfSpaceCorrection c = ground_.Correction(rho, zeta);
     const Complex f = std::polar(r, ground_.wavenumber() * r);  // divides out the image
-    return {c.horizontal * f, parts >= 4 ? c.vertical * f : Complex(0.0), c.charge * f,
-            parts >= 3 ? c.coupling * f : Complex(0.0)};
+    auto part = [&](unsigned bit, Complex value) { return (parts & bit) ? value * f : Complex(); };
+    return {part(kHorizontal, c.horizontal), part(kVertical, c.vertical), part(kCharge, c.charge),
+            part(kCoupling, c.coupling)};
   }
-  switch (parts) {
+  // The mask in values_' order (horizontal, charge, coupling, vertical); the charge is always
+  // wanted in a fill, so its masks come first.
+  const unsigned mask = ((parts & kHorizontal) ? 1u : 0u) | ((parts & kCharge) ? 2u : 0u) |
+                        ((parts & kCoupling) ? 4u : 0u) | ((parts & kVertical) ? 8u : 0u);
+  switch (mask) {
     case 2:
       return Interpolate<2>(rho, zeta, r);
     case 3:
       return Interpolate<3>(rho, zeta, r);
+    case 6:
+      return Interpolate<6>(rho, zeta, r);
+    case 7:
+      return Interpolate<7>(rho, zeta, r);
+    case 10:
+      return Interpolate<10>(rho, zeta, r);
+    case 11:
+      return Interpolate<11>(rho, zeta, r);
+    case 14:
+      return Interpolate<14>(rho, zeta, r);
     default:
-      return Interpolate<4>(rho, zeta, r);
+      return Interpolate<15>(rho, zeta, r);
   }
 }
 
-template <int kParts>
+template <unsigned kMask>
 std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, double r_m) const {
   const double x = Map(r_m);
   const double y = std::sqrt(zeta_m / (r_m + rho_m));
@@ -443,21 +458,24 @@ std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, 
   const std::array<double, 4> wx = Lagrange((x - x_[i]) / dx);
   const std::array<double, 4> wy =
       j > 1 ? Lagrange((y - y_[j]) / dy) : Lagrange(&y_[0], first_y_scale_, y);
-  // Along y within each of the four rows of the stencil, then across them, on the first
-  // kParts parts of the table's order (horizontal, charge, coupling, vertical) only, as real
-  // and imaginary parts in a row of doubles (a std::complex array may be read so), which the
-  // compiler keeps in vector registers.
-  constexpr int kDoubles = 2 * kParts;
+  // Along y within each of the four rows of the stencil, then across them, on the parts of
+  // kMask only (bit c: part c of values_' order), as real and imaginary parts in a row of
+  // doubles (a std::complex array may be read so), which the compiler keeps in vector
+  // registers. The parts left out stay zero.
   const double* base = reinterpret_cast<const double*>(values_.data());
   double v[8] = {};
   for (int a = 0; a < 4; ++a) {
     const double* row =
         base + std::ptrdiff_t{8} * ((i - 1 + a) * static_cast<std::ptrdiff_t>(y_.size()) + j - 1);
-    double t[kDoubles] = {};
+    double t[8] = {};
     for (int b = 0; b < 4; ++b) {
-      for (int c = 0; c < kDoubles; ++c) t[c] += wy[b] * row[8 * b + c];
+      for (int c = 0; c < 8; ++c) {
+        if ((kMask >> (c / 2)) & 1u) t[c] += wy[b] * row[8 * b + c];
+      }
     }
-    for (int c = 0; c < kDoubles; ++c) v[c] += wx[a] * t[c];
+    for (int c = 0; c < 8; ++c) {
+      if ((kMask >> (c / 2)) & 1u) v[c] += wx[a] * t[c];
+    }
   }
   // Back to the public order: horizontal, vertical, charge, coupling.
   return {Complex(v[0], v[1]), Complex(v[6], v[7]), Complex(v[2], v[3]), Complex(v[4], v[5])};

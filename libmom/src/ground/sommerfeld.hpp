@@ -103,14 +103,18 @@ class HalfSpaceTable {
                  TableOptions options = {});
 
   HalfSpaceCorrection Correction(double rho_m, double zeta_m) const;
+  // The parts a lookup may ask for (a bit mask; the others come back zero).
+  static constexpr unsigned kHorizontal = 1, kVertical = 2, kCharge = 4, kCoupling = 8;
+  static constexpr unsigned kAllParts = 15;
   // The four corrections divided by the image's exp(-jkR')/R' (what the table holds), at the
   // nearest point of the table's range: zeta is raised to the table's zeta_min and R' kept
   // within [r_min, r_max]. Near the source these tend to constants (the static images), so the
-  // clamp changes little there; the caller multiplies by the true image factor. parts = 2:
-  // only the horizontal and charge parts are interpolated (all that two horizontal segments
-  // need, at half the cost), 3: the coupling too (enough when one of the two is horizontal:
-  // the vertical part's weight u_obs,z u_src,z is zero), 4: all; the parts left out are zero.
-  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m, int parts = 4) const;
+  // clamp changes little there; the caller multiplies by the true image factor. Only the parts
+  // in the mask are interpolated (two horizontal segments need the horizontal and charge
+  // parts, two vertical ones the vertical and charge parts: half the cost); the parts left
+  // out are zero. The order of the result: horizontal, vertical, charge, coupling.
+  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m,
+                                           unsigned parts = kAllParts) const;
   bool Covers(double rho_m, double zeta_m) const;
   int nodes() const { return static_cast<int>(values_.size()); }
   bool direct() const { return direct_; }
@@ -119,9 +123,10 @@ class HalfSpaceTable {
  private:
   HalfSpace ground_{Complex(1.0, 0.0), 1.0};
   double Map(double r) const { return std::log(r) + r / r_c_; }
-  // The tabulated (normalized) values at a point inside the range, R' = r_m: the first kParts
-  // of horizontal, charge, coupling, vertical (the order of values_).
-  template <int kParts>
+  // The tabulated (normalized) values at a point inside the range, R' = r_m: the parts whose
+  // bits are set in kMask, bit c standing for part c of values_' order (horizontal, charge,
+  // coupling, vertical).
+  template <unsigned kMask>
   std::array<Complex, 4> Interpolate(double rho_m, double zeta_m, double r_m) const;
   double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, zeta_max_ = INFINITY, r_c_ = 1.0;
   bool direct_ = false;
