@@ -58,6 +58,18 @@ constexpr double kFourPointFactor = 10.0;
 // Two points only when the phase across the longer segment (k L, with the ground's k1 where its
 // wave reaches the pair) is below this: the rule's error on exp(-j k x) is (k L)^4 / 4320.
 constexpr double kTwoPointPhase = 0.2;
+// Two-point pairs over which the table's variable in distance, x = ln R' + R'/R_c, changes by
+// at most this much (L (1/R' + 1/R_c) <= 1/16, some 0.36 of a table step: R' of 16 segment
+// lengths or more, and fewer than 1/16 of the ground wave's beat per segment where that wave
+// is resolved) take the normalized correction from one lookup at the centres and its slopes:
+// the neglected second-order terms are of order (x span)^2 relative (docs/numerics.md;
+// tests/unit/fill/half_space_test.cpp bounds them).
+constexpr double kExpansionSpan = 1.0 / 16.0;
+// Nor over grounds of |eps_c| above this (sea water, wet ground at low frequencies): there the
+// corrections vary within a table step (the expansion was measured to depart from the full
+// rule by 2.5e-3 of the image term over sea water at 14.2 MHz), and every pair takes the full
+// rule.
+constexpr double kExpansionMaxPermittivity = 100.0;
 // Width of a graded piece relative to the local scale (its height plus the other segment's).
 constexpr double kGradedWidth = 0.75;
 // The table's floor on heights, in wavelengths: below it the normalized correction is that of
@@ -125,6 +137,7 @@ void CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_lo
 HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double wavenumber_per_m,
                              double exact_below_m, bool tabulate)
     : wavenumber_(wavenumber_per_m), exact_below_m_(exact_below_m) {
+  expandable_ground_ = std::abs(eps_c) <= kExpansionMaxPermittivity;
   const Complex k1 = wavenumber_per_m * std::sqrt(eps_c);
   ground_wavenumber_ = std::abs(k1);
   ground_wave_decay_ = std::abs(std::sqrt(k1 * k1 - wavenumber_per_m * wavenumber_per_m));
@@ -200,6 +213,24 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   const Vec3 centre_a = 0.5 * (a0 + a1), centre_b = 0.5 * (b0 + b1);
   const double r_centre = (centre_a - centre_b.cwiseProduct(mirror)).norm();
   const Complex phase_centre = std::polar(1.0, -wavenumber_ * r_centre);
+  // Far pairs: the normalized correction from one lookup at the centres and its slopes (the
+  // first-order Taylor expansion in rho and zeta), in place of one lookup per pair of points.
+  std::array<Complex, 4> n_centre{}, n_rho{}, n_zeta{};
+  double rho_centre = 0.0, zeta_centre = 0.0;
+  bool taylor = false;
+  if (far_expansion_ && expandable_ground_ && points == 2 &&
+      longest * (1.0 / gap + 1.0 / table_->distance_scale_m()) <= kExpansionSpan) {
+    rho_centre = std::hypot(centre_a.x() - centre_b.x(), centre_a.y() - centre_b.y());
+    zeta_centre = centre_a.z() + centre_b.z();
+    taylor = table_->NormalizedSlopes(rho_centre, zeta_centre, parts, &n_centre, &n_rho, &n_zeta);
+  }
+  auto normalized = [&](double rho, double zeta) {
+    if (!taylor) return table_->NormalizedClamped(rho, zeta, parts);
+    const double d_rho = rho - rho_centre, d_zeta = zeta - zeta_centre;
+    std::array<Complex, 4> n;
+    for (int c = 0; c < 4; ++c) n[c] = n_centre[c] + d_rho * n_rho[c] + d_zeta * n_zeta[c];
+    return n;
+  };
   HalfSpacePair out;
   for (const Node& o : obs) {
     Complex s0 = 0.0, s1 = 0.0, q0 = 0.0;
@@ -207,7 +238,7 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
       const double dx = o.p.x() - s.p.x(), dy = o.p.y() - s.p.y();
       const double rho = std::sqrt(dx * dx + dy * dy), zeta = o.p.z() + s.p.z();
       const double r = std::max(std::sqrt(rho * rho + zeta * zeta), 1e-12 * floor_m_);
-      const std::array<Complex, 4> n = table_->NormalizedClamped(rho, zeta, parts);
+      const std::array<Complex, 4> n = normalized(rho, zeta);
       const double x = wavenumber_ * (r - r_centre);
       double c = 0.0, sn = 0.0;
       if (std::abs(x) <= kShortSeriesPhaseLimit) {

@@ -292,6 +292,21 @@ std::array<double, 4> Lagrange(const double* n, const std::array<double, 4>& sca
           scale[3] * d0 * d1 * d2};
 }
 
+// Their derivatives in u.
+std::array<double, 4> LagrangeSlope(double u) {
+  constexpr double kSixth = 1.0 / 6.0;
+  const double u2 = 3.0 * u * u;
+  return {-kSixth * (u2 - 6.0 * u + 2.0), 0.5 * (u2 - 4.0 * u - 1.0), -0.5 * (u2 - 2.0 * u - 2.0),
+          kSixth * (u2 - 1.0)};
+}
+
+// The derivatives in x of Lagrange(n, scale, x).
+std::array<double, 4> LagrangeSlope(const double* n, const std::array<double, 4>& scale, double x) {
+  const double d0 = x - n[0], d1 = x - n[1], d2 = x - n[2], d3 = x - n[3];
+  return {scale[0] * (d2 * d3 + d1 * d3 + d1 * d2), scale[1] * (d2 * d3 + d0 * d3 + d0 * d2),
+          scale[2] * (d1 * d3 + d0 * d3 + d0 * d1), scale[3] * (d1 * d2 + d0 * d2 + d0 * d1)};
+}
+
 }  // namespace
 
 HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r_max_m,
@@ -479,6 +494,109 @@ std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, 
   }
   // Back to the public order: horizontal, vertical, charge, coupling.
   return {Complex(v[0], v[1]), Complex(v[6], v[7]), Complex(v[2], v[3]), Complex(v[4], v[5])};
+}
+
+bool HalfSpaceTable::NormalizedSlopes(double rho_m, double zeta_m, unsigned parts,
+                                      std::array<Complex, 4>* value, std::array<Complex, 4>* d_rho,
+                                      std::array<Complex, 4>* d_zeta) const {
+  if (direct_ || !(rho_m >= 0.0) || !Covers(rho_m, zeta_m)) return false;
+  const double r = std::sqrt(rho_m * rho_m + zeta_m * zeta_m);
+  std::array<std::array<Complex, 4>, 2> slopes;
+  const unsigned mask = ((parts & kHorizontal) ? 1u : 0u) | ((parts & kCharge) ? 2u : 0u) |
+                        ((parts & kCoupling) ? 4u : 0u) | ((parts & kVertical) ? 8u : 0u);
+  switch (mask) {
+    case 2:
+      *value = InterpolateSlopes<2>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 3:
+      *value = InterpolateSlopes<3>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 6:
+      *value = InterpolateSlopes<6>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 7:
+      *value = InterpolateSlopes<7>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 10:
+      *value = InterpolateSlopes<10>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 11:
+      *value = InterpolateSlopes<11>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 14:
+      *value = InterpolateSlopes<14>(rho_m, zeta_m, r, &slopes);
+      break;
+    default:
+      *value = InterpolateSlopes<15>(rho_m, zeta_m, r, &slopes);
+      break;
+  }
+  // x = ln R' + R'/R_c and y = sqrt(zeta / (R' + rho)), with dR'/drho = rho/R' and dR'/dzeta =
+  // zeta/R': dx/drho = (1/R' + 1/R_c) rho/R', dx/dzeta = (1/R' + 1/R_c) zeta/R', dy/drho =
+  // -y/(2 R'), dy/dzeta = y rho/(2 zeta R').
+  const double y = std::sqrt(zeta_m / (r + rho_m));
+  const double x_r = (1.0 / r + 1.0 / r_c_) / r;
+  const double x_rho = x_r * rho_m, x_zeta = x_r * zeta_m;
+  const double y_rho = -0.5 * y / r, y_zeta = 0.5 * y * rho_m / (zeta_m * r);
+  for (int c = 0; c < 4; ++c) {
+    (*d_rho)[c] = slopes[0][c] * x_rho + slopes[1][c] * y_rho;
+    (*d_zeta)[c] = slopes[0][c] * x_zeta + slopes[1][c] * y_zeta;
+  }
+  return true;
+}
+
+template <unsigned kMask>
+std::array<Complex, 4> HalfSpaceTable::InterpolateSlopes(
+    double rho_m, double zeta_m, double r_m, std::array<std::array<Complex, 4>, 2>* slopes) const {
+  const double x = Map(r_m);
+  const double y = std::sqrt(zeta_m / (r_m + rho_m));
+  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
+  const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
+  const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
+  const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
+  const double u = (x - x_[i]) / dx;
+  const std::array<double, 4> wx = Lagrange(u);
+  std::array<double, 4> sx = LagrangeSlope(u);
+  for (double& w : sx) w /= dx;
+  std::array<double, 4> wy, sy;
+  if (j > 1) {
+    const double v = (y - y_[j]) / dy;
+    wy = Lagrange(v);
+    sy = LagrangeSlope(v);
+    for (double& w : sy) w /= dy;
+  } else {
+    wy = Lagrange(&y_[0], first_y_scale_, y);
+    sy = LagrangeSlope(&y_[0], first_y_scale_, y);
+  }
+  // As Interpolate: along y (value and slope) within each row, then across the rows.
+  const double* base = reinterpret_cast<const double*>(values_.data());
+  double v[8] = {}, vx[8] = {}, vy[8] = {};
+  for (int a = 0; a < 4; ++a) {
+    const double* row =
+        base + std::ptrdiff_t{8} * ((i - 1 + a) * static_cast<std::ptrdiff_t>(y_.size()) + j - 1);
+    double t[8] = {}, ty[8] = {};
+    for (int b = 0; b < 4; ++b) {
+      for (int c = 0; c < 8; ++c) {
+        if ((kMask >> (c / 2)) & 1u) {
+          t[c] += wy[b] * row[8 * b + c];
+          ty[c] += sy[b] * row[8 * b + c];
+        }
+      }
+    }
+    for (int c = 0; c < 8; ++c) {
+      if ((kMask >> (c / 2)) & 1u) {
+        v[c] += wx[a] * t[c];
+        vx[c] += sx[a] * t[c];
+        vy[c] += wx[a] * ty[c];
+      }
+    }
+  }
+  // Back to the public order: horizontal, vertical, charge, coupling.
+  auto order = [](const double* d) -> std::array<Complex, 4> {
+    return {Complex(d[0], d[1]), Complex(d[6], d[7]), Complex(d[2], d[3]), Complex(d[4], d[5])};
+  };
+  (*slopes)[0] = order(vx);
+  (*slopes)[1] = order(vy);
+  return order(v);
 }
 
 Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,

@@ -116,7 +116,17 @@ class HalfSpaceTable {
   std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m,
                                            unsigned parts = kAllParts) const;
   bool Covers(double rho_m, double zeta_m) const;
+  // The same parts and their slopes d/drho and d/dzeta (per metre), from the same cubic
+  // interpolant, at a point the table covers without clamping (false, nothing written, where it
+  // does not or the table is direct): the first-order Taylor expansion about a pair's centres
+  // that serves its far pairs (fill/half_space.hpp).
+  bool NormalizedSlopes(double rho_m, double zeta_m, unsigned parts, std::array<Complex, 4>* value,
+                        std::array<Complex, 4>* d_rho, std::array<Complex, 4>* d_zeta) const;
   int nodes() const { return static_cast<int>(values_.size()); }
+  // R_c of the table's variable in distance, x = ln R' + R'/R_c (m): the values vary on the
+  // scale of one x step (ln 2 / nodes_per_octave), so x changes by L (1/R' + 1/R_c) over a
+  // length L at distance R'.
+  double distance_scale_m() const { return r_c_; }
   bool direct() const { return direct_; }
   const HalfSpace& ground() const { return ground_; }
 
@@ -128,6 +138,10 @@ class HalfSpaceTable {
   // coupling, vertical).
   template <unsigned kMask>
   std::array<Complex, 4> Interpolate(double rho_m, double zeta_m, double r_m) const;
+  // The same with the slopes in x and y (d/dx, d/dy of the interpolant) into slopes[0], [1].
+  template <unsigned kMask>
+  std::array<Complex, 4> InterpolateSlopes(double rho_m, double zeta_m, double r_m,
+                                           std::array<std::array<Complex, 4>, 2>* slopes) const;
   double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, zeta_max_ = INFINITY, r_c_ = 1.0;
   bool direct_ = false;
   std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(tan(psi/2))
