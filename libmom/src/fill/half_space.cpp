@@ -220,7 +220,7 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   bool taylor = false;
   if (far_expansion_ && expandable_ground_ && points == 2 &&
       longest * (1.0 / gap + 1.0 / table_->distance_scale_m()) <= kExpansionSpan) {
-    rho_centre = std::hypot(centre_a.x() - centre_b.x(), centre_a.y() - centre_b.y());
+    rho_centre = (centre_a - centre_b).head<2>().norm();
     zeta_centre = centre_a.z() + centre_b.z();
     taylor = table_->NormalizedSlopes(rho_centre, zeta_centre, parts, &n_centre, &n_rho, &n_zeta);
   }

@@ -277,6 +277,15 @@ std::array<Complex, 4> Normalized(const HalfSpaceCorrection& c, double r, double
   return {c.horizontal * f, c.charge * f, c.coupling * f, c.vertical * f};
 }
 
+// A mask of public parts (HalfSpaceTable::kHorizontal, ...) in values_' order (horizontal,
+// charge, coupling, vertical).
+unsigned TableMask(unsigned parts) {
+  return ((parts & HalfSpaceTable::kHorizontal) ? 1u : 0u) |
+         ((parts & HalfSpaceTable::kCharge) ? 2u : 0u) |
+         ((parts & HalfSpaceTable::kCoupling) ? 4u : 0u) |
+         ((parts & HalfSpaceTable::kVertical) ? 8u : 0u);
+}
+
 // Weights of the 4-point Lagrange interpolation on equally spaced nodes -1, 0, 1, 2 at u.
 std::array<double, 4> Lagrange(double u) {
   constexpr double kSixth = 1.0 / 6.0;
@@ -403,6 +412,18 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   }
 }
 
+HalfSpaceTable::Cell HalfSpaceTable::Locate(double rho_m, double zeta_m, double r_m) const {
+  Cell c;
+  c.x = Map(r_m);
+  c.y = std::sqrt(zeta_m / (r_m + rho_m));
+  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
+  c.dx = x_[2] - x_[1];
+  c.dy = y_[2] - y_[1];
+  c.i = std::clamp(1 + static_cast<int>((c.x - x_[1]) / c.dx), 1, nx - 3);
+  c.j = std::clamp(1 + static_cast<int>((c.y - y_[1]) / c.dy), 1, ny - 3);
+  return c;
+}
+
 bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
   const double r = std::hypot(rho_m, zeta_m);
   return !x_.empty() && r >= r_min_ && r <= r_max_ && zeta_m >= zeta_min_ && zeta_m <= zeta_max_;
@@ -439,8 +460,7 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
   }
   // The mask in values_' order (horizontal, charge, coupling, vertical); the charge is always
   // wanted in a fill, so its masks come first.
-  const unsigned mask = ((parts & kHorizontal) ? 1u : 0u) | ((parts & kCharge) ? 2u : 0u) |
-                        ((parts & kCoupling) ? 4u : 0u) | ((parts & kVertical) ? 8u : 0u);
+  const unsigned mask = TableMask(parts);
   switch (mask) {
     case 2:
       return Interpolate<2>(rho, zeta, r);
@@ -463,12 +483,9 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
 
 template <unsigned kMask>
 std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, double r_m) const {
-  const double x = Map(r_m);
-  const double y = std::sqrt(zeta_m / (r_m + rho_m));
-  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
-  const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
-  const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
-  const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
+  const Cell cell = Locate(rho_m, zeta_m, r_m);
+  const double x = cell.x, y = cell.y, dx = cell.dx, dy = cell.dy;
+  const int i = cell.i, j = cell.j;
   // The x nodes are equally spaced; so are the y nodes but for the first (see the constructor).
   const std::array<double, 4> wx = Lagrange((x - x_[i]) / dx);
   const std::array<double, 4> wy =
@@ -499,11 +516,13 @@ std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, 
 bool HalfSpaceTable::NormalizedSlopes(double rho_m, double zeta_m, unsigned parts,
                                       std::array<Complex, 4>* value, std::array<Complex, 4>* d_rho,
                                       std::array<Complex, 4>* d_zeta) const {
-  if (direct_ || !(rho_m >= 0.0) || !Covers(rho_m, zeta_m)) return false;
   const double r = std::sqrt(rho_m * rho_m + zeta_m * zeta_m);
+  if (direct_ || x_.empty() || !(rho_m >= 0.0) || r < r_min_ || r > r_max_ || zeta_m < zeta_min_ ||
+      zeta_m > zeta_max_) {
+    return false;  // not covered (Covers) or no table
+  }
   std::array<std::array<Complex, 4>, 2> slopes;
-  const unsigned mask = ((parts & kHorizontal) ? 1u : 0u) | ((parts & kCharge) ? 2u : 0u) |
-                        ((parts & kCoupling) ? 4u : 0u) | ((parts & kVertical) ? 8u : 0u);
+  const unsigned mask = TableMask(parts);
   switch (mask) {
     case 2:
       *value = InterpolateSlopes<2>(rho_m, zeta_m, r, &slopes);
@@ -547,12 +566,9 @@ bool HalfSpaceTable::NormalizedSlopes(double rho_m, double zeta_m, unsigned part
 template <unsigned kMask>
 std::array<Complex, 4> HalfSpaceTable::InterpolateSlopes(
     double rho_m, double zeta_m, double r_m, std::array<std::array<Complex, 4>, 2>* slopes) const {
-  const double x = Map(r_m);
-  const double y = std::sqrt(zeta_m / (r_m + rho_m));
-  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
-  const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
-  const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
-  const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
+  const Cell cell = Locate(rho_m, zeta_m, r_m);
+  const double x = cell.x, y = cell.y, dx = cell.dx, dy = cell.dy;
+  const int i = cell.i, j = cell.j;
   const double u = (x - x_[i]) / dx;
   const std::array<double, 4> wx = Lagrange(u);
   std::array<double, 4> sx = LagrangeSlope(u);

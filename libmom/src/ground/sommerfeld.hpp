@@ -133,6 +133,13 @@ class HalfSpaceTable {
  private:
   HalfSpace ground_{Complex(1.0, 0.0), 1.0};
   double Map(double r) const { return std::log(r) + r / r_c_; }
+  // The stencil of a point: its coordinates x, y, the steps, and the cell (nodes i-1..i+2,
+  // j-1..j+2).
+  struct Cell {
+    double x, y, dx, dy;
+    int i, j;
+  };
+  Cell Locate(double rho_m, double zeta_m, double r_m) const;
   // The tabulated (normalized) values at a point inside the range, R' = r_m: the parts whose
   // bits are set in kMask, bit c standing for part c of values_' order (horizontal, charge,
   // coupling, vertical).
