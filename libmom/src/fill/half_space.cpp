@@ -58,6 +58,18 @@ constexpr double kFourPointFactor = 10.0;
 // Two points only when the phase across the longer segment (k L, with the ground's k1 where its
 // wave reaches the pair) is below this: the rule's error on exp(-j k x) is (k L)^4 / 4320.
 constexpr double kTwoPointPhase = 0.2;
+// Two-point pairs over which the table's variable in distance, x = ln R' + R'/R_c, changes by
+// at most this much (L (1/R' + 1/R_c) <= 1/16, some 0.36 of a table step: R' of 16 segment
+// lengths or more, and fewer than 1/16 of the ground wave's beat per segment where that wave
+// is resolved) take the normalized correction from one lookup at the centres and its slopes:
+// the neglected second-order terms are of order (x span)^2 relative (docs/numerics.md;
+// tests/unit/fill/half_space_test.cpp bounds them).
+constexpr double kExpansionSpan = 1.0 / 16.0;
+// Nor over grounds of |eps_c| above this (sea water, wet ground at low frequencies): there the
+// corrections vary within a table step (the expansion was measured to depart from the full
+// rule by 2.5e-3 of the image term over sea water at 14.2 MHz), and every pair takes the full
+// rule.
+constexpr double kExpansionMaxPermittivity = 100.0;
 // Width of a graded piece relative to the local scale (its height plus the other segment's).
 constexpr double kGradedWidth = 0.75;
 // The table's floor on heights, in wavelengths: below it the normalized correction is that of
@@ -125,6 +137,7 @@ void CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_lo
 HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double wavenumber_per_m,
                              double exact_below_m, bool tabulate)
     : wavenumber_(wavenumber_per_m), exact_below_m_(exact_below_m) {
+  expandable_ground_ = std::abs(eps_c) <= kExpansionMaxPermittivity;
   const Complex k1 = wavenumber_per_m * std::sqrt(eps_c);
   ground_wavenumber_ = std::abs(k1);
   ground_wave_decay_ = std::abs(std::sqrt(k1 * k1 - wavenumber_per_m * wavenumber_per_m));
@@ -185,15 +198,39 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
   const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
   const double vertical = ua.z() * ub.z();
-  // Two horizontal segments need neither the vertical nor the coupling kernel; one horizontal
-  // segment no vertical kernel.
-  const int parts = ua.z() == 0.0 && ub.z() == 0.0 ? 2 : (vertical == 0.0 ? 3 : 4);
+  // Only the kernels whose direction factors can be nonzero are looked up: two horizontal
+  // segments need neither the vertical nor the coupling kernel, two vertical ones neither the
+  // horizontal nor the coupling kernel (u_src . rho_hat = u_obs . rho_hat = 0).
+  using Table = ground::HalfSpaceTable;
+  const bool a_level = ua.x() != 0.0 || ua.y() != 0.0, b_level = ub.x() != 0.0 || ub.y() != 0.0;
+  const bool coupled = (ua.z() != 0.0 && b_level) || (ub.z() != 0.0 && a_level);
+  const unsigned parts = Table::kCharge | (horizontal != 0.0 ? Table::kHorizontal : 0u) |
+                         (vertical != 0.0 ? Table::kVertical : 0u) |
+                         (coupled ? Table::kCoupling : 0u);
   // The image factor exp(-jkR')/R' from one sine and cosine at the centres and the series of
   // fill/kernel.hpp in k (R' - R'_c) at each pair of points (one sine and cosine per pair of
   // points where the phase difference exceeds the series' range).
   const Vec3 centre_a = 0.5 * (a0 + a1), centre_b = 0.5 * (b0 + b1);
   const double r_centre = (centre_a - centre_b.cwiseProduct(mirror)).norm();
   const Complex phase_centre = std::polar(1.0, -wavenumber_ * r_centre);
+  // Far pairs: the normalized correction from one lookup at the centres and its slopes (the
+  // first-order Taylor expansion in rho and zeta), in place of one lookup per pair of points.
+  std::array<Complex, 4> n_centre{}, n_rho{}, n_zeta{};
+  double rho_centre = 0.0, zeta_centre = 0.0;
+  bool taylor = false;
+  if (far_expansion_ && expandable_ground_ && points == 2 &&
+      longest * (1.0 / gap + 1.0 / table_->distance_scale_m()) <= kExpansionSpan) {
+    rho_centre = (centre_a - centre_b).head<2>().norm();
+    zeta_centre = centre_a.z() + centre_b.z();
+    taylor = table_->NormalizedSlopes(rho_centre, zeta_centre, parts, &n_centre, &n_rho, &n_zeta);
+  }
+  auto normalized = [&](double rho, double zeta) {
+    if (!taylor) return table_->NormalizedClamped(rho, zeta, parts);
+    const double d_rho = rho - rho_centre, d_zeta = zeta - zeta_centre;
+    std::array<Complex, 4> n;
+    for (int c = 0; c < 4; ++c) n[c] = n_centre[c] + d_rho * n_rho[c] + d_zeta * n_zeta[c];
+    return n;
+  };
   HalfSpacePair out;
   for (const Node& o : obs) {
     Complex s0 = 0.0, s1 = 0.0, q0 = 0.0;
@@ -201,7 +238,7 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
       const double dx = o.p.x() - s.p.x(), dy = o.p.y() - s.p.y();
       const double rho = std::sqrt(dx * dx + dy * dy), zeta = o.p.z() + s.p.z();
       const double r = std::max(std::sqrt(rho * rho + zeta * zeta), 1e-12 * floor_m_);
-      const std::array<Complex, 4> n = table_->NormalizedClamped(rho, zeta, parts);
+      const std::array<Complex, 4> n = normalized(rho, zeta);
       const double x = wavenumber_ * (r - r_centre);
       double c = 0.0, sn = 0.0;
       if (std::abs(x) <= kShortSeriesPhaseLimit) {
@@ -218,7 +255,7 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
       // The coupling's direction factor u_obs,z (u_src . rho_hat) - u_src,z (u_obs . rho_hat),
       // rho_hat the horizontal unit vector from the source point toward the observer.
       double coupling = 0.0;
-      if (parts > 2 && rho > 0.0) {
+      if (coupled && rho > 0.0) {
         const double inv_rho = 1.0 / rho;
         coupling =
             (ua.z() * (ub.x() * dx + ub.y() * dy) - ub.z() * (ua.x() * dx + ua.y() * dy)) * inv_rho;

@@ -44,13 +44,20 @@ class HalfSpaceFill {
 
   const ground::HalfSpaceTable& table() const { return *table_; }
 
+  // Far pairs (two-point rule, some 16 segment lengths or more from the other's image, over
+  // a ground of |eps_c| <= 100) take the correction from one lookup at the centres and its
+  // slopes (on by default); off: one lookup per pair of points (checks of the expansion).
+  void UseFarExpansion(bool on) { far_expansion_ = on; }
+
  private:
   std::unique_ptr<ground::HalfSpaceTable> table_;
   double wavenumber_ = 0.0;
   double ground_wavenumber_ = 0.0;  // |k1|
   double ground_wave_decay_ = 0.0;  // |sqrt(k1^2 - k0^2)|: the ground wave's decay in height
   double exact_below_m_ = 0.0;
-  double floor_m_ = 0.0;  // heights below this count as this in the table (static limit)
+  bool far_expansion_ = true;
+  bool expandable_ground_ = true;  // |eps_c| small enough for the far pairs' expansion
+  double floor_m_ = 0.0;           // heights below this count as this in the table (static limit)
 };
 
 }  // namespace wirefield::fill

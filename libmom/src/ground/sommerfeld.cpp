@@ -277,6 +277,15 @@ std::array<Complex, 4> Normalized(const HalfSpaceCorrection& c, double r, double
   return {c.horizontal * f, c.charge * f, c.coupling * f, c.vertical * f};
 }
 
+// A mask of public parts (HalfSpaceTable::kHorizontal, ...) in values_' order (horizontal,
+// charge, coupling, vertical).
+unsigned TableMask(unsigned parts) {
+  return ((parts & HalfSpaceTable::kHorizontal) ? 1u : 0u) |
+         ((parts & HalfSpaceTable::kCharge) ? 2u : 0u) |
+         ((parts & HalfSpaceTable::kCoupling) ? 4u : 0u) |
+         ((parts & HalfSpaceTable::kVertical) ? 8u : 0u);
+}
+
 // Weights of the 4-point Lagrange interpolation on equally spaced nodes -1, 0, 1, 2 at u.
 std::array<double, 4> Lagrange(double u) {
   constexpr double kSixth = 1.0 / 6.0;
@@ -290,6 +299,21 @@ std::array<double, 4> Lagrange(const double* n, const std::array<double, 4>& sca
   const double d0 = x - n[0], d1 = x - n[1], d2 = x - n[2], d3 = x - n[3];
   return {scale[0] * d1 * d2 * d3, scale[1] * d0 * d2 * d3, scale[2] * d0 * d1 * d3,
           scale[3] * d0 * d1 * d2};
+}
+
+// Their derivatives in u.
+std::array<double, 4> LagrangeSlope(double u) {
+  constexpr double kSixth = 1.0 / 6.0;
+  const double u2 = 3.0 * u * u;
+  return {-kSixth * (u2 - 6.0 * u + 2.0), 0.5 * (u2 - 4.0 * u - 1.0), -0.5 * (u2 - 2.0 * u - 2.0),
+          kSixth * (u2 - 1.0)};
+}
+
+// The derivatives in x of Lagrange(n, scale, x).
+std::array<double, 4> LagrangeSlope(const double* n, const std::array<double, 4>& scale, double x) {
+  const double d0 = x - n[0], d1 = x - n[1], d2 = x - n[2], d3 = x - n[3];
+  return {scale[0] * (d2 * d3 + d1 * d3 + d1 * d2), scale[1] * (d2 * d3 + d0 * d3 + d0 * d2),
+          scale[2] * (d1 * d3 + d0 * d3 + d0 * d1), scale[3] * (d1 * d2 + d0 * d2 + d0 * d1)};
 }
 
 }  // namespace
@@ -388,6 +412,18 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   }
 }
 
+HalfSpaceTable::Cell HalfSpaceTable::Locate(double rho_m, double zeta_m, double r_m) const {
+  Cell c;
+  c.x = Map(r_m);
+  c.y = std::sqrt(zeta_m / (r_m + rho_m));
+  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
+  c.dx = x_[2] - x_[1];
+  c.dy = y_[2] - y_[1];
+  c.i = std::clamp(1 + static_cast<int>((c.x - x_[1]) / c.dx), 1, nx - 3);
+  c.j = std::clamp(1 + static_cast<int>((c.y - y_[1]) / c.dy), 1, ny - 3);
+  return c;
+}
+
 bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
   const double r = std::hypot(rho_m, zeta_m);
   return !x_.empty() && r >= r_min_ && r <= r_max_ && zeta_m >= zeta_min_ && zeta_m <= zeta_max_;
@@ -396,13 +432,13 @@ bool HalfSpaceTable::Covers(double rho_m, double zeta_m) const {
 HalfSpaceCorrection HalfSpaceTable::Correction(double rho_m, double zeta_m) const {
   if (!Covers(rho_m, zeta_m)) return ground_.Correction(rho_m, zeta_m);
   const double r = std::hypot(rho_m, zeta_m);
-  const std::array<Complex, 4> v = Interpolate<4>(rho_m, zeta_m, r);
+  const std::array<Complex, 4> v = Interpolate<15>(rho_m, zeta_m, r);
   const Complex image = std::polar(1.0 / r, -ground_.wavenumber() * r);
   return {v[0] * image, v[1] * image, v[2] * image, v[3] * image};
 }
 
 std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double zeta_m,
-                                                         int parts) const {
+                                                         unsigned parts) const {
   double rho = std::max(rho_m, 0.0);
   double zeta = std::clamp(zeta_m, zeta_min_, zeta_max_);
   double r = std::sqrt(rho * rho + zeta * zeta);
@@ -418,49 +454,165 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
     // The public order (horizontal, vertical, charge, coupling), the parts left out zero.
     const HalfSpaceCorrection c = ground_.Correction(rho, zeta);
     const Complex f = std::polar(r, ground_.wavenumber() * r);  // divides out the image
-    return {c.horizontal * f, parts >= 4 ? c.vertical * f : Complex(0.0), c.charge * f,
-            parts >= 3 ? c.coupling * f : Complex(0.0)};
+    auto part = [&](unsigned bit, Complex value) { return (parts & bit) ? value * f : Complex(); };
+    return {part(kHorizontal, c.horizontal), part(kVertical, c.vertical), part(kCharge, c.charge),
+            part(kCoupling, c.coupling)};
   }
-  switch (parts) {
+  // The mask in values_' order (horizontal, charge, coupling, vertical); the charge is always
+  // wanted in a fill, so its masks come first.
+  const unsigned mask = TableMask(parts);
+  switch (mask) {
     case 2:
       return Interpolate<2>(rho, zeta, r);
     case 3:
       return Interpolate<3>(rho, zeta, r);
+    case 6:
+      return Interpolate<6>(rho, zeta, r);
+    case 7:
+      return Interpolate<7>(rho, zeta, r);
+    case 10:
+      return Interpolate<10>(rho, zeta, r);
+    case 11:
+      return Interpolate<11>(rho, zeta, r);
+    case 14:
+      return Interpolate<14>(rho, zeta, r);
     default:
-      return Interpolate<4>(rho, zeta, r);
+      return Interpolate<15>(rho, zeta, r);
   }
 }
 
-template <int kParts>
+template <unsigned kMask>
 std::array<Complex, 4> HalfSpaceTable::Interpolate(double rho_m, double zeta_m, double r_m) const {
-  const double x = Map(r_m);
-  const double y = std::sqrt(zeta_m / (r_m + rho_m));
-  const int nx = static_cast<int>(x_.size()), ny = static_cast<int>(y_.size());
-  const double dx = x_[2] - x_[1], dy = y_[2] - y_[1];
-  const int i = std::clamp(1 + static_cast<int>((x - x_[1]) / dx), 1, nx - 3);
-  const int j = std::clamp(1 + static_cast<int>((y - y_[1]) / dy), 1, ny - 3);
+  const Cell cell = Locate(rho_m, zeta_m, r_m);
+  const double x = cell.x, y = cell.y, dx = cell.dx, dy = cell.dy;
+  const int i = cell.i, j = cell.j;
   // The x nodes are equally spaced; so are the y nodes but for the first (see the constructor).
   const std::array<double, 4> wx = Lagrange((x - x_[i]) / dx);
   const std::array<double, 4> wy =
       j > 1 ? Lagrange((y - y_[j]) / dy) : Lagrange(&y_[0], first_y_scale_, y);
-  // Along y within each of the four rows of the stencil, then across them, on the first
-  // kParts parts of the table's order (horizontal, charge, coupling, vertical) only, as real
-  // and imaginary parts in a row of doubles (a std::complex array may be read so), which the
-  // compiler keeps in vector registers.
-  constexpr int kDoubles = 2 * kParts;
+  // Along y within each of the four rows of the stencil, then across them, on the parts of
+  // kMask only (bit c: part c of values_' order), as real and imaginary parts in a row of
+  // doubles (a std::complex array may be read so), which the compiler keeps in vector
+  // registers. The parts left out stay zero.
   const double* base = reinterpret_cast<const double*>(values_.data());
   double v[8] = {};
   for (int a = 0; a < 4; ++a) {
     const double* row =
         base + std::ptrdiff_t{8} * ((i - 1 + a) * static_cast<std::ptrdiff_t>(y_.size()) + j - 1);
-    double t[kDoubles] = {};
+    double t[8] = {};
     for (int b = 0; b < 4; ++b) {
-      for (int c = 0; c < kDoubles; ++c) t[c] += wy[b] * row[8 * b + c];
+      for (int c = 0; c < 8; ++c) {
+        if ((kMask >> (c / 2)) & 1u) t[c] += wy[b] * row[8 * b + c];
+      }
     }
-    for (int c = 0; c < kDoubles; ++c) v[c] += wx[a] * t[c];
+    for (int c = 0; c < 8; ++c) {
+      if ((kMask >> (c / 2)) & 1u) v[c] += wx[a] * t[c];
+    }
   }
   // Back to the public order: horizontal, vertical, charge, coupling.
   return {Complex(v[0], v[1]), Complex(v[6], v[7]), Complex(v[2], v[3]), Complex(v[4], v[5])};
+}
+
+bool HalfSpaceTable::NormalizedSlopes(double rho_m, double zeta_m, unsigned parts,
+                                      std::array<Complex, 4>* value, std::array<Complex, 4>* d_rho,
+                                      std::array<Complex, 4>* d_zeta) const {
+  const double r = std::sqrt(rho_m * rho_m + zeta_m * zeta_m);
+  if (direct_ || x_.empty() || !(rho_m >= 0.0) || r < r_min_ || r > r_max_ || zeta_m < zeta_min_ ||
+      zeta_m > zeta_max_) {
+    return false;  // not covered (Covers) or no table
+  }
+  std::array<std::array<Complex, 4>, 2> slopes;
+  const unsigned mask = TableMask(parts);
+  switch (mask) {
+    case 2:
+      *value = InterpolateSlopes<2>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 3:
+      *value = InterpolateSlopes<3>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 6:
+      *value = InterpolateSlopes<6>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 7:
+      *value = InterpolateSlopes<7>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 10:
+      *value = InterpolateSlopes<10>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 11:
+      *value = InterpolateSlopes<11>(rho_m, zeta_m, r, &slopes);
+      break;
+    case 14:
+      *value = InterpolateSlopes<14>(rho_m, zeta_m, r, &slopes);
+      break;
+    default:
+      *value = InterpolateSlopes<15>(rho_m, zeta_m, r, &slopes);
+      break;
+  }
+  // x = ln R' + R'/R_c and y = sqrt(zeta / (R' + rho)), with dR'/drho = rho/R' and dR'/dzeta =
+  // zeta/R': dx/drho = (1/R' + 1/R_c) rho/R', dx/dzeta = (1/R' + 1/R_c) zeta/R', dy/drho =
+  // -y/(2 R'), dy/dzeta = y rho/(2 zeta R').
+  const double y = std::sqrt(zeta_m / (r + rho_m));
+  const double x_r = (1.0 / r + 1.0 / r_c_) / r;
+  const double x_rho = x_r * rho_m, x_zeta = x_r * zeta_m;
+  const double y_rho = -0.5 * y / r, y_zeta = 0.5 * y * rho_m / (zeta_m * r);
+  for (int c = 0; c < 4; ++c) {
+    (*d_rho)[c] = slopes[0][c] * x_rho + slopes[1][c] * y_rho;
+    (*d_zeta)[c] = slopes[0][c] * x_zeta + slopes[1][c] * y_zeta;
+  }
+  return true;
+}
+
+template <unsigned kMask>
+std::array<Complex, 4> HalfSpaceTable::InterpolateSlopes(
+    double rho_m, double zeta_m, double r_m, std::array<std::array<Complex, 4>, 2>* slopes) const {
+  const Cell cell = Locate(rho_m, zeta_m, r_m);
+  const double x = cell.x, y = cell.y, dx = cell.dx, dy = cell.dy;
+  const int i = cell.i, j = cell.j;
+  const double u = (x - x_[i]) / dx;
+  const std::array<double, 4> wx = Lagrange(u);
+  std::array<double, 4> sx = LagrangeSlope(u);
+  for (double& w : sx) w /= dx;
+  std::array<double, 4> wy, sy;
+  if (j > 1) {
+    const double v = (y - y_[j]) / dy;
+    wy = Lagrange(v);
+    sy = LagrangeSlope(v);
+    for (double& w : sy) w /= dy;
+  } else {
+    wy = Lagrange(&y_[0], first_y_scale_, y);
+    sy = LagrangeSlope(&y_[0], first_y_scale_, y);
+  }
+  // As Interpolate: along y (value and slope) within each row, then across the rows.
+  const double* base = reinterpret_cast<const double*>(values_.data());
+  double v[8] = {}, vx[8] = {}, vy[8] = {};
+  for (int a = 0; a < 4; ++a) {
+    const double* row =
+        base + std::ptrdiff_t{8} * ((i - 1 + a) * static_cast<std::ptrdiff_t>(y_.size()) + j - 1);
+    double t[8] = {}, ty[8] = {};
+    for (int b = 0; b < 4; ++b) {
+      for (int c = 0; c < 8; ++c) {
+        if ((kMask >> (c / 2)) & 1u) {
+          t[c] += wy[b] * row[8 * b + c];
+          ty[c] += sy[b] * row[8 * b + c];
+        }
+      }
+    }
+    for (int c = 0; c < 8; ++c) {
+      if ((kMask >> (c / 2)) & 1u) {
+        v[c] += wx[a] * t[c];
+        vx[c] += sx[a] * t[c];
+        vy[c] += wx[a] * ty[c];
+      }
+    }
+  }
+  // Back to the public order: horizontal, vertical, charge, coupling.
+  auto order = [](const double* d) -> std::array<Complex, 4> {
+    return {Complex(d[0], d[1]), Complex(d[6], d[7]), Complex(d[2], d[3]), Complex(d[4], d[5])};
+  };
+  (*slopes)[0] = order(vx);
+  (*slopes)[1] = order(vy);
+  return order(v);
 }
 
 Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,

@@ -103,26 +103,52 @@ class HalfSpaceTable {
                  TableOptions options = {});
 
   HalfSpaceCorrection Correction(double rho_m, double zeta_m) const;
+  // The parts a lookup may ask for (a bit mask; the others come back zero).
+  static constexpr unsigned kHorizontal = 1, kVertical = 2, kCharge = 4, kCoupling = 8;
+  static constexpr unsigned kAllParts = 15;
   // The four corrections divided by the image's exp(-jkR')/R' (what the table holds), at the
   // nearest point of the table's range: zeta is raised to the table's zeta_min and R' kept
   // within [r_min, r_max]. Near the source these tend to constants (the static images), so the
-  // clamp changes little there; the caller multiplies by the true image factor. parts = 2:
-  // only the horizontal and charge parts are interpolated (all that two horizontal segments
-  // need, at half the cost), 3: the coupling too (enough when one of the two is horizontal:
-  // the vertical part's weight u_obs,z u_src,z is zero), 4: all; the parts left out are zero.
-  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m, int parts = 4) const;
+  // clamp changes little there; the caller multiplies by the true image factor. Only the parts
+  // in the mask are interpolated (two horizontal segments need the horizontal and charge
+  // parts, two vertical ones the vertical and charge parts: half the cost); the parts left
+  // out are zero. The order of the result: horizontal, vertical, charge, coupling.
+  std::array<Complex, 4> NormalizedClamped(double rho_m, double zeta_m,
+                                           unsigned parts = kAllParts) const;
   bool Covers(double rho_m, double zeta_m) const;
+  // The same parts and their slopes d/drho and d/dzeta (per metre), from the same cubic
+  // interpolant, at a point the table covers without clamping (false, nothing written, where it
+  // does not or the table is direct): the first-order Taylor expansion about a pair's centres
+  // that serves its far pairs (fill/half_space.hpp).
+  bool NormalizedSlopes(double rho_m, double zeta_m, unsigned parts, std::array<Complex, 4>* value,
+                        std::array<Complex, 4>* d_rho, std::array<Complex, 4>* d_zeta) const;
   int nodes() const { return static_cast<int>(values_.size()); }
+  // R_c of the table's variable in distance, x = ln R' + R'/R_c (m): the values vary on the
+  // scale of one x step (ln 2 / nodes_per_octave), so x changes by L (1/R' + 1/R_c) over a
+  // length L at distance R'.
+  double distance_scale_m() const { return r_c_; }
   bool direct() const { return direct_; }
   const HalfSpace& ground() const { return ground_; }
 
  private:
   HalfSpace ground_{Complex(1.0, 0.0), 1.0};
   double Map(double r) const { return std::log(r) + r / r_c_; }
-  // The tabulated (normalized) values at a point inside the range, R' = r_m: the first kParts
-  // of horizontal, charge, coupling, vertical (the order of values_).
-  template <int kParts>
+  // The stencil of a point: its coordinates x, y, the steps, and the cell (nodes i-1..i+2,
+  // j-1..j+2).
+  struct Cell {
+    double x, y, dx, dy;
+    int i, j;
+  };
+  Cell Locate(double rho_m, double zeta_m, double r_m) const;
+  // The tabulated (normalized) values at a point inside the range, R' = r_m: the parts whose
+  // bits are set in kMask, bit c standing for part c of values_' order (horizontal, charge,
+  // coupling, vertical).
+  template <unsigned kMask>
   std::array<Complex, 4> Interpolate(double rho_m, double zeta_m, double r_m) const;
+  // The same with the slopes in x and y (d/dx, d/dy of the interpolant) into slopes[0], [1].
+  template <unsigned kMask>
+  std::array<Complex, 4> InterpolateSlopes(double rho_m, double zeta_m, double r_m,
+                                           std::array<std::array<Complex, 4>, 2>* slopes) const;
   double r_min_ = 0.0, r_max_ = 0.0, zeta_min_ = 0.0, zeta_max_ = INFINITY, r_c_ = 1.0;
   bool direct_ = false;
   std::vector<double> x_, y_;                   // nodes in ln R' + R'/R_c and sqrt(tan(psi/2))
