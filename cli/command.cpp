@@ -258,8 +258,8 @@ void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
 void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where) {
   command.add_flag("--no-mesh-estimate", skip,
                    fmt::format("Skip the mesh error estimate of {} (coarser solves with half and "
-                               "a quarter of the segments; docs/numerics.md), which adds about "
-                               "a third of a fill's time. Default: off (estimated).",
+                               "a quarter of the segments; their cost: docs/numerics.md). "
+                               "Default: off (estimated).",
                                where));
 }
 

@@ -172,10 +172,11 @@ class Simulation {
 // Solve(frequency_hz) with an estimate of how far each feed impedance is from the converged
 // value (docs/numerics.md, "Mesh error estimate"): the same system restricted to the triangle
 // bases of two nested coarser meshes, with every other node and every fourth node of each
-// wire (ends, feeds, loads and bends kept), which costs no new fill, two small solves and one
-// copy of the matrix. Sets mesh_estimate and each feed's mesh_error_ohm. A wire of two segments
-// or fewer keeps its count (said in the notes); when no wire can be made coarser, or a coarser
-// solve fails, mesh_estimate->feeds stays empty and its notes say why.
+// wire (ends, feeds, loads and bends kept), which costs no new fill, the two restricted
+// matrices (5/16 of the fine one's memory) and their solves. Sets mesh_estimate and each feed's
+// mesh_error_ohm. A wire of two segments or fewer keeps its count (said in the notes); when no wire
+// can be made coarser, or a coarser solve fails, mesh_estimate->feeds stays empty and its notes say
+// why.
 SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency_hz,
                                   int fill_threads = 0);
 // The same estimate for a result already solved, from the model meshed again with half and a

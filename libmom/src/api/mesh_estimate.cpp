@@ -12,9 +12,11 @@
 #include <cmath>
 #include <stdexcept>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "api/simulation_access.hpp"
+#include "core/fresh_memory.hpp"
 #include "fill/assemble.hpp"
 #include "geometry/mesh.hpp"
 #include "solve/dense.hpp"
@@ -194,41 +196,57 @@ Eigen::SparseMatrix<double> Prolongation(const geometry::Mesh& mesh,
   return p;
 }
 
+// Additions to a matrix by column: for column n, the (row m, value) pairs of Z(m, n) += value
+// in the order they are made.
+using ColumnAdditions = std::vector<std::vector<std::pair<int, Complex>>>;
+
+// P^T (A + additions) P, column by column: a few scaled columns of A (in memory order, with
+// their additions applied to a copy in the order the fine solve applies them, so the sums are
+// those of the loaded matrix to the last bit) into one work column, then the sparse sums of it.
+// No intermediate of A's size; the result's fresh memory is mapped in one go
+// (core/fresh_memory.hpp).
+Eigen::MatrixXcd Restrict(const Eigen::MatrixXcd& a, const ColumnAdditions& additions,
+                          const Eigen::SparseMatrix<double>& p) {
+  const Eigen::Index n = p.cols();
+  Eigen::MatrixXcd out(n, n);
+  core::PrepareFreshMemory(out.data(), static_cast<size_t>(out.size()) * sizeof(Complex));
+  Eigen::VectorXcd column(a.rows()), loaded(a.rows());
+  for (Eigen::Index c = 0; c < n; ++c) {
+    column.setZero();
+    for (Eigen::SparseMatrix<double>::InnerIterator it(p, c); it; ++it) {
+      const std::vector<std::pair<int, Complex>>& added = additions[static_cast<size_t>(it.row())];
+      if (added.empty()) {
+        column += it.value() * a.col(it.row());
+        continue;
+      }
+      loaded = a.col(it.row());
+      for (const auto& [m, value] : added) loaded(m) += value;
+      column += it.value() * loaded;
+    }
+    for (Eigen::Index r = 0; r < n; ++r) {
+      Complex sum = 0.0;
+      for (Eigen::SparseMatrix<double>::InnerIterator it(p, r); it; ++it) {
+        sum += it.value() * column(it.row());
+      }
+      out(r, c) = sum;
+    }
+  }
+  return out;
+}
+
 Complex PortCurrent(const geometry::Port& port, const Eigen::VectorXcd& currents) {
   Complex i = 0.0;
   for (const auto& [b, sign] : port.bases) i += sign * currents(b);
   return i;
 }
 
-// The feed impedances of the coarse Galerkin system P^T Z P.
-Level SolveRestricted(const geometry::Mesh& mesh, const Model& model, const Eigen::MatrixXcd& z,
+// The feed impedances of the coarse Galerkin system zc = P^T Z P (consumed), P^T V.
+Level SolveRestricted(const geometry::Mesh& mesh, const Model& model, Eigen::MatrixXcd zc,
                       const Eigen::VectorXcd& v, const Eigen::SparseMatrix<double>& p,
                       int segments) {
   const Eigen::SparseMatrix<Complex> pc = p.cast<Complex>();
-  // Z P column by column (each a few scaled columns of Z, in memory order), then P^T (Z P).
-  Eigen::MatrixXcd zp = Eigen::MatrixXcd::Zero(z.rows(), p.cols());
-  for (Eigen::Index c = 0; c < p.outerSize(); ++c) {
-    for (Eigen::SparseMatrix<double>::InnerIterator it(p, c); it; ++it) {
-      zp.col(c) += it.value() * z.col(it.row());
-    }
-  }
-  Eigen::MatrixXcd zc(p.cols(), p.cols());
-  Eigen::VectorXcd vc(p.cols());
-  for (Eigen::Index r = 0; r < p.outerSize(); ++r) {
-    for (Eigen::Index c = 0; c < p.cols(); ++c) {
-      Complex sum = 0.0;
-      for (Eigen::SparseMatrix<double>::InnerIterator it(p, r); it; ++it) {
-        sum += it.value() * zp(it.row(), c);
-      }
-      zc(r, c) = sum;
-    }
-    Complex sum = 0.0;
-    for (Eigen::SparseMatrix<double>::InnerIterator it(p, r); it; ++it) {
-      sum += it.value() * v(it.row());
-    }
-    vc(r) = sum;
-  }
-  const solve::DenseSolution sol = solve::SolveDense(zc, vc);
+  const Eigen::VectorXcd vc = pc.transpose() * v;
+  const solve::DenseSolution sol = solve::SolveDense(std::move(zc), vc);
   const Eigen::VectorXcd fine = pc * sol.currents;
   Level level;
   level.segments = segments;
@@ -281,34 +299,66 @@ void NoteUnhalved(const std::string& wire, int segments, std::vector<std::string
                   wire, segments, segments == 1 ? "" : "s"));
 }
 
-// Nested levels from the fine system z (loads and loss included) and v; false when the mesh's
-// bases are not laid out as the mesher lays them (then the model is meshed again).
-bool NestedLevels(const Simulation& simulation, const Eigen::MatrixXcd& z,
-                  const Eigen::VectorXcd& v, Levels* out) {
+// The nested coarser systems, restricted from the fine matrix before its solve consumes it.
+struct NestedSystems {
+  bool nested = false;  // false: the mesh's bases are not laid out as the mesher lays them
+  Levels levels;        // any_halved and notes; the impedances come from SolveNested
+  int half_segments = 0, quarter_segments = 0;
+  Eigen::SparseMatrix<double> p_half, p_quarter;  // fine bases from half / quarter bases
+  Eigen::MatrixXcd z_half, z_quarter;             // P^T (Z + loads + loss) P
+};
+
+// The nested systems from the fine matrix z before its loads and wire loss are added (they are
+// applied column by column as the restriction reads them): no copy of the fine matrix.
+NestedSystems RestrictNested(const Simulation& simulation, const Eigen::MatrixXcd& z,
+                             double frequency_hz) {
+  NestedSystems out;
   const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
   const std::vector<WireNodes> wires = FineWires(mesh);
-  if (wires.empty()) return false;
+  if (wires.empty()) return out;
+  out.nested = true;
   std::vector<std::vector<int>> half(wires.size()), quarter(wires.size());
-  int fine_segments = 0, half_segments = 0, quarter_segments = 0;
+  int fine_segments = 0;
   for (size_t w = 0; w < wires.size(); ++w) {
     std::vector<int> all(static_cast<size_t>(wires[w].segments) + 1);
     for (size_t k = 0; k < all.size(); ++k) all[k] = static_cast<int>(k);
     half[w] = EveryOther(wires[w], all);
     quarter[w] = EveryOther(wires[w], half[w]);
     fine_segments += wires[w].segments;
-    half_segments += static_cast<int>(half[w].size()) - 1;
-    quarter_segments += static_cast<int>(quarter[w].size()) - 1;
+    out.half_segments += static_cast<int>(half[w].size()) - 1;
+    out.quarter_segments += static_cast<int>(quarter[w].size()) - 1;
     if (static_cast<int>(half[w].size()) - 1 == wires[w].segments) {
-      NoteUnhalved(mesh.wires[w].name, wires[w].segments, &out->notes);
+      NoteUnhalved(mesh.wires[w].name, wires[w].segments, &out.levels.notes);
     }
   }
-  out->any_halved = half_segments < fine_segments;
-  if (!out->any_halved) return true;
+  out.levels.any_halved = out.half_segments < fine_segments;
+  if (!out.levels.any_halved) return out;
   const Model& model = simulation.model();
-  out->half = SolveRestricted(mesh, model, z, v, Prolongation(mesh, wires, half), half_segments);
-  out->quarter =
-      SolveRestricted(mesh, model, z, v, Prolongation(mesh, wires, quarter), quarter_segments);
-  return true;
+  out.p_half = Prolongation(mesh, wires, half);
+  out.p_quarter = Prolongation(mesh, wires, quarter);
+  ColumnAdditions additions(static_cast<size_t>(z.cols()));
+  const fill::MatrixAddition add = [&](int m, int n, Complex value) {
+    additions[static_cast<size_t>(n)].emplace_back(m, value);
+  };
+  fill::AddLoads(mesh, model, frequency_hz, add);
+  fill::AddConductorLoss(mesh, model, frequency_hz, add);
+  out.z_half = Restrict(z, additions, out.p_half);
+  out.z_quarter = Restrict(z, additions, out.p_quarter);
+  return out;
+}
+
+// The nested levels' feed impedances (their matrices consumed).
+Levels SolveNested(const Simulation& simulation, NestedSystems* systems) {
+  Levels out = std::move(systems->levels);
+  if (!out.any_halved) return out;
+  const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
+  const Model& model = simulation.model();
+  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
+  out.half = SolveRestricted(mesh, model, std::move(systems->z_half), v, systems->p_half,
+                             systems->half_segments);
+  out.quarter = SolveRestricted(mesh, model, std::move(systems->z_quarter), v, systems->p_quarter,
+                                systems->quarter_segments);
+  return out;
 }
 
 // The levels from the model meshed again with fewer segments (and filled anew).
@@ -328,14 +378,17 @@ Levels RemeshedLevels(const Simulation& simulation, double frequency_hz, int fil
 }
 
 // The estimate of `result` from its coarser levels (a thrown level: no estimate, said why).
+// prior_s: time spent on the estimate before (added to its reported time).
 template <typename MakeLevels>
-void Estimate(const Simulation& simulation, SolveResult* result, MakeLevels make_levels) {
+void Estimate(const Simulation& simulation, SolveResult* result, MakeLevels make_levels,
+              double prior_s = 0.0) {
   const auto t0 = std::chrono::steady_clock::now();
   const Model& model = simulation.model();
   MeshEstimate estimate;
   estimate.segments = result->segments;
   const auto finish = [&] {
-    estimate.time_s = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    estimate.time_s =
+        prior_s + std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
     result->mesh_estimate = std::move(estimate);
   };
   Levels levels;
@@ -391,7 +444,8 @@ void Estimate(const Simulation& simulation, SolveResult* result, MakeLevels make
   finish();
 }
 
-// A fine matrix kept for the nested levels at most this large (one more copy of it).
+// The nested levels are restricted from a fine matrix at most this large (they keep about
+// 5/16 of its memory more); above, the model is meshed again.
 constexpr double kMaxKeptMatrixBytes = 2.0 * 1024 * 1024 * 1024;
 
 }  // namespace
@@ -416,18 +470,19 @@ SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency
       fill::AssembleImpedance(mesh, frequency_hz, SimulationAccess::NearField(simulation), threads);
   const double fill_time_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
-  Eigen::MatrixXcd system = z;
+  const auto t1 = std::chrono::steady_clock::now();
+  NestedSystems nested = RestrictNested(simulation, z, frequency_hz);
+  const double restrict_s =
+      std::chrono::duration<double>(std::chrono::steady_clock::now() - t1).count();
   SolveResult result =
       SimulationAccess::SolveFilled(simulation, frequency_hz, std::move(z), fill_time_s);
-  Estimate(simulation, &result, [&] {
-    const Model& model = simulation.model();
-    fill::AddLoads(mesh, model, frequency_hz, &system);
-    fill::AddConductorLoss(mesh, model, frequency_hz, &system);
-    const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
-    Levels levels;
-    if (NestedLevels(simulation, system, v, &levels)) return levels;
-    return RemeshedLevels(simulation, frequency_hz, fill_threads);
-  });
+  Estimate(
+      simulation, &result,
+      [&] {
+        if (nested.nested) return SolveNested(simulation, &nested);
+        return RemeshedLevels(simulation, frequency_hz, fill_threads);
+      },
+      restrict_s);
   return result;
 }
 

@@ -423,18 +423,29 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
 
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
               Eigen::MatrixXcd* z) {
+  AddLoads(mesh, model, frequency_hz, [z](int m, int n, Complex value) { (*z)(m, n) += value; });
+}
+
+void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+              const MatrixAddition& add) {
   for (size_t l = 0; l < model.loads.size(); ++l) {
     bool open = false;
     const Complex zl = LoadImpedance(model.loads[l], frequency_hz, &open);
     const geometry::Port& port = mesh.load_ports[l];
     for (const auto& [bm, sm] : port.bases) {
-      for (const auto& [bn, sn] : port.bases) (*z)(bm, bn) += sm * sn * zl;
+      for (const auto& [bn, sn] : port.bases) add(bm, bn, sm * sn * zl);
     }
   }
 }
 
 void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
                       Eigen::MatrixXcd* z) {
+  AddConductorLoss(mesh, model, frequency_hz,
+                   [z](int m, int n, Complex value) { (*z)(m, n) += value; });
+}
+
+void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+                      const MatrixAddition& add) {
   std::vector<std::vector<PieceRef>> on_segment(mesh.segments.size());
   for (size_t b = 0; b < mesh.bases.size(); ++b) {
     const geometry::Basis& basis = mesh.bases[b];
@@ -456,7 +467,7 @@ void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double fre
         const double overlap = pm.alpha * pn.alpha +
                                0.5 * (pm.alpha * pn.beta + pm.beta * pn.alpha) +
                                pm.beta * pn.beta / 3.0;
-        (*z)(pm.basis, pn.basis) += zs * overlap;
+        add(pm.basis, pn.basis, zs * overlap);
       }
     }
   }

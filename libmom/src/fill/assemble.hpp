@@ -5,6 +5,7 @@
 
 #include <Eigen/Dense>
 #include <complex>
+#include <functional>
 #include <vector>
 
 #include "fill/kernel.hpp"
@@ -54,14 +55,23 @@ struct ImpedanceParts {
 ImpedanceParts AssembleImpedanceParts(const geometry::Mesh& mesh, double frequency_hz,
                                       const NearFieldCache& cache, int fill_threads = 1);
 
+// Receives one addition Z(m, n) += value (a few per load port and per lossy segment).
+using MatrixAddition = std::function<void(int m, int n, Complex value)>;
+
 // Adds the loads of `model` to Z at their ports.
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
               Eigen::MatrixXcd* z);
+// The same additions, handed to `add` one by one (for a matrix held in another form).
+void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+              const MatrixAddition& add);
 
 // Adds the skin-effect impedance of lossy wires (Model::wires[].conductivity_s_per_m) as a
 // distributed series impedance: Z_mn += Z' int f_m . f_n dl over each segment.
 void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
                       Eigen::MatrixXcd* z);
+// The same additions, handed to `add` one by one.
+void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
+                      const MatrixAddition& add);
 
 // The delta-gap excitation of every feed.
 Eigen::VectorXcd AssembleExcitation(const geometry::Mesh& mesh, const Model& model);
