@@ -12,7 +12,6 @@
 #include <filesystem>
 #include <map>
 #include <nlohmann/json.hpp>
-#include <regex>
 #include <set>
 #include <string>
 #include <utility>
@@ -166,23 +165,56 @@ void ExpectCleanLayout(const std::vector<Picture>& list) {
   }
 }
 
-// The stroke colours of the elements of `svg` whose class attribute is `css_class`.
+// The opening tags (from '<' to '>') of the elements of `svg` whose first attribute is
+// class="css_class". Plain string search: std::regex recurses once per character matched and
+// overflows the stack on a picture this long under the address sanitizer.
+std::vector<std::string> TagsOfClass(const std::string& svg, const std::string& css_class) {
+  std::vector<std::string> tags;
+  const std::string needle = " class=\"" + css_class + "\"";
+  for (size_t at = svg.find(needle); at != std::string::npos; at = svg.find(needle, at + 1)) {
+    const size_t open = svg.rfind('<', at);
+    const size_t close = svg.find('>', at);
+    if (open == std::string::npos || close == std::string::npos) continue;
+    const std::string name = svg.substr(open + 1, at - open - 1);
+    if (name.empty() || name.find_first_not_of("abcdefghijklmnopqrstuvwxyz") != std::string::npos) {
+      continue;
+    }
+    tags.push_back(svg.substr(open, close - open + 1));
+  }
+  return tags;
+}
+
+// The value of attribute `name` in `tag`, or "" when it has none.
+std::string AttributeInTag(const std::string& tag, const std::string& name) {
+  const std::string key = " " + name + "=\"";
+  const size_t at = tag.find(key);
+  if (at == std::string::npos) return "";
+  const size_t start = at + key.size();
+  const size_t end = tag.find('"', start);
+  return end == std::string::npos ? "" : tag.substr(start, end - start);
+}
+
+// The stroke colours (#rrggbb) of the elements of `svg` whose class attribute is `css_class`.
 std::vector<std::string> StrokesOf(const std::string& svg, const std::string& css_class) {
   std::vector<std::string> strokes;
-  const std::regex element("<[a-z]+ class=\"" + css_class + "\"[^>]* stroke=\"(#[0-9a-f]{6})\"");
-  for (auto it = std::sregex_iterator(svg.begin(), svg.end(), element);
-       it != std::sregex_iterator(); ++it) {
-    strokes.push_back((*it)[1].str());
+  for (const std::string& tag : TagsOfClass(svg, css_class)) {
+    const std::string stroke = AttributeInTag(tag, "stroke");
+    if (stroke.size() == 7 && stroke[0] == '#' &&
+        stroke.find_first_not_of("0123456789abcdef", 1) == std::string::npos) {
+      strokes.push_back(stroke);
+    }
   }
   return strokes;
 }
 
-// The value of attribute `name` in the first element of class `css_class`.
+// The value of attribute `name` in the first element of class `css_class` that has it.
 std::string AttributeOf(const std::string& svg, const std::string& css_class,
                         const std::string& name) {
-  std::smatch match;
-  const std::regex element("<[a-z]+ class=\"" + css_class + "\"[^>]* " + name + "=\"([^\"]*)\"");
-  return std::regex_search(svg, match, element) ? match[1].str() : "";
+  for (const std::string& tag : TagsOfClass(svg, css_class)) {
+    const std::string value = AttributeInTag(tag, name);
+    if (!value.empty()) return value;
+  }
+  return "";
 }
 
 TEST(SvgLayout, SweepPicturesKeepEveryTextInsideAndApart) {
