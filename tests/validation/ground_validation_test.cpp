@@ -147,6 +147,36 @@ TEST(RealGroundFarField, HorizonIsANullOverAnyFiniteGround) {
   }
 }
 
+TEST(RealGround, AGroundEqualToFreeSpaceGivesTheFreeSpaceAntennaAtEveryElevation) {
+  // eps_r = 1, sigma = 0 is no interface: the Fresnel coefficients vanish at every angle
+  // (standard texts, REFERENCES.md §2.2), so the feed impedance and the gain in every
+  // direction above the ground must be the free-space ones, the horizon included (where the
+  // coefficients once came out +1 and the gain 6 dB too high). A horizontal dipole at 0.3
+  // wavelength, both ground methods.
+  Model free_model = HorizontalDipole(0.5, 1e-4, 21, 0.3);
+  const Solved free_space = SolveModel(free_model);
+  for (const GroundMethod method : {GroundMethod::kReflection, GroundMethod::kExact}) {
+    Model m = free_model;
+    m.ground = Real(1.0, 0.0);
+    m.ground.method = method;
+    const Solved s = SolveModel(m);
+    const Complex z_free = free_space.result.feeds.at(0).impedance_ohm;
+    // The exact half-space evaluates its integrals numerically: 1e-6 of |Z| is their accuracy
+    // here; the reflection approximation multiplies the image by zero.
+    EXPECT_NEAR(std::abs(s.result.feeds.at(0).impedance_ohm - z_free), 0.0, 1e-6 * std::abs(z_free))
+        << "method " << static_cast<int>(method);
+    for (double el = 0.0; el <= 90.0; el += 1.0) {
+      for (const double az : {0.0, 30.0, 90.0}) {
+        const double free_dbi = FarField(free_space.sim, free_space.result, el, az).gain_dbi;
+        const double got_dbi = FarField(s.sim, s.result, el, az).gain_dbi;
+        // 1e-4 dB: the impedance agrees to 1e-6, so the currents and the gain do too.
+        EXPECT_NEAR(got_dbi, free_dbi, 1e-4)
+            << "elevation " << el << " azimuth " << az << " method " << static_cast<int>(method);
+      }
+    }
+  }
+}
+
 TEST(RealGround, VerticalOverMediumDryLosesGainAndLiftsItsTakeOffAngle) {
   // Over land, below the pseudo-Brewster angle the reflected wave nearly cancels the direct
   // one, so a vertical's maximum gain falls and its take-off angle rises above the horizon,

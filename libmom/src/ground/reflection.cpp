@@ -9,10 +9,17 @@
 namespace wirefield::ground {
 namespace {
 
+// sqrt(eps_c - cos^2 psi), written as sqrt((eps_c - 1) + sin^2 psi): near grazing incidence
+// 1 - cos^2 psi cancels to 0 (cos psi rounds to 1 below psi ~ 1e-8), which made the root 0
+// against sin psi > 0 and both coefficients +1 over a ground equal to free space.
 Complex Root(Complex eps_c, double psi_rad) {
-  const double c = std::cos(psi_rad);
-  return std::sqrt(eps_c - c * c);  // principal branch: Re >= 0
+  const double s = std::sin(psi_rad);
+  return std::sqrt((eps_c - 1.0) + s * s);  // principal branch: Re >= 0
 }
+
+// A ground whose permittivity is that of free space is no interface: nothing reflects at any
+// angle, grazing included, where the formulas below are 0 / 0.
+bool IsFreeSpace(Complex eps_c) { return eps_c == Complex(1.0, 0.0); }
 
 }  // namespace
 
@@ -23,12 +30,14 @@ Complex ComplexPermittivity(double relative_permittivity, double conductivity_s_
 }
 
 Complex FresnelHorizontal(Complex eps_c, double psi_rad) {
+  if (IsFreeSpace(eps_c)) return 0.0;
   const double s = std::sin(psi_rad);
   const Complex root = Root(eps_c, psi_rad);
   return (s - root) / (s + root);
 }
 
 Complex FresnelVertical(Complex eps_c, double psi_rad) {
+  if (IsFreeSpace(eps_c)) return 0.0;
   const double s = std::sin(psi_rad);
   const Complex root = Root(eps_c, psi_rad);
   return (eps_c * s - root) / (eps_c * s + root);

@@ -34,6 +34,32 @@ TEST(Fresnel, GrazingIncidenceGivesMinusOneForBothPolarizations) {
   }
 }
 
+TEST(Fresnel, AGroundEqualToFreeSpaceReflectsNothingAtAnyAngle) {
+  // eps_c = 1: there is no interface, and both coefficients vanish at every angle, grazing
+  // included (Fresnel equations with n = 1: the numerators vanish identically; standard texts,
+  // REFERENCES.md §2.2). Zero is exact: the numerators cancel term by term. Near grazing
+  // incidence cos^2 psi rounds to 1, which once made both coefficients +1.
+  const Complex eps = ComplexPermittivity(1.0, 0.0, 14.2e6);
+  for (double psi_deg = 0.0; psi_deg <= 90.0; psi_deg += 0.25) {
+    EXPECT_EQ(FresnelHorizontal(eps, psi_deg * kDeg), Complex(0.0)) << psi_deg << " deg";
+    EXPECT_EQ(FresnelVertical(eps, psi_deg * kDeg), Complex(0.0)) << psi_deg << " deg";
+  }
+  for (const double psi_rad : {1e-300, 1e-17, 6.123e-17, 1e-9, 1e-6}) {
+    EXPECT_EQ(FresnelHorizontal(eps, psi_rad), Complex(0.0)) << psi_rad << " rad";
+    EXPECT_EQ(FresnelVertical(eps, psi_rad), Complex(0.0)) << psi_rad << " rad";
+  }
+}
+
+TEST(Fresnel, ANearlyFreeGroundStillReflectsFullyAtGrazingIncidence) {
+  // For any eps_c != 1 both coefficients tend to -1 as psi -> 0 (standard texts,
+  // REFERENCES.md §2.2): the limit eps_c -> 1 is not uniform in the angle, so only eps_c = 1
+  // itself reflects nothing. 1e-6 away from 1, the coefficient at 1e-9 rad is -1 to 1e-5
+  // (1 - Gamma ~ 2 psi / sqrt(eps_c - 1)).
+  const Complex eps(1.0 + 1e-6, 0.0);
+  EXPECT_NEAR(std::abs(FresnelHorizontal(eps, 1e-9) + 1.0), 0.0, 1e-5);
+  EXPECT_NEAR(std::abs(FresnelVertical(eps, 1e-9) + 1.0), 0.0, 1e-5);
+}
+
 TEST(Fresnel, NormalIncidenceMatchesTheClosedForm) {
   // At normal incidence Gamma = (1 - n) / (1 + n) for E parallel to the ground, n = sqrt(eps);
   // for eps = 4 that is -1/3, and the in-plane (vertical) coefficient is its negative in the
