@@ -394,6 +394,16 @@ std::vector<MalformedCase> Cases() {
        kUnits + "wire dip from (-5, 0, 10) to (5, 0, -0.5) radius 1mm\n" + kFeed + kFrequency +
            "ground real preset=average\n",
        2, 30, "not buried radials or wires in the soil"},
+      // The same over a perfect ground, which once only warned and then solved or not depending
+      // on the frequency.
+      {"bent_wire_into_perfect_ground",
+       kUnits + "wire dip through (0, 0, 10), (5, 0, 10), (5, 0, -1) radius 1mm\n" + kFeed +
+           kFrequency + "ground perfect\n",
+       2, 42, "goes below the perfect ground (z = -1 m)"},
+      {"wire_lying_on_perfect_ground",
+       kUnits + "wire dip from (-5, 0, 0) to (5, 0, 0) radius 1mm\n" + kFeed + kFrequency +
+           "ground perfect\n",
+       2, 1, "lies on the perfect ground"},
   };
 }
 

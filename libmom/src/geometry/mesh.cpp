@@ -1,6 +1,7 @@
 // Geometry stage: the mesher. Model -> Mesh (segments, triangle bases, feed and load ports),
 // plus the geometry diagnostics: errors for feeds or loads at free ends and for models too
-// large for memory, warnings for short or long segments, crossings and ground clearance.
+// large for memory, for wires below or on the ground, warnings for short or long segments,
+// crossings and the clearance above a real ground.
 #include "geometry/mesh.hpp"
 
 #include <fmt/format.h>
@@ -588,39 +589,31 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
             (!from_on && !to_on && std::min(corners[i].z(), corners[i + 1].z()) < spec.radius_m);
       }
       const bool real = model.ground.kind == GroundKind::kReal;
-      if (real && (zmin < -join_tol_m || too_close)) {
-        // Over a real ground a wire in or on the soil would be computed wrongly (the fill
-        // assumes both ends of every pair in the air): refuse it.
+      if (zmin < -join_tol_m || too_close) {
+        // A wire in or on the ground would be computed wrongly (the fill assumes both ends of
+        // every pair in the air, and the image of a wire lying on a perfect ground cancels it,
+        // leaving a singular matrix): refuse it over either kind of ground.
         // Below the ground: at the lowest point as written, when the model wrote it.
         const SourceLocation& where = zmin < -join_tol_m && lowest < spec.point_locations.size()
                                           ? spec.point_locations[lowest]
                                           : spec.location;
+        const char* ground_name = real ? "real ground" : "perfect ground";
         throw InputError(
             where,
             zmin < -join_tol_m
-                ? fmt::format("wire '{}' goes below the real ground (z = {:.3g} m): wirefield "
-                              "models wires in the air above z = 0 only, not buried radials or "
-                              "wires in the soil; raise the wire above the ground",
-                              spec.name, zmin)
-                : fmt::format("wire '{}' lies on the real ground or runs closer to it than its "
+                ? fmt::format("wire '{}' goes below the {} (z = {:.3g} m): wirefield "
+                              "models wires in the air above z = 0 only, {}; raise the wire "
+                              "above the ground",
+                              spec.name, ground_name, zmin,
+                              real ? "not buried radials or wires in the soil"
+                                   : "not wires through the ground plane")
+                : fmt::format("wire '{}' lies on the {} or runs closer to it than its "
                               "radius ({:.3g} m): wirefield models wires in the air only, not "
-                              "wires on the soil; raise it by at least its radius (a wire end "
+                              "wires on the ground; raise it by at least its radius (a wire end "
                               "may touch the ground: that is a ground connection)",
-                              spec.name, spec.radius_m));
+                              spec.name, ground_name, spec.radius_m));
       }
-      if (zmin < -join_tol_m) {
-        mesh.warnings.push_back(
-            {lowest < spec.point_locations.size() ? spec.point_locations[lowest] : spec.location,
-             fmt::format("wire '{}' goes below the ground (z = {:.3g} m): the ground is the "
-                         "plane z = 0 and the solver assumes wires above it; raise the wire",
-                         spec.name, zmin)});
-      } else if (too_close) {
-        mesh.warnings.push_back(
-            {spec.location,
-             fmt::format("wire '{}' runs closer to the ground than its radius ({:.3g} m): "
-                         "the thin-wire model does not hold there; raise it",
-                         spec.name, spec.radius_m)});
-      } else if (real) {
+      if (real) {
         const double exact_m = model.ground.method == GroundMethod::kExact
                                    ? model.ground.exact_below_m.value_or(INFINITY)
                                    : 0.0;

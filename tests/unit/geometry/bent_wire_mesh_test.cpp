@@ -228,11 +228,11 @@ TEST(BentWireWarning, ShortSegmentsOnAShortLegAreFlagged) {
   EXPECT_TRUE(Warns(mesh, "less than 4 radii"));
 }
 
-TEST(BentWireWarning, ABendDownToThePerfectGroundIsFlagged) {
-  const Mesh mesh = MeshOf(
-      "wire kit through (0, 0, 5), (5, 0, 0), (10, 0, 5) radius 1mm segments 20\n"
-      "feed src at kit@25%\nground perfect\n");
-  EXPECT_TRUE(Warns(mesh, "closer to the ground than its radius"));
+TEST(BentWireError, ABendDownToThePerfectGroundIsRefused) {
+  // A bend is not a wire end: touching the ground there is a wire on the ground.
+  EXPECT_THROW(MeshOf("wire kit through (0, 0, 5), (5, 0, 0), (10, 0, 5) radius 1mm segments 20\n"
+                      "feed src at kit@25%\nground perfect\n"),
+               InputError);
 }
 
 }  // namespace

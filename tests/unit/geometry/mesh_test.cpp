@@ -146,19 +146,51 @@ TEST(GeometryWarning, WiresCrossingWithoutAJointAreFlagged) {
   EXPECT_TRUE(Warns(BuildMesh(m, Options()), "cross or touch"));
 }
 
-TEST(GeometryWarning, WireBelowTheGroundIsFlagged) {
-  Model m = OneWire(10, PointKind::kPercent, 50.0);
-  m.wires[0].to_m = {10, 0, -1};
-  m.ground.kind = GroundKind::kPerfect;
-  EXPECT_TRUE(Warns(BuildMesh(m, Options()), "below the ground"));
+// The text of the InputError that meshing the model throws, or "" when it meshes.
+std::string MeshError(const Model& m, const MeshOptions& o = Options()) {
+  try {
+    BuildMesh(m, o);
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "";
 }
 
-TEST(GeometryWarning, WireCloserToTheGroundThanItsRadiusIsFlagged) {
+TEST(GeometryError, WireThroughThePerfectGroundIsRefusedAtItsLowestPoint) {
+  // Once a warning, after which the solve failed or not depending on the frequency.
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].to_m = {10, 0, -1};
+  m.wires[0].location = {"t.wire", 2, 1};
+  m.ground.kind = GroundKind::kPerfect;
+  EXPECT_EQ(MeshError(m),
+            "t.wire:2:1: error: wire 'w' goes below the perfect ground (z = -1 m): wirefield "
+            "models wires in the air above z = 0 only, not wires through the ground plane; raise "
+            "the wire above the ground");
+}
+
+TEST(GeometryError, WireLyingOnThePerfectGroundIsRefused) {
+  // Once a warning, after which the solve failed with a singular matrix.
   Model m = OneWire(10, PointKind::kPercent, 50.0);
   m.wires[0].from_m = {0, 0, 0.0005};
   m.wires[0].to_m = {10, 0, 0.0005};
   m.ground.kind = GroundKind::kPerfect;
-  EXPECT_TRUE(Warns(BuildMesh(m, Options()), "closer to the ground than its radius"));
+  EXPECT_NE(MeshError(m).find("wire 'w' lies on the perfect ground or runs closer to it than its "
+                              "radius (0.001 m)"),
+            std::string::npos)
+      << MeshError(m);
+  m.wires[0].from_m = {0, 0, 0};  // both ends on the ground: the wire lies on it
+  m.wires[0].to_m = {10, 0, 0};
+  EXPECT_NE(MeshError(m).find("lies on the perfect ground"), std::string::npos) << MeshError(m);
+}
+
+TEST(GeometryError, AVerticalStandingOnThePerfectGroundIsLegal) {
+  // A wire end at z = 0 is a ground connection, not a wire on the ground.
+  Model m;
+  m.file = "t.wire";
+  m.wires.push_back(Wire("mast", {0, 0, 0}, {0, 0, 5}, 1e-3, 5));
+  m.feeds.push_back(Feed("base", "mast", PointKind::kStart, 0.0));
+  m.ground.kind = GroundKind::kPerfect;
+  EXPECT_EQ(MeshError(m), "");
 }
 
 TEST(GeometryWarning, CleanModelHasNoWarnings) {
