@@ -400,6 +400,10 @@ std::vector<MalformedCase> Cases() {
        kUnits + "wire dip through (0, 0, 10), (5, 0, 10), (5, 0, -1) radius 1mm\n" + kFeed +
            kFrequency + "ground perfect\n",
        2, 42, "goes below the perfect ground (z = -1 m)"},
+      // Collinear wires that overlap: at the later wire, both named.
+      {"wires_overlapping_along_their_length",
+       kHead + "wire tail from (2, 0, 10) to (8, 0, 10) radius 1mm\n" + kFeed + kFrequency, 3, 1,
+       "wires 'dip' and 'tail' overlap along 3 m"},
       {"wire_lying_on_perfect_ground",
        kUnits + "wire dip from (-5, 0, 0) to (5, 0, 0) radius 1mm\n" + kFeed + kFrequency +
            "ground perfect\n",

@@ -166,6 +166,28 @@ double SegmentDistance(const Vec3& p0, const Vec3& p1, const Vec3& q0, const Vec
 
 namespace {
 
+// The stretch over which two straight legs run along each other closer than `reach` (the sum
+// of their radii): the part of one leg covered by the projection of the other, when both ends
+// of the other lie within `reach` of its line. 0 for legs that cross, meet at an angle or only
+// touch end to end. from and to: the ends of the stretch.
+double OverlapLength(const Vec3& p0, const Vec3& p1, const Vec3& q0, const Vec3& q1, double reach,
+                     Vec3* from, Vec3* to) {
+  auto along = [&](const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1) {
+    const double length = (a1 - a0).norm();
+    const Vec3 u = (a1 - a0) / length;
+    auto off_line = [&](const Vec3& x) { return ((x - a0) - (x - a0).dot(u) * u).norm(); };
+    if (off_line(b0) > reach || off_line(b1) > reach) return 0.0;
+    const double t0 = (b0 - a0).dot(u), t1 = (b1 - a0).dot(u);
+    const double lo = std::max(0.0, std::min(t0, t1)), hi = std::min(length, std::max(t0, t1));
+    if (hi <= lo) return 0.0;
+    *from = a0 + lo * u;
+    *to = a0 + hi * u;
+    return hi - lo;
+  };
+  const double on_p = along(p0, p1, q0, q1);
+  return on_p > 0.0 ? on_p : along(q0, q1, p0, p1);
+}
+
 // Below this height in wavelengths the reflection-coefficient approximation of a real ground
 // errs by more than a few percent in the self-interaction of a wire (docs/numerics.md).
 constexpr double kRealGroundWarnHeightWavelengths = 0.2;
@@ -537,6 +559,29 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
     for (size_t j = i + 1; j < legs.size(); ++j) {
       const Leg& p = legs[i];
       const Leg& q = legs[j];
+      // Legs that run along each other are two conductors in one place, whether or not they
+      // share an end (a wire that folds back on itself, or on the wire it joins): refuse them,
+      // at the later wire. Touching end to end is a joint and legal.
+      const double reach = model.wires[p.wire].radius_m + model.wires[q.wire].radius_m;
+      Vec3 lap_from, lap_to;
+      const double lap_m = OverlapLength(p.from, p.to, q.from, q.to, reach, &lap_from, &lap_to);
+      if (lap_m > std::max(reach, join_tol_m)) {
+        const std::string& first = model.wires[p.wire].name;
+        const std::string& later = model.wires[q.wire].name;
+        throw InputError(
+            model.wires[q.wire].location,
+            fmt::format(
+                "{} along {:.3g} m, from ({:.3g}, {:.3g}, {:.3g}) to ({:.3g}, {:.3g}, "
+                "{:.3g}) m: two conductors in one place have no thin-wire solution; "
+                "{}",
+                p.wire == q.wire ? fmt::format("wire '{}' folds back onto itself", later)
+                                 : fmt::format("wires '{}' and '{}' overlap", first, later),
+                lap_m, lap_from.x(), lap_from.y(), lap_from.z(), lap_to.x(), lap_to.y(), lap_to.z(),
+                p.wire == q.wire ? "move its corners so that its legs do not run over each other"
+                                 : fmt::format("shorten '{}' so that it ends where '{}' ends (a "
+                                               "joint), or move it apart",
+                                               later, first)));
+      }
       if (p.from_id == q.from_id || p.from_id == q.to_id || p.to_id == q.from_id ||
           p.to_id == q.to_id) {
         continue;

@@ -185,6 +185,37 @@ TEST(GeometryError, WireLyingOnThePerfectGroundIsRefused) {
   EXPECT_NE(MeshError(m).find("lies on the perfect ground"), std::string::npos) << MeshError(m);
 }
 
+TEST(GeometryError, CollinearWiresThatOverlapAreRefusedAtTheLaterWire) {
+  // Once solved with only a "cross or touch" warning, to 3104 + j603 ohm at a condition
+  // number of 1e13: two conductors in one place.
+  Model m = OneWire(10, PointKind::kPercent, 50.0);  // w from (0, 0, 5) to (10, 0, 5)
+  m.wires.push_back(Wire("v", {7, 0, 5}, {13, 0, 5}, 1e-3, 6));
+  m.wires[1].location = {"t.wire", 3, 1};
+  EXPECT_EQ(MeshError(m),
+            "t.wire:3:1: error: wires 'w' and 'v' overlap along 3 m, from (7, 0, 5) to (10, 0, 5) "
+            "m: two conductors in one place have no thin-wire solution; shorten 'v' so that it "
+            "ends where 'w' ends (a joint), or move it apart");
+  // Joined at w's end and running back along it: a joint does not make it legal.
+  m.wires[1].from_m = {10, 0, 5};
+  m.wires[1].to_m = {4, 0, 5};
+  EXPECT_NE(MeshError(m).find("overlap along 6 m"), std::string::npos) << MeshError(m);
+}
+
+TEST(GeometryError, CollinearWiresThatMeetEndToEndAreLegal) {
+  // Two halves of a dipole meeting at their ends: a joint, not an overlap.
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires.push_back(Wire("v", {10, 0, 5}, {16, 0, 5}, 1e-3, 6));
+  EXPECT_EQ(MeshError(m), "");
+}
+
+TEST(GeometryError, ABentWireThatFoldsBackOnItselfIsRefused) {
+  Model m = OneWire(10, PointKind::kPercent, 50.0);
+  m.wires[0].bends_m = {{10, 0, 5}};  // from (0, 0, 5) to (10, 0, 5), then back to (6, 0, 5)
+  m.wires[0].to_m = {6, 0, 5};
+  EXPECT_NE(MeshError(m).find("wire 'w' folds back onto itself along 4 m"), std::string::npos)
+      << MeshError(m);
+}
+
 TEST(GeometryWarning, CleanModelHasNoWarnings) {
   EXPECT_TRUE(BuildMesh(OneWire(40, PointKind::kPercent, 50.0), Options()).warnings.empty());
 }
