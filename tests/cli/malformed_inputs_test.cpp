@@ -404,6 +404,11 @@ std::vector<MalformedCase> Cases() {
       {"wires_overlapping_along_their_length",
        kHead + "wire tail from (2, 0, 10) to (8, 0, 10) radius 1mm\n" + kFeed + kFrequency, 3, 1,
        "wires 'dip' and 'tail' overlap along 3 m"},
+      // Segments shorter than the radius, where the thin-wire kernel fails.
+      {"segments_shorter_than_the_radius",
+       kUnits + "wire dip from (-5, 0, 10) to (5, 0, 10) radius 5cm segments 1000\n" + kFeed +
+           kFrequency,
+       2, 1, "the shortest segment allowed is 0.05 m: give at most 200 segments"},
       {"wire_lying_on_perfect_ground",
        kUnits + "wire dip from (-5, 0, 0) to (5, 0, 0) radius 1mm\n" + kFeed + kFrequency +
            "ground perfect\n",

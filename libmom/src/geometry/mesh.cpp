@@ -25,6 +25,15 @@ constexpr double kMinSegmentRadii = 4.0;
 // Segments longer than this fraction of a wavelength under-resolve the current
 // (common practice: 0.1 wavelength is the usual upper bound for piecewise-linear bases).
 constexpr double kMaxSegmentWavelengths = 0.1;
+// Segments shorter than this many radii are refused: the reduced thin-wire kernel fails there.
+// Measured on a centre-fed 10.2 m dipole at 14.2 MHz against its value at 4 radii (docs/
+// numerics.md, "Segments short against the radius"): radius 5 cm, |dZ|/|Z| is 5.6% at one
+// radius, 10% at 0.8, 31% at 0.6, 67% at 0.5 and 100% at 0.25 (2.3e-5 - j0.046 ohm at 0.2);
+// radius 2 cm, 1.7% at one radius, 10% at 0.6, 25% at 0.5.
+constexpr double kMinSegmentOfRadius = 1.0;
+// Relative slack on that bound, so that a wire of exactly N radii in N segments passes despite
+// the rounding of length / N.
+constexpr double kSegmentBoundSlack = 1e-9;
 // Mesh nodes closer than this fraction of the shortest wire coincide.
 constexpr double kJoinRelativeTolerance = 1e-6;
 // Radii below this fraction of the wire length are not physical and would underflow the
@@ -32,6 +41,9 @@ constexpr double kJoinRelativeTolerance = 1e-6;
 constexpr double kMinRadiusOfLength = 1e-12;
 // Hard cap on unknowns whatever the memory: a dense LU of this size already takes hours.
 constexpr long long kMaxUnknowns = 40000;
+// Segment counts tried, one fewer each time, when looking for the largest count whose segments
+// are all long enough: more are needed only where feeds, loads or bends crowd one stretch.
+constexpr int kMaxRemeshTries = 64;
 
 Vec3 ToVec(const Point& p) { return Vec3(p[0], p[1], p[2]); }
 
@@ -134,6 +146,15 @@ std::vector<double> PlaceNodes(double length_m, std::vector<double> required_m,
   }
   nodes.back() = length_m;
   return nodes;
+}
+
+// The shortest interval between consecutive node positions.
+double ShortestInterval(const std::vector<double>& nodes_m) {
+  double shortest = INFINITY;
+  for (size_t k = 0; k + 1 < nodes_m.size(); ++k) {
+    shortest = std::min(shortest, nodes_m[k + 1] - nodes_m[k]);
+  }
+  return shortest;
 }
 
 }  // namespace
@@ -374,6 +395,43 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
     const WireSpec& spec = model.wires[w];
     const std::vector<double> bends(layout[w].corner_m.begin() + 1, layout[w].corner_m.end() - 1);
     layout[w].nodes_m = PlaceNodes(layout[w].length_m, required[w], bends, counts[w], join_tol_m);
+    const double shortest_allowed_m = kMinSegmentOfRadius * spec.radius_m;
+    auto long_enough = [&](const std::vector<double>& nodes_m) {
+      return ShortestInterval(nodes_m) >= shortest_allowed_m * (1.0 - kSegmentBoundSlack);
+    };
+    if (!long_enough(layout[w].nodes_m)) {
+      // Below the radius the kernel fails: refuse the model with the largest count that keeps
+      // every segment long enough. An automatic count is already capped at kMinSegmentRadii
+      // radii, and the largest-remainder shares then never cut a stretch of at least one
+      // radius below it: it comes here only where the feeds, loads or bends leave a stretch
+      // shorter than the radius, which no count mends.
+      int fewer = static_cast<int>(std::min<double>(
+          counts[w] - 1,
+          std::floor(layout[w].length_m / shortest_allowed_m * (1.0 + kSegmentBoundSlack))));
+      for (int tries = 0; fewer >= 1 && tries < kMaxRemeshTries; ++tries, --fewer) {
+        if (long_enough(PlaceNodes(layout[w].length_m, required[w], bends, fewer, join_tol_m))) {
+          break;
+        }
+      }
+      const bool found = fewer >= 1 && long_enough(PlaceNodes(layout[w].length_m, required[w],
+                                                              bends, fewer, join_tol_m));
+      const std::string what = fmt::format(
+          "wire '{}': segments as short as {:.3g} m are shorter than its radius ({:.3g} m), "
+          "where the thin-wire kernel fails (measured: 5.6% off at one radius, 67% at half of "
+          "it; docs/numerics.md)",
+          spec.name, ShortestInterval(layout[w].nodes_m), spec.radius_m);
+      if (spec.segments > 0 && found) {
+        throw InputError(spec.location,
+                         fmt::format("{}; the shortest segment allowed is {:.3g} m: give at most "
+                                     "{} segments, or leave 'segments' out",
+                                     what, shortest_allowed_m, fewer));
+      }
+      throw InputError(spec.location,
+                       fmt::format("{}; its feeds, loads and bends leave a stretch shorter than "
+                                   "that whatever the segment count: move them at least {:.3g} m "
+                                   "apart, or give a thinner wire",
+                                   what, shortest_allowed_m));
+    }
     layout[w].first_segment = static_cast<int>(mesh.segments.size());
     for (size_t k = 0; k + 1 < layout[w].nodes_m.size(); ++k) {
       Segment s;
