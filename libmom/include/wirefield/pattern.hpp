@@ -95,7 +95,13 @@ struct PowerBudget {
   // Over a real ground: the power the ground absorbs, input - radiated - loads - wires (the
   // balance cannot be checked then, and balance_error is 0). 0 otherwise.
   double ground_w = 0.0;
-  double efficiency = 0.0;     // radiated / input
+  // radiated / input, at most 1: a lossless antenna cannot radiate more than it takes in, and
+  // a ratio above 1 is the discretization's power-balance error (see efficiency_note).
+  double efficiency = 0.0;
+  double efficiency_computed = 0.0;  // radiated / input as computed, before the clamp to 1
+  // Why efficiency is not efficiency_computed: empty unless the ratio came out more than
+  // 0.005% above 1 (below that the clamp does not change the printed percentage).
+  std::string efficiency_note;
   double balance_error = 0.0;  // (radiated + loads + wires - input) / input
 };
 

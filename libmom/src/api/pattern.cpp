@@ -18,6 +18,9 @@ namespace {
 constexpr double kDeg = core::kPi / 180.0;
 // The run checks energy conservation: above this relative mismatch it warns.
 constexpr double kBalanceTolerance = 0.02;
+// An efficiency computed above 1 is always clamped to 1; the note says so once the excess
+// shows in the printed figure (two decimals of a percent).
+constexpr double kEfficiencyNoteAbove = 5e-5;
 // An azimuth cut whose gains vary less than this (dB) has no front to speak of.
 constexpr double kMinFrontContrastDb = 3.0;
 // Grid step of the search for the maximum (the cuts use the user's step).
@@ -362,7 +365,21 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   r.power.radiated_w = eval.source.RadiatedPower();
   for (const LoadResult& l : solved.loads) r.power.loads_w += l.power_w;
   r.power.wires_w = solved.wire_loss_w;
-  r.power.efficiency = r.power.radiated_w / r.power.input_w;
+  r.power.efficiency_computed = r.power.radiated_w / r.power.input_w;
+  r.power.efficiency = std::min(r.power.efficiency_computed, 1.0);
+  if (r.power.efficiency_computed > 1.0 + kEfficiencyNoteAbove) {
+    // Energy conservation (Poynting's theorem): the radiated power cannot exceed the input.
+    // Above it the far-field integral and the feed's 0.5 Re(V I*) disagree by the
+    // discretization's power-balance error (thick wires, coarse segments): say so, and report
+    // the physical bound. Beyond kBalanceTolerance the balance check below also warns.
+    r.power.efficiency_note = fmt::format(
+        "the radiated power came out {:.3g}% above the input, which no antenna can do: the "
+        "power-balance error of the discretization ({} the {:g}% tolerance); the efficiency is "
+        "shown as 100%",
+        100.0 * (r.power.efficiency_computed - 1.0),
+        r.power.efficiency_computed - 1.0 > kBalanceTolerance ? "beyond" : "within",
+        100.0 * kBalanceTolerance);
+  }
   const double accounted = r.power.radiated_w + r.power.loads_w + r.power.wires_w;
   if (simulation.model().ground.kind == GroundKind::kReal) {
     // The ground takes what is neither radiated nor dissipated in the antenna.

@@ -254,7 +254,8 @@ std::string FormatBatchText(const BatchResult& result) {
   out +=
       "\nResonances are zero crossings of the feed reactance within the sweep; gains are dBi "
       "over the\npower into the feed terminals, so ground and wire losses lower them; efficiency "
-      "is radiated\nover input power.\n";
+      "is radiated\nover input power, at most 100% (a ratio computed above 1 is the power-balance "
+      "error of\nthe mesh, which `pattern` reports; beyond 2% it is warned about).\n";
   out += report::TransmitCaution();
   return out;
 }

@@ -74,6 +74,7 @@ void CheckPattern(const PatternResult& pattern) {
   CheckNumber(pattern.power.loads_w, "power in loads");
   CheckNumber(pattern.power.wires_w, "power in wires");
   CheckNumber(pattern.power.efficiency, "efficiency");
+  CheckNumber(pattern.power.efficiency_computed, "efficiency as computed");
   CheckNumber(pattern.power.balance_error, "power balance error");
   CheckNumber(pattern.power.ground_w, "power in the ground");
 }
@@ -323,6 +324,9 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   out += budget.Render(2);
   out += fmt::format("  efficiency       {:.2f} % (radiated / into the antenna terminals)\n",
                      100.0 * power.efficiency);
+  if (!power.efficiency_note.empty()) {
+    out += fmt::format("                   note: {}\n", power.efficiency_note);
+  }
   if (real_ground) {
     out += "  ground loss      input - radiated - loads - wires (not checked independently)\n";
   } else {
@@ -372,6 +376,10 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["input_power_w"] = pattern.power.input_w;
   doc["radiated_power_w"] = pattern.power.radiated_w;
   doc["efficiency"] = pattern.power.efficiency;
+  doc["efficiency_computed"] = pattern.power.efficiency_computed;
+  doc["efficiency_note"] = pattern.power.efficiency_note.empty()
+                               ? nlohmann::json(nullptr)
+                               : nlohmann::json(pattern.power.efficiency_note);
   doc["takeoff_elevation_deg"] = pattern.takeoff_elevation_deg;
   doc["max_gain_vertical_dbi"] = report::GainValue(pattern.max_gain_vertical_dbi);
   doc["max_gain_horizontal_dbi"] = report::GainValue(pattern.max_gain_horizontal_dbi);
