@@ -29,8 +29,6 @@
 namespace wirefield::ground {
 namespace {
 
-constexpr Complex kJ(0.0, 1.0);
-
 // J0 and J1 by Boost.Math's rational approximations for orders 0 and 1 (the routines its
 // cyl_bessel_j uses inside; called directly, since the general entry point takes a path some
 // ten times slower for arguments above ~50, which the tails reach all the time).
@@ -61,20 +59,29 @@ const Rule12& Rule() {
   return rule;
 }
 
-// sqrt(k^2 - k_rho^2) on the proper sheet, Im <= 0 (decaying away from the ground).
+// sqrt(k^2 - k_rho^2) on the proper sheet, Im <= 0 (decaying away from the ground), by the
+// half-angle formulas (the library's complex square root guards against overflow of |z|^2,
+// which wavenumbers cannot reach, at the cost of a hypot: an eighth of the table's time).
 Complex Kz(Complex k2, double k_rho) {
-  Complex s = std::sqrt(k2 - k_rho * k_rho);
-  if (s.imag() > 0.0) s = -s;
-  return s;
+  const double a = k2.real() - k_rho * k_rho, b = k2.imag();
+  const double t = std::sqrt(0.5 * (std::sqrt(a * a + b * b) + std::abs(a)));
+  if (t == 0.0) return 0.0;
+  // The root with Re >= 0, then the sign that makes Im <= 0.
+  const Complex s =
+      a >= 0.0 ? Complex(t, 0.5 * b / t) : Complex(0.5 * std::abs(b) / t, std::copysign(t, b));
+  return s.imag() > 0.0 ? -s : s;
 }
 
-// One point of the path: k_rho (real), k_z0, and the Jacobians dk = dk_rho / dvar and
-// dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0.
+// One point of the path: k_rho (real), k_z0, the Jacobians dk = dk_rho / dvar and
+// dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0, and
+// E = exp(-j k_z0 zeta) (a real exponential beyond k0, where k_z0 is imaginary: the path
+// computes it without the complex exponential).
 struct PathPoint {
   double k_rho;
   Complex kz0;
   double dk;
   Complex dm;
+  Complex e;
 };
 
 template <int N>
@@ -83,7 +90,7 @@ using Values = std::array<Complex, N>;
 // The four kernels of HalfSpaceCorrection at a path point.
 struct CorrectionKernel {
   Complex eps, k1_2;
-  double rho, zeta;
+  double rho;
   Values<4> operator()(const PathPoint& p) const {
     const Complex kz0 = p.kz0;
     const Complex kz1 = Kz(k1_2, p.k_rho);
@@ -99,19 +106,16 @@ struct CorrectionKernel {
     const Complex sum_rc = (1.0 - eps) * inv;
     const double j0 = J0(p.k_rho * rho);
     const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
-    const Complex e = std::exp(-kJ * kz0 * zeta);
-    const Complex a = j0 * e * p.dm;
+    const Complex a = j0 * p.e * p.dm;
     return {a * horizontal, a * (vertical - rq), a * (horizontal + rq),
-            -j1 * e * p.dk * p.k_rho * p.k_rho * sum_rc};
+            -j1 * p.e * p.dk * p.k_rho * p.k_rho * sum_rc};
   }
 };
 
 // The Sommerfeld identity's integrand J0 E P.
 struct IdentityKernel {
-  double rho, zeta;
-  Values<1> operator()(const PathPoint& p) const {
-    return {J0(p.k_rho * rho) * std::exp(-kJ * p.kz0 * zeta) * p.dm};
-  }
+  double rho;
+  Values<1> operator()(const PathPoint& p) const { return {J0(p.k_rho * rho) * p.e * p.dm}; }
 };
 
 template <int N>
@@ -155,14 +159,23 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
         const double theta = h * (p + g.x[i]);
         const double kr = k0 * std::cos(theta);
         const double kz = k0 * std::sin(theta);
-        Accumulate<N>(&total, kernel(PathPoint{kr, kz, kz, Complex(0.0, -kr)}), h * g.w[i]);
+        Accumulate<N>(&total,
+                      kernel(PathPoint{kr, kz, kz, Complex(0.0, -kr), std::polar(1.0, -kz * zeta)}),
+                      h * g.w[i]);
       }
     }
   }
-  // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)).
+  // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)): the end of the
+  // part next to k0.
   const double k_cut = std::sqrt(k0 * k0 + std::pow(36.0 / zeta, 2));
   // [k0, min(2 k0, k_cut)]: k_rho = k0 cosh(u).
   const double k_b = std::min(2.0 * k0, k_cut);
+  // Beyond 2 k0 the kernels' factors are of order one, and the rest of the integral is about
+  // exp(-|k_z0| zeta) / zeta, in units of the image's 1/R' that is exp(-|k_z0| zeta) R'/zeta:
+  // the path ends where that falls to e^-24 (4e-11).
+  const double k_end = std::max(
+      k_b,
+      std::sqrt(k0 * k0 + std::pow((24.0 + std::log(std::hypot(rho, zeta) / zeta)) / zeta, 2)));
   const Complex k1 = k0 * std::sqrt(eps_c);
   const double k1_re = k1.real();
   // Finest panel next to the ground's branch point: its distance from the axis.
@@ -188,20 +201,24 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
         const double u = breaks[b] + h * g.x[i];
         const double kr = k0 * std::cosh(u);
         const double sh = k0 * std::sinh(u);
-        Accumulate<N>(&total, kernel(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0)}),
-                      h * g.w[i]);
+        Accumulate<N>(
+            &total,
+            kernel(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0), std::exp(-sh * zeta)}),
+            h * g.w[i]);
       }
     }
   }
-  if (k_b >= k_cut) return total;
+  if (k_b >= k_end) return total;
 
   auto panel = [&](double a, double b, Values<N>* sum) {
     const double w = b - a;
     for (int i = 0; i < 12; ++i) {
       const double kr = a + w * g.x[i];
       const double s = std::sqrt(kr * kr - k0 * k0);
-      Accumulate<N>(sum, kernel(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0)}),
-                    w * g.w[i]);
+      Accumulate<N>(
+          sum,
+          kernel(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0), std::exp(-s * zeta)}),
+          w * g.w[i]);
     }
   };
   const double half_period = rho > 0.0 ? core::kPi / rho : INFINITY;
@@ -210,14 +227,14 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   // on that scale), so the panel count grows with the logarithm of the range.
   auto range = [&](double a, double b, Values<N>* sum) {
     while (a < b) {
-      const double next = std::min(b, a + std::min({half_period, 3.0 / zeta, 0.5 * a}));
+      const double next = std::min(b, a + std::min({2.0 * half_period, 10.0 / zeta, 1.0 * a}));
       panel(a, next, sum);
       a = next;
     }
   };
   // Breakpoints of the middle part: up to past the ground's branch point (when it is near
   // the axis), graded geometrically toward it from both sides.
-  const double k_tail = std::min(std::max(k_b, 1.5 * k1_re), k_cut);
+  const double k_tail = std::min(std::max(k_b, 1.5 * k1_re), k_end);
   std::vector<double> breaks{k_b};
   if (k1_re > k_b && k1_re < k_tail) {
     // Geometric grading toward k1 on both sides, down to the scale of its distance from the
@@ -230,12 +247,12 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   }
   breaks.push_back(k_tail);
   for (size_t b = 0; b + 1 < breaks.size(); ++b) range(breaks[b], breaks[b + 1], &total);
-  if (k_tail >= k_cut) return total;
+  if (k_tail >= k_end) return total;
 
   // Tail [k_tail, inf): direct while it is short, else partition-extrapolation.
-  const double tail_half_periods = (k_cut - k_tail) / half_period;
+  const double tail_half_periods = (k_end - k_tail) / half_period;
   if (!(tail_half_periods > 4.0 * options.tail_partitions)) {
-    range(k_tail, k_cut, &total);
+    range(k_tail, k_end, &total);
     return total;
   }
   const int parts = std::max(2, options.tail_partitions);
@@ -263,7 +280,7 @@ HalfSpace::HalfSpace(Complex eps_c, double wavenumber_per_m, SommerfeldOptions o
     : eps_c_(eps_c), k0_(wavenumber_per_m), options_(options) {}
 
 HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m) const {
-  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, rho_m, zeta_m};
+  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, rho_m};
   const Values<4> v = Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_);
   return {v[0], v[1], v[2], v[3]};
 }
@@ -617,7 +634,7 @@ std::array<Complex, 4> HalfSpaceTable::InterpolateSlopes(
 
 Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,
                                    SommerfeldOptions options) {
-  const IdentityKernel kernel{rho_m, zeta_m};
+  const IdentityKernel kernel{rho_m};
   return Integrate<1>(kernel, wavenumber_per_m, Complex(1.0, 0.0), rho_m, zeta_m, options)[0];
 }
 
