@@ -227,7 +227,7 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   // on that scale), so the panel count grows with the logarithm of the range.
   auto range = [&](double a, double b, Values<N>* sum) {
     while (a < b) {
-      const double next = std::min(b, a + std::min({2.0 * half_period, 10.0 / zeta, 1.0 * a}));
+      const double next = std::min(b, a + std::min({4.0 * half_period, 10.0 / zeta, 1.0 * a}));
       panel(a, next, sum);
       a = next;
     }
