@@ -72,6 +72,12 @@ Complex Kz(Complex k2, double k_rho) {
   return s.imag() > 0.0 ? -s : s;
 }
 
+// a b by the textbook formula. The operator's C99 Annex G checks for infinite parts (which
+// cannot occur here: every factor is finite) cost the kernel a branch and a call per product.
+inline Complex Mul(Complex a, Complex b) {
+  return {a.real() * b.real() - a.imag() * b.imag(), a.real() * b.imag() + a.imag() * b.real()};
+}
+
 // One point of the path: k_rho (real), k_z0, the Jacobians dk = dk_rho / dvar and
 // dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0, and
 // E = exp(-j k_z0 zeta) (a real exponential beyond k0, where k_z0 is imaginary: the path
@@ -89,26 +95,26 @@ using Values = std::array<Complex, N>;
 
 // The four kernels of HalfSpaceCorrection at a path point.
 struct CorrectionKernel {
-  Complex eps, k1_2;
+  Complex eps, k1_2, one_minus_eps;
   double rho;
   Values<4> operator()(const PathPoint& p) const {
     const Complex kz0 = p.kz0;
     const Complex kz1 = Kz(k1_2, p.k_rho);
-    const Complex te = kz0 + kz1, tm = eps * kz0 + kz1;
+    const Complex te = kz0 + kz1, tm = Mul(eps, kz0) + kz1;
     // One reciprocal, 2 / (te tm), for the four quotients below (by its real formula: the
     // complex division's checks for infinite parts cost the table a sixth of its time).
-    const Complex d = te * tm;
+    const Complex d = Mul(te, tm);
     const Complex inv = std::conj(d) * (2.0 / std::norm(d));
-    const Complex rq = kz0 * kz0 * (1.0 - eps) * inv;
-    const Complex horizontal = kz0 * tm * inv;  // R_TE + 1 = 2 kz0 / te
-    const Complex vertical = -kz1 * te * inv;   // R_TM - 1 = -2 kz1 / tm
     // R_TE + R_TM = 2 k_rho^2 (1 - eps) / (te tm), written without the cancellation.
-    const Complex sum_rc = (1.0 - eps) * inv;
+    const Complex sum_rc = Mul(one_minus_eps, inv);
+    const Complex rq = Mul(Mul(kz0, kz0), sum_rc);
+    const Complex horizontal = Mul(Mul(kz0, tm), inv);  // R_TE + 1 = 2 kz0 / te
+    const Complex vertical = -Mul(Mul(kz1, te), inv);   // R_TM - 1 = -2 kz1 / tm
     const double j0 = J0(p.k_rho * rho);
     const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
-    const Complex a = j0 * p.e * p.dm;
-    return {a * horizontal, a * (vertical - rq), a * (horizontal + rq),
-            -j1 * p.e * p.dk * p.k_rho * p.k_rho * sum_rc};
+    const Complex a = j0 * Mul(p.e, p.dm);
+    return {Mul(a, horizontal), Mul(a, vertical - rq), Mul(a, horizontal + rq),
+            (-j1 * p.dk * p.k_rho * p.k_rho) * Mul(p.e, sum_rc)};
   }
 };
 
@@ -280,7 +286,7 @@ HalfSpace::HalfSpace(Complex eps_c, double wavenumber_per_m, SommerfeldOptions o
     : eps_c_(eps_c), k0_(wavenumber_per_m), options_(options) {}
 
 HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m) const {
-  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, rho_m};
+  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, 1.0 - eps_c_, rho_m};
   const Values<4> v = Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_);
   return {v[0], v[1], v[2], v[3]};
 }
@@ -377,8 +383,14 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   // halfway to zero when a full step would cross it.
   const double y_lo = std::sqrt(std::tan(0.5 * std::asin(std::min(1.0, zeta_min_m / r_max_m))));
   const double y_hi = 1.0;
-  const int n_psi = std::max(4, options.angle_nodes) + 2;
-  const double dy = (y_hi - y_lo) / (n_psi - 3);
+  // As many steps as angle_nodes - 1 would take over all elevations (y from 0 to 1), at least
+  // as fine: a model that spans fewer elevations (a low one, whose R' never much exceeds its
+  // height sums) gets fewer nodes at the same spacing.
+  const int steps = std::max(
+      3,
+      static_cast<int>(std::ceil((y_hi - y_lo) * (std::max(4, options.angle_nodes) - 1) - 1e-9)));
+  const int n_psi = steps + 3;
+  const double dy = (y_hi - y_lo) / steps;
   y_.push_back(std::max(y_lo - dy, 0.5 * y_lo));
   for (int j = 1; j < n_psi; ++j) y_.push_back(y_lo + (j - 1) * dy);
   for (int a = 0; a < 4; ++a) {

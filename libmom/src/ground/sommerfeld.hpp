@@ -76,7 +76,8 @@ struct TableOptions {
   // Nodes per factor of 2 in R'; more costs build time linearly and cuts the interpolation
   // error as the fourth power.
   int nodes_per_octave = 4;
-  // Nodes in sqrt(tan(psi / 2)) over [psi_min, pi/2]; same trade.
+  // Nodes in sqrt(tan(psi / 2)) over all elevations [0, pi/2] (y from 0 to 1); a table
+  // over [psi_min, pi/2] keeps their spacing, with fewer nodes (at least four); same trade.
   int angle_nodes = 20;
   // Threads building the table (1 or 2).
   int threads = 2;
