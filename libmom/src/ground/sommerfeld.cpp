@@ -93,11 +93,15 @@ struct PathPoint {
 template <int N>
 using Values = std::array<Complex, N>;
 
-// The four kernels of HalfSpaceCorrection at a path point.
+// The four kernels of HalfSpaceCorrection at a path point, in two steps: the ground's factors
+// (functions of k_rho alone, which a table build shares between its nodes where their paths
+// meet) and their combination with the Bessel functions and E (which depend on rho and zeta).
 struct CorrectionKernel {
   Complex eps, k1_2, one_minus_eps;
   double rho;
-  Values<4> operator()(const PathPoint& p) const {
+  // P (R_TE + 1), P (R_TM - R_q - 1), P (R_TE + R_q + 1), each times dk_rho/dvar, and
+  // k_rho^2 (R_TE + R_TM) dk_rho/dvar.
+  Values<4> Factors(const PathPoint& p) const {
     const Complex kz0 = p.kz0;
     const Complex kz1 = Kz(k1_2, p.k_rho);
     const Complex te = kz0 + kz1, tm = Mul(eps, kz0) + kz1;
@@ -110,18 +114,43 @@ struct CorrectionKernel {
     const Complex rq = Mul(Mul(kz0, kz0), sum_rc);
     const Complex horizontal = Mul(Mul(kz0, tm), inv);  // R_TE + 1 = 2 kz0 / te
     const Complex vertical = -Mul(Mul(kz1, te), inv);   // R_TM - 1 = -2 kz1 / tm
+    return {Mul(p.dm, horizontal), Mul(p.dm, vertical - rq), Mul(p.dm, horizontal + rq),
+            (p.dk * p.k_rho * p.k_rho) * sum_rc};
+  }
+  Values<4> Combine(const PathPoint& p, const Values<4>& f) const {
     const double j0 = J0(p.k_rho * rho);
     const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
-    const Complex a = j0 * Mul(p.e, p.dm);
-    return {Mul(a, horizontal), Mul(a, vertical - rq), Mul(a, horizontal + rq),
-            (-j1 * p.dk * p.k_rho * p.k_rho) * Mul(p.e, sum_rc)};
+    const Complex a = j0 * p.e, c = -j1 * p.e;
+    return {Mul(a, f[0]), Mul(a, f[1]), Mul(a, f[2]), Mul(c, f[3])};
   }
 };
 
 // The Sommerfeld identity's integrand J0 E P.
 struct IdentityKernel {
   double rho;
-  Values<1> operator()(const PathPoint& p) const { return {J0(p.k_rho * rho) * p.e * p.dm}; }
+  Values<1> Factors(const PathPoint& p) const { return {p.dm}; }
+  Values<1> Combine(const PathPoint& p, const Values<1>& f) const {
+    return {J0(p.k_rho * rho) * Mul(p.e, f[0])};
+  }
+};
+
+// The path points of the two parts next to k0 ([0, k0] and [k0, 2 k0]) depend on the number
+// of panels only (and on the ground), so a table build keeps them with the ground's factors
+// there (weights included), one list per part and panel count, and every node with that panel
+// count reuses them.
+template <int N>
+struct SharedPoint {
+  PathPoint point;  // e not set: it depends on zeta
+  Values<N> factors;
+};
+template <int N>
+struct SharedPaths {
+  std::array<std::vector<std::vector<SharedPoint<N>>>, 2> parts;
+  std::vector<SharedPoint<N>>* Get(int part, int panels) {
+    auto& lists = parts[part];
+    if (static_cast<int>(lists.size()) <= panels) lists.resize(panels + 1);
+    return &lists[panels];
+  }
 };
 
 template <int N>
@@ -149,26 +178,50 @@ Complex LevinT(const std::vector<Complex>& s) {
 }
 
 // Integral over k_rho in [0, inf) of kernel(point) along the path above.
+// shared: the path points next to k0 kept from node to node of a table build (or null).
 template <int N, typename Kernel>
 Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, double zeta,
-                    const SommerfeldOptions& options) {
+                    const SommerfeldOptions& options, SharedPaths<N>* shared = nullptr) {
   const Rule12& g = Rule();
   Values<N> total{};
   const double span = rho + zeta;
+  // One point with weight w: into *sum, or (points not null) into the shared list.
+  auto add = [&](const PathPoint& p, double w, Values<N>* sum,
+                 std::vector<SharedPoint<N>>* points = nullptr) {
+    Values<N> f = kernel.Factors(p);
+    if (!points) {
+      Accumulate<N>(sum, kernel.Combine(p, f), w);
+      return;
+    }
+    for (Complex& v : f) v *= w;
+    points->push_back({p, f});
+  };
+  // The shared points of a part, with E for this zeta from e_of(point).
+  auto add_shared = [&](std::vector<SharedPoint<N>>* points, auto e_of) {
+    for (SharedPoint<N>& s : *points) {
+      s.point.e = e_of(s.point);
+      Accumulate<N>(&total, kernel.Combine(s.point, s.factors), 1.0);
+    }
+  };
 
   // [0, k0]: k_rho = k0 cos(theta), theta in [0, pi/2].
   {
     const int panels = 1 + static_cast<int>(k0 * span / 3.0);
-    const double h = 0.5 * core::kPi / panels;
-    for (int p = 0; p < panels; ++p) {
-      for (int i = 0; i < 12; ++i) {
-        const double theta = h * (p + g.x[i]);
-        const double kr = k0 * std::cos(theta);
-        const double kz = k0 * std::sin(theta);
-        Accumulate<N>(&total,
-                      kernel(PathPoint{kr, kz, kz, Complex(0.0, -kr), std::polar(1.0, -kz * zeta)}),
-                      h * g.w[i]);
+    std::vector<SharedPoint<N>>* points = shared ? shared->Get(0, panels) : nullptr;
+    if (!points || points->empty()) {
+      const double h = 0.5 * core::kPi / panels;
+      for (int p = 0; p < panels; ++p) {
+        for (int i = 0; i < 12; ++i) {
+          const double theta = h * (p + g.x[i]);
+          const double kr = k0 * std::cos(theta);
+          const double kz = k0 * std::sin(theta);
+          add(PathPoint{kr, kz, kz, Complex(0.0, -kr), std::polar(1.0, -kz * zeta)}, h * g.w[i],
+              &total, points);
+        }
       }
+    }
+    if (points) {
+      add_shared(points, [&](const PathPoint& p) { return std::polar(1.0, -p.kz0.real() * zeta); });
     }
   }
   // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)): the end of the
@@ -201,17 +254,26 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
       breaks.push_back(u1);
       std::sort(breaks.begin(), breaks.end());
     }
-    for (size_t b = 0; b + 1 < breaks.size(); ++b) {
-      const double h = breaks[b + 1] - breaks[b];
-      for (int i = 0; i < 12; ++i) {
-        const double u = breaks[b] + h * g.x[i];
-        const double kr = k0 * std::cosh(u);
-        const double sh = k0 * std::sinh(u);
-        Accumulate<N>(
-            &total,
-            kernel(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0), std::exp(-sh * zeta)}),
-            h * g.w[i]);
+    // Shared between the nodes where the part ends at 2 k0 (its breaks then depend on the
+    // panel count alone).
+    std::vector<SharedPoint<N>>* points =
+        shared && k_b == 2.0 * k0 ? shared->Get(1, panels) : nullptr;
+    if (!points || points->empty()) {
+      for (size_t b = 0; b + 1 < breaks.size(); ++b) {
+        const double h = breaks[b + 1] - breaks[b];
+        for (int i = 0; i < 12; ++i) {
+          const double u = breaks[b] + h * g.x[i];
+          const double kr = k0 * std::cosh(u);
+          const double sh = k0 * std::sinh(u);
+          add(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0), std::exp(-sh * zeta)},
+              h * g.w[i], &total, points);
+        }
       }
+    }
+    if (points) {
+      // k_z0 = -j k0 sinh(u): E = exp(-k0 sinh(u) zeta).
+      add_shared(points,
+                 [&](const PathPoint& p) { return Complex(std::exp(p.kz0.imag() * zeta)); });
     }
   }
   if (k_b >= k_end) return total;
@@ -221,10 +283,8 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
     for (int i = 0; i < 12; ++i) {
       const double kr = a + w * g.x[i];
       const double s = std::sqrt(kr * kr - k0 * k0);
-      Accumulate<N>(
-          sum,
-          kernel(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0), std::exp(-s * zeta)}),
-          w * g.w[i]);
+      add(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0), std::exp(-s * zeta)},
+          w * g.w[i], sum);
     }
   };
   const double half_period = rho > 0.0 ? core::kPi / rho : INFINITY;
@@ -285,9 +345,19 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
 HalfSpace::HalfSpace(Complex eps_c, double wavenumber_per_m, SommerfeldOptions options)
     : eps_c_(eps_c), k0_(wavenumber_per_m), options_(options) {}
 
+class HalfSpace::PathCache {
+ public:
+  SharedPaths<4> paths;
+};
+
 HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m) const {
+  return Correction(rho_m, zeta_m, nullptr);
+}
+
+HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m, PathCache* paths) const {
   const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, 1.0 - eps_c_, rho_m};
-  const Values<4> v = Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_);
+  const Values<4> v =
+      Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_, paths ? &paths->paths : nullptr);
   return {v[0], v[1], v[2], v[3]};
 }
 
@@ -419,6 +489,7 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   values_.assign(nx * ny, {Complex(not_built, not_built), Complex(not_built, not_built),
                            Complex(not_built, not_built), Complex(not_built, not_built)});
   auto build = [&](size_t first, size_t step) {
+    HalfSpace::PathCache paths;
     for (size_t i = first; i < x_.size(); i += step) {
       const double r = radius[i];
       for (size_t j = 0; j < y_.size(); ++j) {
@@ -426,7 +497,7 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
         const double psi = 2.0 * std::atan(y_[j] * y_[j]);
         const double rho = r * std::cos(psi), zeta = r * std::sin(psi);
         // Past the zenith rho < 0: the functions are even in rho but for the coupling, odd.
-        HalfSpaceCorrection c = ground_.Correction(std::abs(rho), zeta);
+        HalfSpaceCorrection c = ground_.Correction(std::abs(rho), zeta, &paths);
         if (rho < 0.0) c.coupling = -c.coupling;
         values_[i * y_.size() + j] = Normalized(c, r, ground_.wavenumber());
       }

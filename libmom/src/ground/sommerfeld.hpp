@@ -56,6 +56,11 @@ class HalfSpace {
 
   // The corrections at horizontal distance rho_m >= 0 and height sum zeta_m > 0.
   HalfSpaceCorrection Correction(double rho_m, double zeta_m) const;
+  // The same, keeping in *paths the path points near k0 (with the ground's factors there),
+  // which depend on the panel count only, for the next call: what a table build does, one
+  // PathCache per thread (sommerfeld.cpp).
+  class PathCache;
+  HalfSpaceCorrection Correction(double rho_m, double zeta_m, PathCache* paths) const;
 
   Complex permittivity() const { return eps_c_; }
   double wavenumber() const { return k0_; }
