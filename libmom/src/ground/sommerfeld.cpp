@@ -231,10 +231,10 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   const double k_b = std::min(2.0 * k0, k_cut);
   // Beyond 2 k0 the kernels' factors are of order one, and the rest of the integral is about
   // exp(-|k_z0| zeta) / zeta, in units of the image's 1/R' that is exp(-|k_z0| zeta) R'/zeta:
-  // the path ends where that falls to e^-24 (4e-11).
+  // the path ends where that falls to e^-22 (3e-10, some 1e-5 of the table's interpolation error).
   const double k_end = std::max(
       k_b,
-      std::sqrt(k0 * k0 + std::pow((24.0 + std::log(std::hypot(rho, zeta) / zeta)) / zeta, 2)));
+      std::sqrt(k0 * k0 + std::pow((22.0 + std::log(std::hypot(rho, zeta) / zeta)) / zeta, 2)));
   const Complex k1 = k0 * std::sqrt(eps_c);
   const double k1_re = k1.real();
   // Finest panel next to the ground's branch point: its distance from the axis.
