@@ -370,7 +370,7 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
           // The half-space's correction to the image: its kernels are symmetric under the
           // exchange of the two segments, so Z stays symmetric. Added to the image's moments
           // and scattered with them.
-          const HalfSpacePair c = half_space->Moments(si.start, si.end, sj.start, sj.end);
+          const HalfSpacePair c = half_space->Moments(i, j);
           PairMoments vector_part = c.vector;
           if (j == i) Symmetrize(&vector_part);
           const PairMoments sum{Multiply(mi.m00, vector_weight) + vector_part.m00,

@@ -163,6 +163,30 @@ HalfSpaceFill::HalfSpaceFill(const geometry::Mesh& mesh, Complex eps_c, double w
   table_options.rho_max_m = 1.01 * horizontal + floor_m_;
   table_ = std::make_unique<ground::HalfSpaceTable>(ground::HalfSpace(eps_c, wavenumber_per_m),
                                                     zeta_min, r_max, zeta_min, table_options);
+  segments_.reserve(mesh.segments.size());
+  for (const geometry::Segment& s : mesh.segments) segments_.push_back(Prepare(s.start, s.end));
+}
+
+HalfSpaceFill::SegmentData HalfSpaceFill::Prepare(const Vec3& start, const Vec3& end) {
+  SegmentData d;
+  d.start = start;
+  d.end = end;
+  d.length = (end - start).norm();
+  d.unit = (end - start).normalized();
+  d.centre = 0.5 * (start + end);
+  d.low = std::max(std::min(start.z(), end.z()), 0.0);
+  const auto& g = Gauss<2>();
+  for (int i = 0; i < 2; ++i) d.two_points[i] = start + (end - start) * g.x[i];
+  return d;
+}
+
+HalfSpacePair HalfSpaceFill::Moments(int a, int b) const {
+  return Moments(segments_[a], segments_[b]);
+}
+
+HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3& b0,
+                                     const Vec3& b1) const {
+  return Moments(Prepare(a0, a1), Prepare(b0, b1));
 }
 
 bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment& b) const {
@@ -170,14 +194,24 @@ bool HalfSpaceFill::Applies(const geometry::Segment& a, const geometry::Segment&
   return mean_height < exact_below_m_;
 }
 
-HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3& b0,
-                                     const Vec3& b1) const {
+HalfSpacePair HalfSpaceFill::Moments(const SegmentData& sa, const SegmentData& sb) const {
   const Vec3 mirror(1.0, 1.0, -1.0);
-  const double gap =
-      geometry::SegmentDistance(a0, a1, b0.cwiseProduct(mirror), b1.cwiseProduct(mirror), nullptr);
-  const double longest = std::max((a1 - a0).norm(), (b1 - b0).norm());
-  const double a_low = std::max(std::min(a0.z(), a1.z()), 0.0);
-  const double b_low = std::max(std::min(b0.z(), b1.z()), 0.0);
+  const Vec3 &a0 = sa.start, &a1 = sa.end, &b0 = sb.start, &b1 = sb.end;
+  const double longest = std::max(sa.length, sb.length);
+  const double r_centre = (sa.centre - sb.centre.cwiseProduct(mirror)).norm();
+  // The distance from segment a to b's image: first a lower bound (no point of a segment lies
+  // farther than half its length from its centre), the exact distance only where the bound
+  // does not settle a rule below (the rules then decide as with the exact distance).
+  double gap = r_centre - 0.5 * (sa.length + sb.length);
+  bool gap_exact = false;
+  auto exact_gap = [&]() {
+    if (gap_exact) return;
+    gap = geometry::SegmentDistance(a0, a1, b0.cwiseProduct(mirror), b1.cwiseProduct(mirror),
+                                    nullptr);
+    gap_exact = true;
+  };
+  if (gap < kFourPointFactor * longest) exact_gap();
+  const double a_low = sa.low, b_low = sb.low;
   int points = 0;
   if (gap >= kFourPointFactor * longest) {
     // The ground's own wave (wavenumber k1) decays away from the surface as
@@ -191,11 +225,18 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   } else if (gap >= kGradedFactor * longest) {
     points = 6;
   }
-  // The node lists are reused from pair to pair (one pair at a time per thread).
+  // The node lists are reused from pair to pair (one pair at a time per thread); the two-point
+  // rule's nodes come prepared with the segments.
   thread_local std::vector<Node> obs, src;
-  CorrectionNodes(a0, a1, points, b_low, floor_m_, &obs);
-  CorrectionNodes(b0, b1, points, a_low, floor_m_, &src);
-  const Vec3 ua = (a1 - a0).normalized(), ub = (b1 - b0).normalized();
+  if (points == 2) {
+    const auto& g = Gauss<2>();
+    obs.assign({{g.x[0], g.w[0], sa.two_points[0]}, {g.x[1], g.w[1], sa.two_points[1]}});
+    src.assign({{g.x[0], g.w[0], sb.two_points[0]}, {g.x[1], g.w[1], sb.two_points[1]}});
+  } else {
+    CorrectionNodes(a0, a1, points, b_low, floor_m_, &obs);
+    CorrectionNodes(b0, b1, points, a_low, floor_m_, &src);
+  }
+  const Vec3 &ua = sa.unit, &ub = sb.unit;
   const double horizontal = ua.x() * ub.x() + ua.y() * ub.y();
   const double vertical = ua.z() * ub.z();
   // Only the kernels whose direction factors can be nonzero are looked up: two horizontal
@@ -210,16 +251,20 @@ HalfSpacePair HalfSpaceFill::Moments(const Vec3& a0, const Vec3& a1, const Vec3&
   // The image factor exp(-jkR')/R' from one sine and cosine at the centres and the series of
   // fill/kernel.hpp in k (R' - R'_c) at each pair of points (one sine and cosine per pair of
   // points where the phase difference exceeds the series' range).
-  const Vec3 centre_a = 0.5 * (a0 + a1), centre_b = 0.5 * (b0 + b1);
-  const double r_centre = (centre_a - centre_b.cwiseProduct(mirror)).norm();
+  const Vec3 &centre_a = sa.centre, &centre_b = sb.centre;
   const Complex phase_centre = std::polar(1.0, -wavenumber_ * r_centre);
   // Far pairs: the normalized correction from one lookup at the centres and its slopes (the
   // first-order Taylor expansion in rho and zeta), in place of one lookup per pair of points.
   std::array<Complex, 4> n_centre{}, n_rho{}, n_zeta{};
   double rho_centre = 0.0, zeta_centre = 0.0;
   bool taylor = false;
-  if (far_expansion_ && expandable_ground_ && points == 2 &&
-      longest * (1.0 / gap + 1.0 / table_->distance_scale_m()) <= kExpansionSpan) {
+  auto spans_little = [&]() {
+    return longest * (1.0 / gap + 1.0 / table_->distance_scale_m()) <= kExpansionSpan;
+  };
+  if (far_expansion_ && expandable_ground_ && points == 2 && !spans_little() && !gap_exact) {
+    exact_gap();
+  }
+  if (far_expansion_ && expandable_ground_ && points == 2 && spans_little()) {
     rho_centre = (centre_a - centre_b).head<2>().norm();
     zeta_centre = centre_a.z() + centre_b.z();
     taylor = table_->NormalizedSlopes(rho_centre, zeta_centre, parts, &n_centre, &n_rho, &n_zeta);

@@ -7,8 +7,10 @@
 // docs/numerics.md, "Real ground".
 #pragma once
 
+#include <array>
 #include <complex>
 #include <memory>
+#include <vector>
 
 #include "fill/kernel.hpp"
 #include "geometry/mesh.hpp"
@@ -29,9 +31,9 @@ struct HalfSpacePair {
 class HalfSpaceFill {
  public:
   // The table covers every pair of the mesh, from its lowest to its highest point; pairs whose
-  // mean height is below exact_below_m (infinity: every pair) use it. Costs one table (some 0.05 s,
-  // two threads). tabulate = false builds no table and integrates the correction at every
-  // quadrature point instead (checks of the table).
+  // mean height is below exact_below_m (infinity: every pair) use it. Costs one table (some 1 to 3
+  // ms of CPU on two threads for the 200-unknown models of the benchmarks). tabulate = false builds
+  // no table and integrates the correction at every quadrature point instead (checks of the table).
   HalfSpaceFill(const geometry::Mesh& mesh, std::complex<double> eps_c, double wavenumber_per_m,
                 double exact_below_m, bool tabulate = true);
 
@@ -41,6 +43,9 @@ class HalfSpaceFill {
 
   // The correction's moments between observation segment a0-a1 and source segment b0-b1.
   HalfSpacePair Moments(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec3& b1) const;
+  // The same between segments a and b of the mesh, from their data prepared once per fill
+  // (direction, lowest point, centre, the two-point rule's nodes): the same numbers.
+  HalfSpacePair Moments(int a, int b) const;
 
   const ground::HalfSpaceTable& table() const { return *table_; }
 
@@ -50,6 +55,15 @@ class HalfSpaceFill {
   void UseFarExpansion(bool on) { far_expansion_ = on; }
 
  private:
+  // What a pair's rules need of each segment.
+  struct SegmentData {
+    Vec3 start, end, unit, centre;
+    double length = 0.0, low = 0.0;  // low: the lowest height, at least 0
+    std::array<Vec3, 2> two_points;  // the two-point Gauss rule's nodes
+  };
+  static SegmentData Prepare(const Vec3& start, const Vec3& end);
+  HalfSpacePair Moments(const SegmentData& a, const SegmentData& b) const;
+  std::vector<SegmentData> segments_;
   std::unique_ptr<ground::HalfSpaceTable> table_;
   double wavenumber_ = 0.0;
   double ground_wavenumber_ = 0.0;  // |k1|

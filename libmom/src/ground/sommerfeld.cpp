@@ -29,8 +29,6 @@
 namespace wirefield::ground {
 namespace {
 
-constexpr Complex kJ(0.0, 1.0);
-
 // J0 and J1 by Boost.Math's rational approximations for orders 0 and 1 (the routines its
 // cyl_bessel_j uses inside; called directly, since the general entry point takes a path some
 // ten times slower for arguments above ~50, which the tails reach all the time).
@@ -61,56 +59,97 @@ const Rule12& Rule() {
   return rule;
 }
 
-// sqrt(k^2 - k_rho^2) on the proper sheet, Im <= 0 (decaying away from the ground).
+// sqrt(k^2 - k_rho^2) on the proper sheet, Im <= 0 (decaying away from the ground), by the
+// half-angle formulas (the library's complex square root guards against overflow of |z|^2,
+// which wavenumbers cannot reach, at the cost of a hypot: an eighth of the table's time).
 Complex Kz(Complex k2, double k_rho) {
-  Complex s = std::sqrt(k2 - k_rho * k_rho);
-  if (s.imag() > 0.0) s = -s;
-  return s;
+  const double a = k2.real() - k_rho * k_rho, b = k2.imag();
+  const double t = std::sqrt(0.5 * (std::sqrt(a * a + b * b) + std::abs(a)));
+  if (t == 0.0) return 0.0;
+  // The root with Re >= 0, then the sign that makes Im <= 0.
+  const Complex s =
+      a >= 0.0 ? Complex(t, 0.5 * b / t) : Complex(0.5 * std::abs(b) / t, std::copysign(t, b));
+  return s.imag() > 0.0 ? -s : s;
 }
 
-// One point of the path: k_rho (real), k_z0, and the Jacobians dk = dk_rho / dvar and
-// dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0.
+// a b by the textbook formula. The operator's C99 Annex G checks for infinite parts (which
+// cannot occur here: every factor is finite) cost the kernel a branch and a call per product.
+inline Complex Mul(Complex a, Complex b) {
+  return {a.real() * b.real() - a.imag() * b.imag(), a.real() * b.imag() + a.imag() * b.real()};
+}
+
+// One point of the path: k_rho (real), k_z0, the Jacobians dk = dk_rho / dvar and
+// dm = P dk = k_rho / (j k_z0) dk_rho / dvar, the latter finite at the branch point k0, and
+// E = exp(-j k_z0 zeta) (a real exponential beyond k0, where k_z0 is imaginary: the path
+// computes it without the complex exponential).
 struct PathPoint {
   double k_rho;
   Complex kz0;
   double dk;
   Complex dm;
+  Complex e;
 };
 
 template <int N>
 using Values = std::array<Complex, N>;
 
-// The four kernels of HalfSpaceCorrection at a path point.
+// The four kernels of HalfSpaceCorrection at a path point, in two steps: the ground's factors
+// (functions of k_rho alone, which a table build shares between its nodes where their paths
+// meet) and their combination with the Bessel functions and E (which depend on rho and zeta).
 struct CorrectionKernel {
-  Complex eps, k1_2;
-  double rho, zeta;
-  Values<4> operator()(const PathPoint& p) const {
+  Complex eps, k1_2, one_minus_eps;
+  double rho;
+  // P (R_TE + 1), P (R_TM - R_q - 1), P (R_TE + R_q + 1), each times dk_rho/dvar, and
+  // k_rho^2 (R_TE + R_TM) dk_rho/dvar.
+  Values<4> Factors(const PathPoint& p) const {
     const Complex kz0 = p.kz0;
     const Complex kz1 = Kz(k1_2, p.k_rho);
-    const Complex te = kz0 + kz1, tm = eps * kz0 + kz1;
+    const Complex te = kz0 + kz1, tm = Mul(eps, kz0) + kz1;
     // One reciprocal, 2 / (te tm), for the four quotients below (by its real formula: the
     // complex division's checks for infinite parts cost the table a sixth of its time).
-    const Complex d = te * tm;
+    const Complex d = Mul(te, tm);
     const Complex inv = std::conj(d) * (2.0 / std::norm(d));
-    const Complex rq = kz0 * kz0 * (1.0 - eps) * inv;
-    const Complex horizontal = kz0 * tm * inv;  // R_TE + 1 = 2 kz0 / te
-    const Complex vertical = -kz1 * te * inv;   // R_TM - 1 = -2 kz1 / tm
     // R_TE + R_TM = 2 k_rho^2 (1 - eps) / (te tm), written without the cancellation.
-    const Complex sum_rc = (1.0 - eps) * inv;
+    const Complex sum_rc = Mul(one_minus_eps, inv);
+    const Complex rq = Mul(Mul(kz0, kz0), sum_rc);
+    const Complex horizontal = Mul(Mul(kz0, tm), inv);  // R_TE + 1 = 2 kz0 / te
+    const Complex vertical = -Mul(Mul(kz1, te), inv);   // R_TM - 1 = -2 kz1 / tm
+    return {Mul(p.dm, horizontal), Mul(p.dm, vertical - rq), Mul(p.dm, horizontal + rq),
+            (p.dk * p.k_rho * p.k_rho) * sum_rc};
+  }
+  Values<4> Combine(const PathPoint& p, const Values<4>& f) const {
     const double j0 = J0(p.k_rho * rho);
     const double j1 = rho > 0.0 ? J1(p.k_rho * rho) : 0.0;
-    const Complex e = std::exp(-kJ * kz0 * zeta);
-    const Complex a = j0 * e * p.dm;
-    return {a * horizontal, a * (vertical - rq), a * (horizontal + rq),
-            -j1 * e * p.dk * p.k_rho * p.k_rho * sum_rc};
+    const Complex a = j0 * p.e, c = -j1 * p.e;
+    return {Mul(a, f[0]), Mul(a, f[1]), Mul(a, f[2]), Mul(c, f[3])};
   }
 };
 
 // The Sommerfeld identity's integrand J0 E P.
 struct IdentityKernel {
-  double rho, zeta;
-  Values<1> operator()(const PathPoint& p) const {
-    return {J0(p.k_rho * rho) * std::exp(-kJ * p.kz0 * zeta) * p.dm};
+  double rho;
+  Values<1> Factors(const PathPoint& p) const { return {p.dm}; }
+  Values<1> Combine(const PathPoint& p, const Values<1>& f) const {
+    return {J0(p.k_rho * rho) * Mul(p.e, f[0])};
+  }
+};
+
+// The path points of the two parts next to k0 ([0, k0] and [k0, 2 k0]) depend on the number
+// of panels only (and on the ground), so a table build keeps them with the ground's factors
+// there (weights included), one list per part and panel count, and every node with that panel
+// count reuses them.
+template <int N>
+struct SharedPoint {
+  PathPoint point;  // e not set: it depends on zeta
+  Values<N> factors;
+};
+template <int N>
+struct SharedPaths {
+  std::array<std::vector<std::vector<SharedPoint<N>>>, 2> parts;
+  std::vector<SharedPoint<N>>* Get(int part, int panels) {
+    auto& lists = parts[part];
+    if (static_cast<int>(lists.size()) <= panels) lists.resize(panels + 1);
+    return &lists[panels];
   }
 };
 
@@ -139,30 +178,63 @@ Complex LevinT(const std::vector<Complex>& s) {
 }
 
 // Integral over k_rho in [0, inf) of kernel(point) along the path above.
+// shared: the path points next to k0 kept from node to node of a table build (or null).
 template <int N, typename Kernel>
 Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, double zeta,
-                    const SommerfeldOptions& options) {
+                    const SommerfeldOptions& options, SharedPaths<N>* shared = nullptr) {
   const Rule12& g = Rule();
   Values<N> total{};
   const double span = rho + zeta;
+  // One point with weight w: into *sum, or (points not null) into the shared list.
+  auto add = [&](const PathPoint& p, double w, Values<N>* sum,
+                 std::vector<SharedPoint<N>>* points = nullptr) {
+    Values<N> f = kernel.Factors(p);
+    if (!points) {
+      Accumulate<N>(sum, kernel.Combine(p, f), w);
+      return;
+    }
+    for (Complex& v : f) v *= w;
+    points->push_back({p, f});
+  };
+  // The shared points of a part, with E for this zeta from e_of(point).
+  auto add_shared = [&](std::vector<SharedPoint<N>>* points, auto e_of) {
+    for (SharedPoint<N>& s : *points) {
+      s.point.e = e_of(s.point);
+      Accumulate<N>(&total, kernel.Combine(s.point, s.factors), 1.0);
+    }
+  };
 
   // [0, k0]: k_rho = k0 cos(theta), theta in [0, pi/2].
   {
     const int panels = 1 + static_cast<int>(k0 * span / 3.0);
-    const double h = 0.5 * core::kPi / panels;
-    for (int p = 0; p < panels; ++p) {
-      for (int i = 0; i < 12; ++i) {
-        const double theta = h * (p + g.x[i]);
-        const double kr = k0 * std::cos(theta);
-        const double kz = k0 * std::sin(theta);
-        Accumulate<N>(&total, kernel(PathPoint{kr, kz, kz, Complex(0.0, -kr)}), h * g.w[i]);
+    std::vector<SharedPoint<N>>* points = shared ? shared->Get(0, panels) : nullptr;
+    if (!points || points->empty()) {
+      const double h = 0.5 * core::kPi / panels;
+      for (int p = 0; p < panels; ++p) {
+        for (int i = 0; i < 12; ++i) {
+          const double theta = h * (p + g.x[i]);
+          const double kr = k0 * std::cos(theta);
+          const double kz = k0 * std::sin(theta);
+          add(PathPoint{kr, kz, kz, Complex(0.0, -kr), std::polar(1.0, -kz * zeta)}, h * g.w[i],
+              &total, points);
+        }
       }
     }
+    if (points) {
+      add_shared(points, [&](const PathPoint& p) { return std::polar(1.0, -p.kz0.real() * zeta); });
+    }
   }
-  // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)).
+  // Where the integrand has decayed to e^-36 of its start (exp(-|k_z0| zeta)): the end of the
+  // part next to k0.
   const double k_cut = std::sqrt(k0 * k0 + std::pow(36.0 / zeta, 2));
   // [k0, min(2 k0, k_cut)]: k_rho = k0 cosh(u).
   const double k_b = std::min(2.0 * k0, k_cut);
+  // Beyond 2 k0 the kernels' factors are of order one, and the rest of the integral is about
+  // exp(-|k_z0| zeta) / zeta, in units of the image's 1/R' that is exp(-|k_z0| zeta) R'/zeta:
+  // the path ends where that falls to e^-22 (3e-10, some 1e-5 of the table's interpolation error).
+  const double k_end = std::max(
+      k_b,
+      std::sqrt(k0 * k0 + std::pow((22.0 + std::log(std::hypot(rho, zeta) / zeta)) / zeta, 2)));
   const Complex k1 = k0 * std::sqrt(eps_c);
   const double k1_re = k1.real();
   // Finest panel next to the ground's branch point: its distance from the axis.
@@ -182,26 +254,37 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
       breaks.push_back(u1);
       std::sort(breaks.begin(), breaks.end());
     }
-    for (size_t b = 0; b + 1 < breaks.size(); ++b) {
-      const double h = breaks[b + 1] - breaks[b];
-      for (int i = 0; i < 12; ++i) {
-        const double u = breaks[b] + h * g.x[i];
-        const double kr = k0 * std::cosh(u);
-        const double sh = k0 * std::sinh(u);
-        Accumulate<N>(&total, kernel(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0)}),
-                      h * g.w[i]);
+    // Shared between the nodes where the part ends at 2 k0 (its breaks then depend on the
+    // panel count alone).
+    std::vector<SharedPoint<N>>* points =
+        shared && k_b == 2.0 * k0 ? shared->Get(1, panels) : nullptr;
+    if (!points || points->empty()) {
+      for (size_t b = 0; b + 1 < breaks.size(); ++b) {
+        const double h = breaks[b + 1] - breaks[b];
+        for (int i = 0; i < 12; ++i) {
+          const double u = breaks[b] + h * g.x[i];
+          const double kr = k0 * std::cosh(u);
+          const double sh = k0 * std::sinh(u);
+          add(PathPoint{kr, Complex(0.0, -sh), sh, Complex(kr, 0.0), std::exp(-sh * zeta)},
+              h * g.w[i], &total, points);
+        }
       }
     }
+    if (points) {
+      // k_z0 = -j k0 sinh(u): E = exp(-k0 sinh(u) zeta).
+      add_shared(points,
+                 [&](const PathPoint& p) { return Complex(std::exp(p.kz0.imag() * zeta)); });
+    }
   }
-  if (k_b >= k_cut) return total;
+  if (k_b >= k_end) return total;
 
   auto panel = [&](double a, double b, Values<N>* sum) {
     const double w = b - a;
     for (int i = 0; i < 12; ++i) {
       const double kr = a + w * g.x[i];
       const double s = std::sqrt(kr * kr - k0 * k0);
-      Accumulate<N>(sum, kernel(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0)}),
-                    w * g.w[i]);
+      add(PathPoint{kr, Complex(0.0, -s), 1.0, Complex(kr / s, 0.0), std::exp(-s * zeta)},
+          w * g.w[i], sum);
     }
   };
   const double half_period = rho > 0.0 ? core::kPi / rho : INFINITY;
@@ -210,14 +293,14 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   // on that scale), so the panel count grows with the logarithm of the range.
   auto range = [&](double a, double b, Values<N>* sum) {
     while (a < b) {
-      const double next = std::min(b, a + std::min({half_period, 3.0 / zeta, 0.5 * a}));
+      const double next = std::min(b, a + std::min({4.0 * half_period, 10.0 / zeta, 1.0 * a}));
       panel(a, next, sum);
       a = next;
     }
   };
   // Breakpoints of the middle part: up to past the ground's branch point (when it is near
   // the axis), graded geometrically toward it from both sides.
-  const double k_tail = std::min(std::max(k_b, 1.5 * k1_re), k_cut);
+  const double k_tail = std::min(std::max(k_b, 1.5 * k1_re), k_end);
   std::vector<double> breaks{k_b};
   if (k1_re > k_b && k1_re < k_tail) {
     // Geometric grading toward k1 on both sides, down to the scale of its distance from the
@@ -230,12 +313,12 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
   }
   breaks.push_back(k_tail);
   for (size_t b = 0; b + 1 < breaks.size(); ++b) range(breaks[b], breaks[b + 1], &total);
-  if (k_tail >= k_cut) return total;
+  if (k_tail >= k_end) return total;
 
   // Tail [k_tail, inf): direct while it is short, else partition-extrapolation.
-  const double tail_half_periods = (k_cut - k_tail) / half_period;
+  const double tail_half_periods = (k_end - k_tail) / half_period;
   if (!(tail_half_periods > 4.0 * options.tail_partitions)) {
-    range(k_tail, k_cut, &total);
+    range(k_tail, k_end, &total);
     return total;
   }
   const int parts = std::max(2, options.tail_partitions);
@@ -262,9 +345,19 @@ Values<N> Integrate(const Kernel& kernel, double k0, Complex eps_c, double rho, 
 HalfSpace::HalfSpace(Complex eps_c, double wavenumber_per_m, SommerfeldOptions options)
     : eps_c_(eps_c), k0_(wavenumber_per_m), options_(options) {}
 
+class HalfSpace::PathCache {
+ public:
+  SharedPaths<4> paths;
+};
+
 HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m) const {
-  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, rho_m, zeta_m};
-  const Values<4> v = Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_);
+  return Correction(rho_m, zeta_m, nullptr);
+}
+
+HalfSpaceCorrection HalfSpace::Correction(double rho_m, double zeta_m, PathCache* paths) const {
+  const CorrectionKernel kernel{eps_c_, eps_c_ * k0_ * k0_, 1.0 - eps_c_, rho_m};
+  const Values<4> v =
+      Integrate<4>(kernel, k0_, eps_c_, rho_m, zeta_m, options_, paths ? &paths->paths : nullptr);
   return {v[0], v[1], v[2], v[3]};
 }
 
@@ -360,8 +453,14 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   // halfway to zero when a full step would cross it.
   const double y_lo = std::sqrt(std::tan(0.5 * std::asin(std::min(1.0, zeta_min_m / r_max_m))));
   const double y_hi = 1.0;
-  const int n_psi = std::max(4, options.angle_nodes) + 2;
-  const double dy = (y_hi - y_lo) / (n_psi - 3);
+  // As many steps as angle_nodes - 1 would take over all elevations (y from 0 to 1), at least
+  // as fine: a model that spans fewer elevations (a low one, whose R' never much exceeds its
+  // height sums) gets fewer nodes at the same spacing.
+  const int steps = std::max(
+      3,
+      static_cast<int>(std::ceil((y_hi - y_lo) * (std::max(4, options.angle_nodes) - 1) - 1e-9)));
+  const int n_psi = steps + 3;
+  const double dy = (y_hi - y_lo) / steps;
   y_.push_back(std::max(y_lo - dy, 0.5 * y_lo));
   for (int j = 1; j < n_psi; ++j) y_.push_back(y_lo + (j - 1) * dy);
   for (int a = 0; a < 4; ++a) {
@@ -390,6 +489,7 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
   values_.assign(nx * ny, {Complex(not_built, not_built), Complex(not_built, not_built),
                            Complex(not_built, not_built), Complex(not_built, not_built)});
   auto build = [&](size_t first, size_t step) {
+    HalfSpace::PathCache paths;
     for (size_t i = first; i < x_.size(); i += step) {
       const double r = radius[i];
       for (size_t j = 0; j < y_.size(); ++j) {
@@ -397,7 +497,7 @@ HalfSpaceTable::HalfSpaceTable(const HalfSpace& ground, double r_min_m, double r
         const double psi = 2.0 * std::atan(y_[j] * y_[j]);
         const double rho = r * std::cos(psi), zeta = r * std::sin(psi);
         // Past the zenith rho < 0: the functions are even in rho but for the coupling, odd.
-        HalfSpaceCorrection c = ground_.Correction(std::abs(rho), zeta);
+        HalfSpaceCorrection c = ground_.Correction(std::abs(rho), zeta, &paths);
         if (rho < 0.0) c.coupling = -c.coupling;
         values_[i * y_.size() + j] = Normalized(c, r, ground_.wavenumber());
       }
@@ -617,7 +717,7 @@ std::array<Complex, 4> HalfSpaceTable::InterpolateSlopes(
 
 Complex SommerfeldIdentityIntegral(double rho_m, double zeta_m, double wavenumber_per_m,
                                    SommerfeldOptions options) {
-  const IdentityKernel kernel{rho_m, zeta_m};
+  const IdentityKernel kernel{rho_m};
   return Integrate<1>(kernel, wavenumber_per_m, Complex(1.0, 0.0), rho_m, zeta_m, options)[0];
 }
 

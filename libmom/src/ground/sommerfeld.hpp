@@ -56,6 +56,11 @@ class HalfSpace {
 
   // The corrections at horizontal distance rho_m >= 0 and height sum zeta_m > 0.
   HalfSpaceCorrection Correction(double rho_m, double zeta_m) const;
+  // The same, keeping in *paths the path points near k0 (with the ground's factors there),
+  // which depend on the panel count only, for the next call: what a table build does, one
+  // PathCache per thread (sommerfeld.cpp).
+  class PathCache;
+  HalfSpaceCorrection Correction(double rho_m, double zeta_m, PathCache* paths) const;
 
   Complex permittivity() const { return eps_c_; }
   double wavenumber() const { return k0_; }
@@ -76,7 +81,8 @@ struct TableOptions {
   // Nodes per factor of 2 in R'; more costs build time linearly and cuts the interpolation
   // error as the fourth power.
   int nodes_per_octave = 4;
-  // Nodes in sqrt(tan(psi / 2)) over [psi_min, pi/2]; same trade.
+  // Nodes in sqrt(tan(psi / 2)) over all elevations [0, pi/2] (y from 0 to 1); a table
+  // over [psi_min, pi/2] keeps their spacing, with fewer nodes (at least four); same trade.
   int angle_nodes = 20;
   // Threads building the table (1 or 2).
   int threads = 2;

@@ -93,6 +93,37 @@ TEST(HalfSpaceFill, FarPairsExpansionAgreesWithOneLookupPerPairOfPoints) {
   }
 }
 
+TEST(HalfSpaceFill, PreparedSegmentsGiveTheMomentsOfTheirEndpoints) {
+  // The fill takes each pair's moments from segment data prepared once (direction, lowest
+  // point, centre, two-point nodes) and decides the rule from a bound on the distance to the
+  // other's image before computing that distance; the moments must be those of the endpoints,
+  // to the bit, over every pair of a sloper with a radial and a wire that comes down to the
+  // ground (graded rule, near and far pairs). Dry ground (5, 1 mS/m; common practice).
+  const Model model = ParseModelText(
+      "units m\nwire sloper from (0, 0, 2) to (8.3, 0, 9) radius 0.5mm segments 41\n"
+      "feed src at sloper@start\n"
+      "wire radial from (0, 0, 2) to (-1.5, 3, 2) radius 0.5mm segments 9\n"
+      "wire down from (8.3, 0, 9) to (8.3, 2, 0.05) radius 0.5mm segments 21\n",
+      "prepared.wire");
+  geometry::MeshOptions o;
+  o.max_frequency_hz = 14.2e6;
+  const geometry::Mesh mesh = geometry::BuildMesh(model, o);
+  const double k = 2.0 * core::kPi * 14.2e6 / core::kSpeedOfLight_m_per_s;
+  const HalfSpaceFill fill(mesh, Permittivity(5.0, 1e-3, 14.2e6), k, INFINITY);
+  const int n = static_cast<int>(mesh.segments.size());
+  for (int i = 0; i < n; ++i) {
+    for (int j = 0; j < n; ++j) {
+      const geometry::Segment &a = mesh.segments[i], &b = mesh.segments[j];
+      const HalfSpacePair p = fill.Moments(i, j), q = fill.Moments(a.start, a.end, b.start, b.end);
+      ASSERT_EQ(p.vector.m00, q.vector.m00) << i << " " << j;
+      ASSERT_EQ(p.vector.m10, q.vector.m10) << i << " " << j;
+      ASSERT_EQ(p.vector.m01, q.vector.m01) << i << " " << j;
+      ASSERT_EQ(p.vector.m11, q.vector.m11) << i << " " << j;
+      ASSERT_EQ(p.charge, q.charge) << i << " " << j;
+    }
+  }
+}
+
 TEST(HalfSpaceFill, NoExpansionOverSeaWater) {
   // Sea water (80, 5 S/m) (common practice): |eps_c| some 6300 at 14.2 MHz, where the
   // expansion is not used; every pair equals the full rule to the last bit.
