@@ -126,12 +126,14 @@ int ResolveFillThreads(int asked) {
   return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
 }
 
-// Factors of the solve-cost estimate, measured on the project's 2-core machine
-// (docs/performance.md, "Latest run"): the fill on one thread at 2000 and 4000 unknowns,
-// 57 and 56 ns per entry; our dense solve (zsytrf, zsycon, zsytrs and the checks) at 4000
-// unknowns on both cores, 2.03 s, i.e. 6.35e-11 core-seconds per n^3.
-constexpr double kFillSecondsPerEntry = 56e-9;
-constexpr double kFactorCoreSecondsPerCube = 6.35e-11;
+// Factors of the solve-cost estimate, measured on the project's 2-core machine (quiet, load
+// below 1; docs/performance.md, "Cost of a large solve"): `solve --no-mesh-estimate` of a
+// straight dipole of 4000 and 6000 unknowns filled in 0.4-0.9 s and 2.0 s on two threads
+// (50-110 ns per entry and thread: the matrix outgrows the cache), and factorised (zsytrf,
+// zsycon, zsytrs and the checks, both cores) in 1.4-1.5 s and 4.0 s, 3.7e-11 to 4.5e-11
+// core-seconds per n^3.
+constexpr double kFillSecondsPerEntry = 100e-9;
+constexpr double kFactorCoreSecondsPerCube = 4.2e-11;
 
 }  // namespace
 
@@ -231,14 +233,9 @@ SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double f
     }
   }
   if (!from_reduced) {
-    // The factorisation's expected time: the estimate, scaled by how this run's own fill
-    // compared with its estimate (a busy or faster machine), when the fill was long enough
-    // to say.
-    const SolveCostEstimate estimate = EstimateSolveCost(r.unknowns);
-    double expected_s = estimate.factorisation_s;
-    if (fill_time_s > 0.5 && estimate.fill_s > 0.0) {
-      expected_s *= std::clamp(fill_time_s / estimate.fill_s, 0.2, 5.0);
-    }
+    // The factorisation cannot say how far it is: its lines show the time against the
+    // estimate.
+    const double expected_s = EstimateSolveCost(r.unknowns).factorisation_s;
     const auto progress = SolveStageProgress(r.unknowns, "factorisation", false, expected_s);
     sol = solve::SolveDense(std::move(z), v);
     r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond < 1e-14
