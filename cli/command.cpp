@@ -335,6 +335,13 @@ void PrintWarnings(const std::vector<Warning>& warnings) {
   std::fflush(stderr);
 }
 
+void AnnounceLongSolve(const Simulation& simulation) {
+  const std::string notice = LongSolveNotice(simulation.unknowns());
+  if (notice.empty()) return;
+  fmt::print(stderr, "{}\n", notice);
+  std::fflush(stderr);
+}
+
 void WriteStdout(const std::string& text) {
   const std::size_t written = std::fwrite(text.data(), 1, text.size(), stdout);
   if (written != text.size() || std::fflush(stdout) != 0) {

@@ -53,6 +53,9 @@ void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where
 // Prints each warning to stderr, one per line.
 void PrintWarnings(const std::vector<Warning>& warnings);
 
+// Before a long solve: the matrix's memory and the time estimate on stderr (LongSolveNotice).
+void AnnounceLongSolve(const Simulation& simulation);
+
 // Writes text to stdout in full and flushes; ComputationError when stdout cannot take it.
 void WriteStdout(const std::string& text);
 

@@ -142,6 +142,7 @@ int RunPattern(const PatternFlags& flags) {
   simulation_options.max_frequency_hz = frequency_hz;
   Simulation simulation(std::move(model), simulation_options);
   PrintWarnings(simulation.warnings());
+  AnnounceLongSolve(simulation);
   const SolveResult solved = simulation.Solve(frequency_hz);
   const PatternResult pattern = ComputePattern(simulation, solved, options);
   PrintWarnings(pattern.warnings);

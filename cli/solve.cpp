@@ -28,6 +28,7 @@ int RunSolve(const SolveFlags& all) {
   options.max_frequency_hz = frequency_hz;
   Simulation simulation(std::move(model), options);
   PrintWarnings(simulation.warnings());
+  AnnounceLongSolve(simulation);
   const SolveResult result = all.no_mesh_estimate ? simulation.Solve(frequency_hz)
                                                   : SolveWithMeshEstimate(simulation, frequency_hz);
   if (result.mesh_estimate) PrintWarnings(result.mesh_estimate->warnings);

@@ -52,6 +52,10 @@ struct PatternOptions {
   // Azimuth of the elevation cut, degrees (0..360); default the strongest low-angle
   // direction (PatternResult::low_angle).
   std::optional<double> elevation_cut_azimuth_deg;
+  // Threads that evaluate the far field (search grid, cuts, power integration). Default 0:
+  // one per core. The result is the same to the bit for any count; callers that compute
+  // several patterns at once on their own threads (batches) pass 1.
+  int threads = 0;
 };
 
 // The best gain over azimuth at one elevation: the maximum of the azimuth cut there, on the

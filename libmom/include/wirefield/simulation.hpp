@@ -196,6 +196,25 @@ struct FeedMeshEstimateAt {
 FeedMeshEstimateAt EstimateFirstFeedAt(const Simulation& simulation, double frequency_hz,
                                        const std::string& label, int fill_threads = 0);
 
+// What one solve is expected to cost: an estimate from n^2 (fill) and n^3 (factorisation)
+// scaling, with factors measured on the project's 2-core machine (docs/performance.md,
+// "Cost of a large solve") and the work shared over `threads` (0: one per core). A faster or
+// slower machine, or one busy with other work, takes proportionally less or more.
+struct SolveCostEstimate {
+  int unknowns = 0;
+  int threads = 0;               // used
+  double matrix_bytes = 0.0;     // the one matrix, 16 bytes an entry
+  double fill_s = 0.0;           // the matrix fill
+  double factorisation_s = 0.0;  // symmetric factorisation, condition estimate and solve
+  double total_s() const { return fill_s + factorisation_s; }
+};
+SolveCostEstimate EstimateSolveCost(int unknowns, int threads = 0);
+// The line a program prints on stderr before a long solve: the matrix's memory and the
+// estimate's times, said to be an estimate. Empty when the estimate is under the progress
+// delay (WIREFIELD_PROGRESS_AFTER, default 3 s) or WIREFIELD_PROGRESS=0 (docs/commands.md,
+// "Progress and estimates").
+std::string LongSolveNotice(int unknowns, int threads = 0);
+
 // The version string, e.g. "0.1.0".
 std::string Version();
 

@@ -192,6 +192,7 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
     const SolveResult solved = at_pattern.Solve(f_hz);
     PatternOptions pattern_options;
     pattern_options.step_deg = options.pattern_step_deg;
+    pattern_options.threads = fill_threads;  // one when the rows share the cores
     pattern_options.azimuth_cut_elevation_deg = options.elevation_deg;
     const PatternResult pattern = ComputePattern(at_pattern, solved, pattern_options);
     figures.pattern_frequency_hz = f_hz;

@@ -466,8 +466,13 @@ SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency
   }
   const int threads = fill_threads > 0 ? fill_threads : SimulationAccess::FillThreads(simulation);
   const auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z =
-      fill::AssembleImpedance(mesh, frequency_hz, SimulationAccess::NearField(simulation), threads);
+  Eigen::MatrixXcd z;
+  {
+    const auto progress =
+        SolveStageProgress(static_cast<int>(mesh.bases.size()), "fill", /*counted=*/true);
+    z = fill::AssembleImpedance(mesh, frequency_hz, SimulationAccess::NearField(simulation),
+                                threads, progress.get());
+  }
   const double fill_time_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   const auto t1 = std::chrono::steady_clock::now();

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "core/constants.hpp"
+#include "core/progress.hpp"
 #include "post/far_field.hpp"
 
 namespace wirefield {
@@ -64,19 +65,40 @@ double InputPower(const SolveResult& solved) {
 struct Evaluator {
   post::FarFieldSource source;
   double input_w;
+  int threads = 1;
+  core::Progress* progress = nullptr;  // counts directions, when there is one
 
   FarFieldPoint At(double elevation_deg, double azimuth_deg) const {
     FarFieldPoint p;
     p.elevation_deg = elevation_deg;
     p.azimuth_deg = azimuth_deg;
-    const auto [et, ep] = source.Field((90.0 - elevation_deg) * kDeg, azimuth_deg * kDeg);
-    p.e_theta_v = et;
-    p.e_phi_v = ep;
+    const double theta = (90.0 - elevation_deg) * kDeg, phi = azimuth_deg * kDeg;
+    // Gains from the field about the antenna's centre: the same to the bit wherever the
+    // antenna stands (sideways, over a ground); the reported phasors refer to the origin.
+    const auto [et, ep] = source.CentredField(theta, phi);
+    const Complex shift = source.CentrePhase(theta, phi);
+    p.e_theta_v = et * shift;
+    p.e_phi_v = ep * shift;
     const double scale = 4.0 * core::kPi / (2.0 * core::kEta0_ohm * input_w);
     p.gain_vertical_dbi = ToDbi(std::norm(et) * scale);
     p.gain_horizontal_dbi = ToDbi(std::norm(ep) * scale);
     p.gain_dbi = ToDbi((std::norm(et) + std::norm(ep)) * scale);
     return p;
+  }
+
+  // The points of `directions` ({elevation, azimuth} pairs), evaluated on `threads` threads.
+  std::vector<FarFieldPoint> AtAll(const std::vector<std::pair<double, double>>& directions) const {
+    std::vector<FarFieldPoint> points(directions.size());
+    constexpr int kChunk = 64;  // directions per task and per progress count
+    const int n = static_cast<int>(directions.size());
+    core::ParallelFor((n + kChunk - 1) / kChunk, threads, [&](int c) {
+      const int end = std::min(n, (c + 1) * kChunk);
+      for (int i = c * kChunk; i < end; ++i) {
+        points[i] = At(directions[i].first, directions[i].second);
+      }
+      if (progress) progress->Advance(end - c * kChunk);
+    });
+    return points;
   }
 };
 
@@ -88,7 +110,7 @@ Evaluator MakeEvaluator(const Simulation& simulation, const SolveResult& solved)
         "non-zero voltage");
   }
   return {post::FarFieldSource(solved.currents, solved.frequency_hz, simulation.model().ground),
-          input_w};
+          input_w, 1, nullptr};
 }
 
 void Append(PatternCut* cut, double angle_deg, const FarFieldPoint& p) {
@@ -103,7 +125,10 @@ PatternCut AzimuthCut(const Evaluator& eval, double elevation_deg, int n_az, dou
   PatternCut cut;
   cut.plane = "azimuth";
   cut.fixed_angle_deg = elevation_deg;
-  for (int ia = 0; ia <= n_az; ++ia) Append(&cut, ia * step, eval.At(elevation_deg, ia * step));
+  std::vector<std::pair<double, double>> directions;
+  for (int ia = 0; ia <= n_az; ++ia) directions.emplace_back(elevation_deg, ia * step);
+  const std::vector<FarFieldPoint> points = eval.AtAll(directions);
+  for (int ia = 0; ia <= n_az; ++ia) Append(&cut, ia * step, points[ia]);
   return cut;
 }
 
@@ -188,7 +213,7 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
         {"--azimuth", 0, 0},
         fmt::format("the elevation cut's azimuth must lie in 0..360 degrees, not {}", *az));
   }
-  const Evaluator eval = MakeEvaluator(simulation, solved);
+  Evaluator eval = MakeEvaluator(simulation, solved);
   PatternResult r;
   r.frequency_hz = solved.frequency_hz;
   // A whole number of steps per 90 degrees, no coarser than asked.
@@ -202,17 +227,33 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   const int search_per_quadrant =
       std::min(per_quadrant, static_cast<int>(std::ceil(90.0 / kSearchStepDeg - 1e-9)));
   const double search_step = 90.0 / search_per_quadrant;
-  double best = -INFINITY;
+  std::vector<std::pair<double, double>> search;
   for (int ie = over_ground ? 0 : -search_per_quadrant; ie <= search_per_quadrant; ++ie) {
     const double el = ie * search_step;
     const bool pole = std::abs(ie) == search_per_quadrant;
     for (int ia = 0; ia < (pole ? 1 : 4 * search_per_quadrant); ++ia) {
-      const FarFieldPoint p = eval.At(el, ia * search_step);
-      if (p.gain_dbi > best) {
-        best = p.gain_dbi;
-        r.max_gain_dbi = p.gain_dbi;
-        r.max_gain_elevation_deg = el;
-        r.max_gain_azimuth_deg = ia * search_step;
+      search.emplace_back(el, ia * search_step);
+    }
+  }
+  // The work in directions, for the progress lines: the search, the low-angle and the two
+  // cuts, and the power integration's grid (a few dozen more for the refinement).
+  const int cut_points = (over_ground ? 2 : 4) * per_quadrant + 1;
+  const double directions =
+      static_cast<double>(search.size()) +
+      static_cast<double>(n_az + 1) * (std::size(kLowAngleElevations_deg) + 1) + cut_points +
+      static_cast<double>(eval.source.power_grid().directions());
+  core::Progress progress("pattern", directions);
+  eval.threads = options.threads > 0 ? options.threads : core::CoreCount();
+  eval.progress = &progress;
+  double best = -INFINITY;
+  {
+    const std::vector<FarFieldPoint> points = eval.AtAll(search);
+    for (size_t i = 0; i < points.size(); ++i) {
+      if (points[i].gain_dbi > best) {
+        best = points[i].gain_dbi;
+        r.max_gain_dbi = points[i].gain_dbi;
+        r.max_gain_elevation_deg = search[i].first;
+        r.max_gain_azimuth_deg = search[i].second;
       }
     }
   }
@@ -313,11 +354,16 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
   r.elevation_cut.fixed_angle_deg = cut_az;
   const int cut_hi = over_ground ? 2 * per_quadrant : 3 * per_quadrant;
   const int cut_lo = over_ground ? 0 : -per_quadrant;
-  for (int i = cut_lo; i <= cut_hi; ++i) {
-    const double a = i * step;
-    const double el = a <= 90.0 ? a : 180.0 - a;
-    const double az = a <= 90.0 ? cut_az : cut_az + 180.0;
-    Append(&r.elevation_cut, a, eval.At(el, std::fmod(az, 360.0)));
+  {
+    std::vector<std::pair<double, double>> cut;
+    for (int i = cut_lo; i <= cut_hi; ++i) {
+      const double a = i * step;
+      const double el = a <= 90.0 ? a : 180.0 - a;
+      const double az = a <= 90.0 ? cut_az : cut_az + 180.0;
+      cut.emplace_back(el, std::fmod(az, 360.0));
+    }
+    const std::vector<FarFieldPoint> points = eval.AtAll(cut);
+    for (int i = cut_lo; i <= cut_hi; ++i) Append(&r.elevation_cut, i * step, points[i - cut_lo]);
   }
   if (over_ground) {
     r.elevation_cut.beamwidth_deg = Beamwidth(r.elevation_cut, false);
@@ -362,7 +408,7 @@ PatternResult ComputePattern(const Simulation& simulation, const SolveResult& so
 
   // Power budget and the energy check.
   r.power.input_w = eval.input_w;
-  r.power.radiated_w = eval.source.RadiatedPower();
+  r.power.radiated_w = eval.source.RadiatedPower(eval.threads, [&](int n) { progress.Advance(n); });
   for (const LoadResult& l : solved.loads) r.power.loads_w += l.power_w;
   r.power.wires_w = solved.wire_loss_w;
   r.power.efficiency_computed = r.power.radiated_w / r.power.input_w;

@@ -7,12 +7,14 @@
 
 #include <chrono>
 #include <cmath>
+#include <cstdlib>
 #include <fstream>
 #include <sstream>
 #include <thread>
 
 #include "api/simulation_access.hpp"
 #include "core/constants.hpp"
+#include "core/progress.hpp"
 #include "fill/assemble.hpp"
 #include "fill/conductor.hpp"
 #include "geometry/mesh.hpp"
@@ -124,14 +126,62 @@ int ResolveFillThreads(int asked) {
   return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
 }
 
+// Factors of the solve-cost estimate, measured on the project's 2-core machine (quiet, load
+// below 1; docs/performance.md, "Cost of a large solve"): `solve --no-mesh-estimate` of a
+// straight dipole of 4000 and 6000 unknowns filled in 0.4-0.9 s and 2.0 s on two threads
+// (50-110 ns per entry and thread: the matrix outgrows the cache), and factorised (zsytrf,
+// zsycon, zsytrs and the checks, both cores) in 1.4-1.5 s and 4.0 s, 3.7e-11 to 4.5e-11
+// core-seconds per n^3.
+constexpr double kFillSecondsPerEntry = 100e-9;
+constexpr double kFactorCoreSecondsPerCube = 4.2e-11;
+
 }  // namespace
+
+SolveCostEstimate EstimateSolveCost(int unknowns, int threads) {
+  SolveCostEstimate e;
+  e.unknowns = unknowns;
+  e.threads = ResolveFillThreads(threads);
+  const double n = unknowns;
+  e.matrix_bytes = 16.0 * n * n;
+  e.fill_s = kFillSecondsPerEntry * n * n / e.threads;
+  // The factorisation runs on the BLAS library's threads, one per core, whatever the fill's.
+  e.factorisation_s = kFactorCoreSecondsPerCube * n * n * n / core::CoreCount();
+  return e;
+}
+
+std::string LongSolveNotice(int unknowns, int threads) {
+  const char* off = std::getenv("WIREFIELD_PROGRESS");
+  if (off && std::string(off) == "0") return {};
+  const SolveCostEstimate e = EstimateSolveCost(unknowns, threads);
+  if (e.total_s() < core::ProgressFromEnvironment().after_s) return {};
+  return fmt::format(
+      "wirefield: {} unknowns: the matrix takes {:.3g} GB of memory; expect about {} for the "
+      "fill and {} for the factorisation on {} cores (an estimate: n^2 and n^3 scaling "
+      "calibrated on a 2-core 2.1 GHz machine; a busy or different machine takes more or less)",
+      unknowns, e.matrix_bytes / 1e9, core::FormatDuration(e.fill_s),
+      core::FormatDuration(e.factorisation_s), core::CoreCount());
+}
+
+std::unique_ptr<core::Progress> SolveStageProgress(int unknowns, const std::string& stage,
+                                                   bool counted, double expected_s) {
+  const core::ProgressSettings settings = core::ProgressFromEnvironment();
+  // No ticker thread for a solve that ends before its first line would be due.
+  if (!settings.enabled || EstimateSolveCost(unknowns).total_s() < 0.5 * settings.after_s) {
+    return nullptr;
+  }
+  return std::make_unique<core::Progress>(stage, counted ? 1.0 : 0.0, expected_s, settings);
+}
 
 SolveResult Simulation::Solve(double frequency_hz, int fill_threads) const {
   const geometry::Mesh& mesh = impl_->mesh;
   CheckFrequency(impl_->model, frequency_hz);
   const auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field,
-                                               ResolveFillThreads(fill_threads));
+  Eigen::MatrixXcd z;
+  {
+    const auto progress = SolveStageProgress(unknowns(), "fill", true);
+    z = fill::AssembleImpedance(mesh, frequency_hz, impl_->near_field,
+                                ResolveFillThreads(fill_threads), progress.get());
+  }
   return SimulationAccess::SolveFilled(*this, frequency_hz, std::move(z), Seconds(t0));
 }
 
@@ -183,6 +233,10 @@ SolveResult SimulationAccess::SolveFilled(const Simulation& simulation, double f
     }
   }
   if (!from_reduced) {
+    // The factorisation cannot say how far it is: its lines show the time against the
+    // estimate.
+    const double expected_s = EstimateSolveCost(r.unknowns).factorisation_s;
+    const auto progress = SolveStageProgress(r.unknowns, "factorisation", false, expected_s);
     sol = solve::SolveDense(std::move(z), v);
     r.condition_number = 1.0 / sol.reciprocal_condition;  // SolveDense refuses rcond < 1e-14
   }

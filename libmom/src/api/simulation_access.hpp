@@ -4,7 +4,10 @@
 #pragma once
 
 #include <Eigen/Dense>
+#include <memory>
+#include <string>
 
+#include "core/progress.hpp"
 #include "fill/assemble.hpp"
 #include "geometry/mesh.hpp"
 #include "wirefield/simulation.hpp"
@@ -37,5 +40,11 @@ struct SimulationAccess {
                                  const ReducedSpace* reduced = nullptr,
                                  Eigen::VectorXcd* currents = nullptr, bool* projected = nullptr);
 };
+
+// A progress reporter (core/progress.hpp) for the fill (counted: the fill says how far it
+// is) or the factorisation (timed against expected_s) of a solve of `unknowns`; null when
+// progress lines are off or the solve is expected to end before the first line is due.
+std::unique_ptr<core::Progress> SolveStageProgress(int unknowns, const std::string& stage,
+                                                   bool counted, double expected_s = 0.0);
 
 }  // namespace wirefield

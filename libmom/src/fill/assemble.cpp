@@ -55,7 +55,7 @@ void Symmetrize(PairMoments* m) {
 // the same for any number of fill threads.
 Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_hz,
                                   const NearFieldCache& cache, int fill_threads, bool direct,
-                                  bool images);
+                                  bool images, core::Progress* progress = nullptr);
 
 }  // namespace
 
@@ -157,8 +157,9 @@ Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_
 }
 
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
-                                   const NearFieldCache& cache, int fill_threads) {
-  return AssembleSelected(mesh, frequency_hz, cache, fill_threads, true, true);
+                                   const NearFieldCache& cache, int fill_threads,
+                                   core::Progress* progress) {
+  return AssembleSelected(mesh, frequency_hz, cache, fill_threads, true, true, progress);
 }
 
 ImpedanceParts AssembleImpedanceParts(const geometry::Mesh& mesh, double frequency_hz,
@@ -175,7 +176,7 @@ namespace {
 
 Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_hz,
                                   const NearFieldCache& cache, int fill_threads, bool direct,
-                                  bool images) {
+                                  bool images, core::Progress* progress) {
   const int n = static_cast<int>(mesh.bases.size());
   const int ns = static_cast<int>(mesh.segments.size());
   const double omega = 2.0 * core::kPi * frequency_hz;
@@ -388,7 +389,10 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
   std::vector<SpillRows> spills(blocks);
   // Thread t fills blocks t, t + threads, ...: the blocks have equal work, so this balances.
   auto run = [&](int t) {
-    for (int block = t; block < blocks; block += threads) work(block, &spills[block]);
+    for (int block = t; block < blocks; block += threads) {
+      work(block, &spills[block]);
+      if (progress) progress->Advance(1.0 / blocks);
+    }
   };
   if (threads == 1) {
     run(0);

@@ -8,6 +8,7 @@
 #include <functional>
 #include <vector>
 
+#include "core/progress.hpp"
 #include "fill/kernel.hpp"
 #include "geometry/mesh.hpp"
 #include "wirefield/model.hpp"
@@ -41,8 +42,10 @@ NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh, int threads = 1);
 
 // The antenna's own impedance matrix (no loads), n_bases x n_bases, symmetric, filled by
 // fill_threads threads (at most 32 help; the matrix is bit-identical for any count).
+// progress (optional) is advanced by the share of the fill each block completes (1 in all).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz,
-                                   const NearFieldCache& cache, int fill_threads = 1);
+                                   const NearFieldCache& cache, int fill_threads = 1,
+                                   core::Progress* progress = nullptr);
 // Same, building the cache on the way (single solves, tests).
 Eigen::MatrixXcd AssembleImpedance(const geometry::Mesh& mesh, double frequency_hz);
 // The same matrix in two parts, Z = direct + image: the pairs of real segments, and the pairs

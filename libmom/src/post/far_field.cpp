@@ -10,6 +10,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "core/progress.hpp"
 
 namespace wirefield::post {
 namespace {
@@ -59,16 +60,37 @@ CVec3 SumElements(const std::vector<Element>& elements, const std::vector<Comple
 
 }  // namespace
 
+PowerGrid PowerGridFor(double wavenumber_per_m, double radius_m) {
+  // Angular band limit of the pattern: about k * radius harmonics in each angle, radius taken
+  // from the phase centre (the intensity does not change when the antenna moves, so neither
+  // may its grid).
+  const int bandwidth = static_cast<int>(std::ceil(wavenumber_per_m * radius_m)) + 8;
+  return {std::max(4, bandwidth / 4 + 2), std::max(16, 2 * bandwidth + 2)};
+}
+
 FarFieldSource::FarFieldSource(const std::vector<SegmentCurrent>& currents, double frequency_hz,
                                const GroundSpec& ground)
     : k_(2.0 * core::kPi * frequency_hz / core::kSpeedOfLight_m_per_s),
       upper_half_only_(ground.kind != GroundKind::kFree),
       ground_(ground, frequency_hz) {
+  // The phase centre: the middle of the bounding box, at height 0 over a ground.
+  if (!currents.empty()) {
+    Vec3 lo = Vec3::Constant(INFINITY), hi = Vec3::Constant(-INFINITY);
+    for (const SegmentCurrent& c : currents) {
+      for (const auto& p : {c.start_m, c.end_m}) {
+        const Vec3 v(p[0], p[1], p[2]);
+        lo = lo.cwiseMin(v);
+        hi = hi.cwiseMax(v);
+      }
+    }
+    centre_m_ = 0.5 * (lo + hi);
+    if (upper_half_only_) centre_m_.z() = 0.0;
+  }
   for (const SegmentCurrent& c : currents) {
-    const Vec3 a(c.start_m[0], c.start_m[1], c.start_m[2]);
-    const Vec3 b(c.end_m[0], c.end_m[1], c.end_m[2]);
+    const Vec3 a = Vec3(c.start_m[0], c.start_m[1], c.start_m[2]) - centre_m_;
+    const Vec3 b = Vec3(c.end_m[0], c.end_m[1], c.end_m[2]) - centre_m_;
     elements_.push_back({PointIndex(a), PointIndex(b), b - a, c.current_start_a, c.current_end_a});
-    // The image doubles the extent of the source for the band limit of the pattern.
+    // Over a ground the image lies as far from the centre (height 0) as the wire itself.
     extent_m_ = std::max({extent_m_, a.norm(), b.norm()});
   }
   static std::atomic<std::uint64_t> next_id{1};
@@ -128,7 +150,7 @@ CVec3 FarFieldSource::RadiationVector(const Vec3& rhat) const {
   return direct + ground_.WeightsToward(rhat).vector_dyadic * mirrored;
 }
 
-std::pair<Complex, Complex> FarFieldSource::Field(double theta_rad, double phi_rad) const {
+std::pair<Complex, Complex> FarFieldSource::CentredField(double theta_rad, double phi_rad) const {
   const double st = std::sin(theta_rad), ct = std::cos(theta_rad);
   const double sp = std::sin(phi_rad), cp = std::cos(phi_rad);
   const Vec3 rhat(st * cp, st * sp, ct);
@@ -139,33 +161,49 @@ std::pair<Complex, Complex> FarFieldSource::Field(double theta_rad, double phi_r
   return {factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
 }
 
+Complex FarFieldSource::CentrePhase(double theta_rad, double phi_rad) const {
+  const double st = std::sin(theta_rad);
+  const Vec3 rhat(st * std::cos(phi_rad), st * std::sin(phi_rad), std::cos(theta_rad));
+  return std::polar(1.0, k_ * rhat.dot(centre_m_));
+}
+
+std::pair<Complex, Complex> FarFieldSource::Field(double theta_rad, double phi_rad) const {
+  // Back from the centre to the origin: the whole source moved by centre_m_.
+  const auto [et, ep] = CentredField(theta_rad, phi_rad);
+  const Complex shift = CentrePhase(theta_rad, phi_rad);
+  return {et * shift, ep * shift};
+}
+
 double FarFieldSource::Intensity(double theta_rad, double phi_rad) const {
-  const auto [et, ep] = Field(theta_rad, phi_rad);
+  const auto [et, ep] = CentredField(theta_rad, phi_rad);
   return (std::norm(et) + std::norm(ep)) / (2.0 * core::kEta0_ohm);
 }
 
-double FarFieldSource::RadiatedPower() const {
-  // Angular band limit of the pattern: about k * extent harmonics in each angle.
-  const int bandwidth = static_cast<int>(std::ceil(k_ * extent_m_)) + 8;
-  const int panels = std::max(4, bandwidth / 4 + 2);
-  const int n_phi = std::max(16, 2 * bandwidth + 2);
+double FarFieldSource::RadiatedPower(int threads, const std::function<void(int)>& done) const {
+  const PowerGrid grid = power_grid();
   using G = boost::math::quadrature::gauss<double, 8>;
+  // The 8-point rule stores its 4 non-negative abscissae: ring r is panel r / 8, abscissa
+  // (r % 8) / 2, on the side r % 2.
   const double u_lo = upper_half_only_ ? 0.0 : -1.0;
-  const double panel = (1.0 - u_lo) / panels;
-  double power = 0.0;
-  for (int p = 0; p < panels; ++p) {
+  const double panel = (1.0 - u_lo) / grid.panels;
+  // Each elevation's weighted ring sum on its own, then added in order: the same to the bit
+  // for any thread count.
+  std::vector<double> rings(static_cast<size_t>(grid.rings()));
+  core::ParallelFor(grid.rings(), threads, [&](int r) {
+    const int p = r / 8, i = (r % 8) / 2, sign = r % 2 == 0 ? -1 : 1;
     const double mid = u_lo + (p + 0.5) * panel;
-    for (size_t i = 0; i < G::abscissa().size(); ++i) {
-      for (int sign : {-1, 1}) {
-        const double u = mid + sign * 0.5 * panel * G::abscissa()[i];
-        const double w = 0.5 * panel * G::weights()[i];
-        const double theta = std::acos(std::clamp(u, -1.0, 1.0));
-        double ring = 0.0;
-        for (int q = 0; q < n_phi; ++q) ring += Intensity(theta, 2.0 * core::kPi * q / n_phi);
-        power += w * ring * (2.0 * core::kPi / n_phi);
-      }
+    const double u = mid + sign * 0.5 * panel * G::abscissa()[i];
+    const double w = 0.5 * panel * G::weights()[i];
+    const double theta = std::acos(std::clamp(u, -1.0, 1.0));
+    double ring = 0.0;
+    for (int q = 0; q < grid.phi_points; ++q) {
+      ring += Intensity(theta, 2.0 * core::kPi * q / grid.phi_points);
     }
-  }
+    rings[r] = w * ring * (2.0 * core::kPi / grid.phi_points);
+    if (done) done(grid.phi_points);
+  });
+  double power = 0.0;
+  for (double ring : rings) power += ring;
   return power;
 }
 
