@@ -1,7 +1,8 @@
 // Command-line program: `wirefield batch MODEL`: one model over a grid of grounds (--grounds),
 // `let` values (--vary) and a sweep's frequencies (--band or --from/--to), one row per grid
 // point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
-// Flags -> BatchOptions -> RunBatchFile -> FormatBatch* -> stdout and --csv (written whole).
+// Flags -> BatchOptions -> RunBatchFiles -> FormatBatch* -> stdout and --csv; a grid past
+// 100000 rows (--yes-large) streams its rows into the CSV and gets a short account on stdout.
 // Ctrl-C (SIGINT) stops the grid after the rows in flight: their rows go to CSV.partial,
 // the CSV itself is left as it was, and the exit code is 130.
 #include "wirefield/batch.hpp"
@@ -75,9 +76,10 @@ class InterruptHandler {
   bool installed_ = false;
 };
 
-// After Ctrl-C: the finished rows to CSV.partial (when --csv), a note on stderr, exit 130.
-int ReportInterrupted(const BatchFlags& flags, const BatchResult& result) {
-  const int finished = static_cast<int>(result.rows.size());
+// After Ctrl-C: the finished rows (csv_text) to CSV.partial (when --csv), a note on stderr,
+// exit 130.
+int ReportInterrupted(const BatchFlags& flags, const BatchResult& result, int finished,
+                      const std::string& csv_text) {
   if (!Given(flags.csv_option)) {
     fmt::print(stderr,
                "batch: interrupted after {} of {} rows; nothing was written (with --csv FILE "
@@ -86,12 +88,36 @@ int ReportInterrupted(const BatchFlags& flags, const BatchResult& result) {
     return kExitInterrupted;
   }
   const std::string partial_path = flags.csv_path + ".partial";
-  WriteFilesAtomically({OutputFile{partial_path, FormatBatchCsv(result), "partial CSV"}});
+  WriteFilesAtomically({OutputFile{partial_path, csv_text, "partial CSV"}});
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
              finished, result.rows_planned, partial_path, flags.csv_path);
   return kExitInterrupted;
+}
+
+// The most rows the text and JSON reports take: they hold every row in memory (some kB a
+// row). A larger grid (with --yes-large) streams its rows to --csv.
+constexpr double kMaxRowsInReport = 100000;
+
+// A streamed grid needs --csv for its rows, and has no JSON report (which lists every row).
+void RequireCsvForStreaming(const BatchFlags& flags, double rows) {
+  const std::string what = fmt::format(
+      "the grid has {:.0f} rows, more than {:.0f}, the most the text and JSON reports hold "
+      "(they keep every row in memory)",
+      rows, kMaxRowsInReport);
+  if (!Given(flags.csv_option)) {
+    throw InputError({"batch", 0, 0},
+                     fmt::format("{}; give --csv FILE: the rows then go to FILE as they finish "
+                                 "and stdout gets a short account",
+                                 what));
+  }
+  if (flags.model.json) {
+    throw InputError({"batch", 0, 0},
+                     fmt::format("{}; drop --json: the rows go to the --csv file and stdout gets "
+                                 "a short text account",
+                                 what));
+  }
 }
 
 // Progress on a terminal only: "batch: [#######.............] 12/40 rows", rewritten in place.
@@ -141,17 +167,39 @@ int RunBatchCommand(const BatchFlags& flags) {
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
   paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
+
+  // A grid past kMaxRowsInReport streams: each row goes to the CSV text as it finishes and is
+  // dropped, and stdout gets a short account instead of the table and summary.
+  const double rows = BatchRowCount(options) * static_cast<double>(paths.size());
+  const bool stream = options.allow_large && rows > kMaxRowsInReport && rows <= kMaxBatchRowsEver;
+  if (stream) RequireCsvForStreaming(flags, rows);
+  std::string csv_text;
+  int streamed = 0;
+  if (stream) {
+    options.row_sink = [&csv_text, &streamed](const BatchResult& run, const BatchRow& row) {
+      if (streamed++ == 0) csv_text = FormatBatchCsvHeader(run);
+      csv_text += FormatBatchCsvRow(run, row);
+    };
+  }
+
   const InterruptHandler on_interrupt;
   const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
     if (show_progress) ShowProgress(done, total);
   });
   PrintWarnings(result.warnings);
-  if (result.interrupted) return ReportInterrupted(flags, result);
+  if (!stream && Given(flags.csv_option)) csv_text = FormatBatchCsv(result);
+  if (stream && streamed == 0) csv_text = FormatBatchCsvHeader(result);
+  if (result.interrupted) {
+    return ReportInterrupted(flags, result,
+                             stream ? streamed : static_cast<int>(result.rows.size()), csv_text);
+  }
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
-  if (Given(flags.csv_option)) files.push_back({flags.csv_path, FormatBatchCsv(result), "CSV"});
-  std::string output = flags.model.json ? FormatBatchJson(result) : FormatBatchText(result);
+  if (Given(flags.csv_option)) files.push_back({flags.csv_path, std::move(csv_text), "CSV"});
+  std::string output = stream             ? FormatBatchStreamedText(result, flags.csv_path)
+                       : flags.model.json ? FormatBatchJson(result)
+                                          : FormatBatchText(result);
   WriteFilesThenReport(files, output, flags.model.json);
   return 0;
 }

@@ -312,6 +312,23 @@ TEST(BatchCommand, LargeGridNeedsYesLarge) {
             "coarser --vary steps, or pass --yes-large to run it anyway\n");
 }
 
+// Past 100000 rows the rows stream to the CSV file as they finish; the text and JSON reports,
+// which hold every row in memory, are refused before any row runs.
+TEST(BatchCommand, VeryLargeGridNeedsCsvAndNoJson) {
+  const std::vector<std::string> large = Args({"batch", Dipole(), "--vary", "total=5m:15m:0.1m",
+                                               "--vary", "height=1m:1000m:1m", "--yes-large"});
+  EXPECT_EQ(RunBadInput(large),
+            "batch: error: the grid has 101000 rows, more than 100000, the most the text and "
+            "JSON reports hold (they keep every row in memory); give --csv FILE: the rows then "
+            "go to FILE as they finish and stdout gets a short account\n");
+  std::vector<std::string> with_json = large;
+  for (const char* extra : {"--csv", "never_written.csv", "--json"}) with_json.push_back(extra);
+  EXPECT_EQ(RunBadInput(with_json),
+            "batch: error: the grid has 101000 rows, more than 100000, the most the text and "
+            "JSON reports hold (they keep every row in memory); drop --json: the rows go to the "
+            "--csv file and stdout gets a short text account\n");
+}
+
 TEST(BatchCommand, BadOptionsReadLikeTheOtherCommands) {
   EXPECT_EQ(RunBadInput({"batch", Dipole()}),
             "batch: error: give the frequencies to sweep: --from F1 --to F2 with --step DF or "

@@ -2,8 +2,14 @@
 // form "FILE:LINE:COLUMN: error: MESSAGE" (or "FILE: error:" when there is no line), with exit
 // code 2 and nothing on stdout (docs/commands.md, "Exit codes"). A few representative cases
 // per class; the model stage's own tests pin every message of the language.
+#include <fcntl.h>
 #include <gtest/gtest.h>
+#include <sys/stat.h>
+#include <unistd.h>
 
+#include <cerrno>
+#include <cstdio>
+#include <cstring>
 #include <string>
 
 #include "cli/program_runner.hpp"
@@ -85,6 +91,61 @@ TEST(InputErrors, MissingFileNamesThePath) {
   const std::string path = ModelsDir() + "/no_such_model.wire";
   ExpectBadInput(RunWirefield({"solve", path}),
                  path + ": error: cannot read the model file: No such file or directory\n");
+}
+
+// A FIFO as an input once blocked forever: with no writer (in open) and with a writer that
+// keeps it open (in read). Only regular files are read. RunWirefield kills a run that passes
+// kRunTimeLimit_s, so these tests end even where the program would hang.
+std::string MakeFifo(const std::string& name) {
+  const std::string path = WriteScratchFile(name, "");
+  std::remove(path.c_str());
+  EXPECT_EQ(::mkfifo(path.c_str(), 0600), 0) << std::strerror(errno);
+  return path;
+}
+
+TEST(InputErrors, ModelThatIsAFifoWithoutAWriterIsRefusedAtOnce) {
+  const std::string path = MakeFifo("no_writer.wire");
+  ExpectBadInput(RunWirefield({"solve", path}),
+                 path +
+                     ": error: cannot read the model file: it is a FIFO (named pipe), not a "
+                     "regular file; give the path of a file on disk\n");
+  std::remove(path.c_str());
+}
+
+TEST(InputErrors, ModelThatIsAFifoHeldOpenByAWriterIsRefusedAtOnce) {
+  const std::string path = MakeFifo("held_open.wire");
+  // O_RDWR opens a FIFO at once on Linux and holds it open as a writer that never writes.
+  const int writer = ::open(path.c_str(), O_RDWR | O_NONBLOCK);
+  ASSERT_GE(writer, 0) << std::strerror(errno);
+  ExpectBadInput(RunWirefield({"batch", path, "--from", "14MHz", "--to", "15MHz", "--points", "3"}),
+                 path +
+                     ": error: cannot read the model file: it is a FIFO (named pipe), not a "
+                     "regular file; give the path of a file on disk\n");
+  ::close(writer);
+  std::remove(path.c_str());
+}
+
+TEST(InputErrors, MeasuredTouchstoneThatIsAFifoIsRefusedAtOnce) {
+  const std::string path = MakeFifo("measured.s1p");
+  const int writer = ::open(path.c_str(), O_RDWR | O_NONBLOCK);
+  ASSERT_GE(writer, 0) << std::strerror(errno);
+  ExpectBadInput(RunWirefield({"sweep", ModelsDir() + "/hiking_club_dipole.wire", "--band", "20m",
+                               "--measured", path}),
+                 path +
+                     ": error: cannot read the Touchstone file: it is a FIFO (named pipe), "
+                     "not a regular file; give the path of a file on disk\n");
+  ::close(writer);
+  std::remove(path.c_str());
+}
+
+TEST(InputErrors, ModelThatIsADirectoryOrADeviceIsRefused) {
+  ExpectBadInput(RunWirefield({"solve", ModelsDir()}),
+                 ModelsDir() +
+                     ": error: cannot read the model file: it is a directory, not a "
+                     "regular file; give the path of a file on disk\n");
+  ExpectBadInput(RunWirefield({"pattern", "/dev/null"}),
+                 "/dev/null: error: cannot read the model file: it is a character device, not a "
+                 "regular file; give the path of a file on disk\n");
 }
 
 TEST(InputErrors, ModelWithoutAFeedSaysWhatToAdd) {

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <atomic>
+#include <cstddef>
 #include <functional>
 #include <optional>
 #include <string>
@@ -58,6 +59,34 @@ BatchVariable ParseVary(const std::string& text);
 
 // Grids larger than this need BatchOptions::allow_large (the CLI's --yes-large).
 inline constexpr int kMaxBatchRows = 2000;
+// No grid runs with more rows than this, --yes-large or not: a row's index is an int. At a
+// millisecond a row such a grid would run for weeks.
+inline constexpr double kMaxBatchRowsEver = 2147483647.0;
+
+// The rows of a grid, each computed from its index alone, so that no row costs memory before
+// it runs: the ground varies slowest, then each dimension in the order given (the --vary
+// variables; RunBatchFiles puts the models first), the last fastest.
+class BatchGrid {
+ public:
+  struct Point {
+    size_t ground = 0;
+    std::vector<size_t> values;  // the index of the value of each dimension
+  };
+  // ground_count 0 counts as one (the model's own ground); a dimension of size 0 empties it.
+  BatchGrid(size_t ground_count, std::vector<size_t> dimension_sizes);
+  // The number of rows, as a double: a grid may be far beyond any integer before it is refused.
+  double rows() const { return rows_; }
+  // The ground and values of row `index` (0 <= index < rows()).
+  Point At(size_t index) const;
+
+ private:
+  size_t ground_count_ = 1;
+  std::vector<size_t> sizes_;
+  double rows_ = 1.0;
+};
+
+struct BatchRow;
+struct BatchResult;
 
 struct BatchOptions {
   // Grounds to run; empty: the model's own ground only. Cost: one row per ground per setting.
@@ -98,6 +127,12 @@ struct BatchOptions {
   // no new row starts; rows in flight finish and the result holds the rows finished so far,
   // with BatchResult::interrupted set. Costs one atomic load per row.
   const std::atomic<bool>* cancel = nullptr;
+  // Takes each row as it finishes, in grid order, one call at a time (from the worker
+  // threads); the result's `rows` then stay empty (its other fields are filled before the
+  // first call), so memory does not grow with the grid. The rows that finish out of order wait
+  // for the ones before them: at most a few per worker thread. Empty: rows are kept in
+  // BatchResult::rows.
+  std::function<void(const BatchResult& run, const BatchRow& row)> row_sink;
 };
 
 // What one row does in one span of its sweep (a band, or the --from/--to range): the sweep's
@@ -159,7 +194,7 @@ struct BatchResult {
   double elevation_deg = 10.0;
   double pattern_step_deg = 2.0;
   double z0_ohm = 50.0;
-  std::vector<BatchRow> rows;  // in grid order, whatever the thread count
+  std::vector<BatchRow> rows;  // in grid order, whatever the thread count (empty with row_sink)
   // True when BatchOptions::cancel stopped the run: `rows` then holds only the rows that
   // finished (in grid order; BatchRow::index says where each sits), of rows_planned.
   bool interrupted = false;
@@ -230,5 +265,13 @@ std::string FormatBatchText(const BatchResult& result);
 std::string FormatBatchJson(const BatchResult& result);
 // One CSV row per grid row (failed rows too, with their error), header row with units.
 std::string FormatBatchCsv(const BatchResult& result);
+// FormatBatchCsv in pieces, for rows that stream (BatchOptions::row_sink): the header line,
+// then one line per row (the row is checked to be finite first).
+std::string FormatBatchCsvHeader(const BatchResult& result);
+std::string FormatBatchCsvRow(const BatchResult& result, const BatchRow& row);
+// The text report of a run whose rows streamed to the CSV file csv_path (BatchOptions::
+// row_sink): the grid, the count of rows and failures, the warnings and the safety note; no
+// table and no summary, which would need every row.
+std::string FormatBatchStreamedText(const BatchResult& result, const std::string& csv_path);
 
 }  // namespace wirefield

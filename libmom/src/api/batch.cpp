@@ -12,6 +12,7 @@
 #include <atomic>
 #include <chrono>
 #include <cmath>
+#include <condition_variable>
 #include <exception>
 #include <filesystem>
 #include <map>
@@ -253,6 +254,17 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
   return row;
 }
 
+// The grid's size as a product: "1 ground x 101 values of total x 20 values of height".
+std::string GridFactors(const BatchOptions& options) {
+  std::string factors = fmt::format("{} ground{}", std::max<size_t>(1, options.grounds.size()),
+                                    options.grounds.size() > 1 ? "s" : "");
+  for (const BatchVariable& v : options.variables) {
+    factors +=
+        fmt::format(" x {} value{} of {}", v.values.size(), v.values.size() > 1 ? "s" : "", v.name);
+  }
+  return factors;
+}
+
 // Every check that needs no row: InputError before any work.
 void CheckOptions(const BatchOptions& options, const Model& base) {
   if (options.spans.empty()) {
@@ -289,12 +301,7 @@ void CheckOptions(const BatchOptions& options, const Model& base) {
   }
   const double rows = BatchRowCount(options);
   if (rows > kMaxBatchRows && !options.allow_large) {
-    std::string factors = fmt::format("{} ground{}", std::max<size_t>(1, options.grounds.size()),
-                                      options.grounds.size() > 1 ? "s" : "");
-    for (const BatchVariable& v : options.variables) {
-      factors += fmt::format(" x {} value{} of {}", v.values.size(), v.values.size() > 1 ? "s" : "",
-                             v.name);
-    }
+    const std::string factors = GridFactors(options);
     throw InputError({"batch", 0, 0},
                      fmt::format("the grid has {:.0f} rows ({}), more than {}; each row is a "
                                  "sweep and a pattern. Use fewer grounds or coarser --vary "
@@ -474,33 +481,67 @@ double BatchRowCount(const BatchOptions& options) {
   return rows;
 }
 
-BatchResult RunBatch(const std::string& model_text, const std::string& file_name,
-                     const BatchOptions& options, const std::function<void(int, int)>& progress) {
-  const auto start = std::chrono::steady_clock::now();
-  const Model base = ParseModelText(model_text, file_name, options.fixed_overrides);
-  CheckOptions(options, base);
+BatchGrid::BatchGrid(size_t ground_count, std::vector<size_t> dimension_sizes)
+    : ground_count_(std::max<size_t>(1, ground_count)), sizes_(std::move(dimension_sizes)) {
+  rows_ = static_cast<double>(ground_count_);
+  for (size_t size : sizes_) rows_ *= static_cast<double>(size);
+}
 
-  // The grid: ground slowest, then the variables in the order given (the last fastest).
+BatchGrid::Point BatchGrid::At(size_t index) const {
+  if (!(static_cast<double>(index) < rows_)) {
+    throw ComputationError(fmt::format("BatchGrid::At: row {} of a grid of {:.0f}", index, rows_));
+  }
+  Point point;
+  point.values.resize(sizes_.size());
+  size_t rest = index;
+  for (size_t d = sizes_.size(); d-- > 0;) {
+    point.values[d] = rest % sizes_[d];
+    rest /= sizes_[d];
+  }
+  point.ground = rest;
+  return point;
+}
+
+namespace {
+
+// A finished row waiting for the rows before it, with what the run needs to know of it.
+struct FinishedRow {
+  BatchRow row;
+  std::exception_ptr error;  // the row's own failure, to rethrow when every row fails
+  size_t model = 0;
+};
+
+// The grid over one or more models (model_variable: the `model` dimension, slowest after the
+// ground; null for one model). Rows are planned from their index as workers take them and
+// handed on in grid order (BatchOptions::row_sink, else BatchResult::rows).
+BatchResult RunGrid(const std::vector<std::string>& texts, const std::vector<std::string>& files,
+                    const BatchVariable* model_variable, const BatchOptions& options,
+                    const std::function<void(int, int)>& progress) {
+  const auto start = std::chrono::steady_clock::now();
+  std::vector<Model> bases;
+  for (size_t m = 0; m < texts.size(); ++m) {
+    bases.push_back(ParseModelText(texts[m], files[m], options.fixed_overrides));
+    CheckOptions(options, bases.back());
+  }
+
+  // The grid: ground slowest, then the models, then the variables in the order given.
   const std::vector<BatchGround> own_ground{BatchGround{"", std::nullopt}};
   const std::vector<BatchGround>& grounds = options.grounds.empty() ? own_ground : options.grounds;
-  size_t per_ground = 1;
-  for (const BatchVariable& v : options.variables) per_ground *= v.values.size();
-  std::vector<RowPlan> plans;
-  for (const BatchGround& ground : grounds) {
-    for (size_t r = 0; r < per_ground; ++r) {
-      RowPlan plan;
-      plan.index = static_cast<int>(plans.size());
-      plan.ground = &ground;
-      plan.values.resize(options.variables.size());
-      size_t rest = r;
-      for (size_t v = options.variables.size(); v-- > 0;) {
-        const std::vector<BatchValue>& values = options.variables[v].values;
-        plan.values[v] = values[rest % values.size()];
-        rest /= values.size();
-      }
-      plans.push_back(std::move(plan));
-    }
+  std::vector<size_t> sizes;
+  if (model_variable) sizes.push_back(model_variable->values.size());
+  for (const BatchVariable& v : options.variables) sizes.push_back(v.values.size());
+  const BatchGrid grid(grounds.size(), sizes);
+  const size_t first_variable = model_variable ? 1 : 0;
+  if (grid.rows() > kMaxBatchRowsEver) {
+    std::string factors = GridFactors(options);
+    if (model_variable) factors += fmt::format(" x {} models", model_variable->values.size());
+    throw InputError({"batch", 0, 0},
+                     fmt::format("the grid has {:.0f} rows ({}), more than {:.0f}, the most one "
+                                 "batch runs even with --yes-large; split it into several "
+                                 "batches over parts of the --vary ranges",
+                                 grid.rows(), factors, kMaxBatchRowsEver));
   }
+  const int total = static_cast<int>(grid.rows());
 
   double mesh_frequency_hz = 0.0;
   for (const SweepSpan& span : options.spans) {
@@ -508,7 +549,6 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
   }
   for (double f_hz : options.at_hz) mesh_frequency_hz = std::max(mesh_frequency_hz, f_hz);
 
-  const int total = static_cast<int>(plans.size());
   const int hardware = std::max(1u, std::thread::hardware_concurrency());
   const int threads = options.threads > 0 ? options.threads : hardware;
   const int workers = std::clamp(threads, 1, total);
@@ -518,60 +558,119 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
   const int fill_threads = workers > 1 ? 1 : threads;
 
   BatchResult result;
-  result.model_file = file_name;
-  result.variables = options.variables;
+  for (size_t m = 0; m < files.size(); ++m) result.model_file += (m ? ", " : "") + files[m];
+  if (model_variable) result.variables.push_back(*model_variable);
+  result.variables.insert(result.variables.end(), options.variables.begin(),
+                          options.variables.end());
   result.spans = options.spans;
   result.at_hz = options.at_hz;
   result.pattern_frequency_hz = options.pattern_frequency_hz;
   result.elevation_deg = options.elevation_deg;
   result.pattern_step_deg = options.pattern_step_deg;
-  result.z0_ohm = options.z0_ohm.value_or(base.z0_ohm.value_or(50.0));
+  result.z0_ohm = options.z0_ohm.value_or(bases.front().z0_ohm.value_or(50.0));
   result.threads_used = workers * sweep_threads;
+  result.rows_planned = total;
   for (const BatchGround& g : grounds) {
-    result.grounds.push_back(g.spec ? g.name : OwnGroundName(base.ground));
+    result.grounds.push_back(g.spec ? g.name : OwnGroundName(bases.front().ground));
   }
-  result.rows.resize(plans.size());
-  std::vector<std::exception_ptr> row_errors(plans.size());
 
-  // Workers take the next row from a shared counter. A row's own failure stays in its row;
-  // anything else (out of memory, a broken invariant) stops them all and is rethrown.
-  std::atomic<size_t> next{0};
-  std::atomic<bool> stop{false};
-  std::exception_ptr fatal;
+  // Workers take the next row from a shared counter, at most `window` rows ahead of the first
+  // row not yet handed on, so the rows waiting for an earlier one stay few. A row's own
+  // failure stays in its row; anything else (out of memory, a broken invariant, a sink that
+  // throws) stops them all and is rethrown.
+  const size_t window = 4 * static_cast<size_t>(workers);
   std::mutex mutex;
+  std::condition_variable advanced;
+  size_t next = 0;
+  size_t handed_on = 0;  // rows handed on, all of them before `next_in_order`
+  size_t next_in_order = 0;
+  std::map<size_t, FinishedRow> waiting;
+  bool stop = false;
+  std::exception_ptr fatal;
   int done = 0;
+  std::vector<int> failed(texts.size(), 0);
+  std::vector<std::exception_ptr> first_error(texts.size());
+  std::vector<std::set<std::string>> seen(texts.size());
+  std::vector<std::vector<Warning>> warnings(texts.size());
   auto cancelled = [&options] { return options.cancel != nullptr && options.cancel->load(); };
-  std::vector<char> finished(plans.size(), 0);  // written by the row's worker, read after join
+  auto hand_on = [&](FinishedRow& finished) {  // with the mutex held
+    const BatchRow& row = finished.row;
+    if (row.error) {
+      ++result.rows_failed;
+      ++failed[finished.model];
+      if (!first_error[finished.model]) first_error[finished.model] = finished.error;
+    }
+    for (const Warning& w : row.warnings) {
+      if (seen[finished.model].insert(ToString(w)).second) warnings[finished.model].push_back(w);
+    }
+    ++handed_on;
+    if (options.row_sink) {
+      options.row_sink(result, row);
+    } else {
+      result.rows.push_back(std::move(finished.row));
+    }
+  };
   auto work = [&] {
-    while (!stop && !cancelled()) {
-      const size_t i = next++;
-      if (i >= plans.size()) return;
-      BatchRow& row = result.rows[i];
+    while (true) {
+      size_t i = 0;
+      {
+        std::unique_lock<std::mutex> lock(mutex);
+        while (!stop && !cancelled() && next < static_cast<size_t>(total) &&
+               next >= next_in_order + window) {
+          advanced.wait_for(lock, std::chrono::milliseconds(50));
+        }
+        if (stop || cancelled() || next >= static_cast<size_t>(total)) return;
+        i = next++;
+      }
       try {
+        const BatchGrid::Point point = grid.At(i);
+        RowPlan plan;
+        plan.index = static_cast<int>(i);
+        plan.ground = &grounds[point.ground];
+        const size_t model = model_variable ? point.values.front() : 0;
+        for (size_t v = 0; v < options.variables.size(); ++v) {
+          plan.values.push_back(options.variables[v].values[point.values[first_variable + v]]);
+        }
+        FinishedRow finished;
+        finished.model = model;
+        BatchRow& row = finished.row;
         try {
-          row = RunRow(model_text, file_name, options, plans[i], mesh_frequency_hz, sweep_threads,
+          row = RunRow(texts[model], files[model], options, plan, mesh_frequency_hz, sweep_threads,
                        fill_threads);
         } catch (const InputError& error) {
-          row_errors[i] = std::current_exception();
+          finished.error = std::current_exception();
           row.error = error.what();
           row.input_error = true;
         } catch (const ComputationError& error) {
-          row_errors[i] = std::current_exception();
+          finished.error = std::current_exception();
           row.error = fmt::format("computation failed: {}", error.what());
         }
         if (row.error) {
-          row.index = plans[i].index;
-          row.values = plans[i].values;
-          row.ground = plans[i].ground->spec ? plans[i].ground->name : OwnGroundName(base.ground);
+          row.index = plan.index;
+          row.values = plan.values;
+          row.ground = plan.ground->spec ? plan.ground->name : OwnGroundName(bases[model].ground);
         }
-        finished[i] = 1;
+        if (model_variable) row.values.insert(row.values.begin(), model_variable->values[model]);
         std::lock_guard<std::mutex> lock(mutex);
-        ++done;
-        if (progress) progress(done, total);
+        try {
+          waiting.emplace(i, std::move(finished));
+          while (!waiting.empty() && waiting.begin()->first == next_in_order) {
+            hand_on(waiting.begin()->second);
+            waiting.erase(waiting.begin());
+            ++next_in_order;
+          }
+          ++done;
+          if (progress) progress(done, total);
+        } catch (...) {
+          if (!fatal) fatal = std::current_exception();
+          stop = true;
+        }
+        advanced.notify_all();
       } catch (...) {
         std::lock_guard<std::mutex> lock(mutex);
         if (!fatal) fatal = std::current_exception();
         stop = true;
+        advanced.notify_all();
       }
     }
   };
@@ -583,34 +682,29 @@ BatchResult RunBatch(const std::string& model_text, const std::string& file_name
     for (std::thread& t : pool) t.join();
   }
   if (fatal) std::rethrow_exception(fatal);
-  result.rows_planned = total;
-  if (std::find(finished.begin(), finished.end(), 0) != finished.end()) {
-    // Stopped by BatchOptions::cancel: keep the rows that finished, in grid order.
-    result.interrupted = true;
-    std::vector<BatchRow> kept;
-    std::vector<std::exception_ptr> kept_errors;
-    for (size_t i = 0; i < plans.size(); ++i) {
-      if (!finished[i]) continue;
-      kept.push_back(std::move(result.rows[i]));
-      kept_errors.push_back(row_errors[i]);
-    }
-    result.rows = std::move(kept);
-    row_errors = std::move(kept_errors);
+  // Stopped by BatchOptions::cancel: the rows that finished after a gap go on too, in grid
+  // order (BatchRow::index says where each sits).
+  for (auto& [index, finished] : waiting) hand_on(finished);
+  result.interrupted = handed_on < static_cast<size_t>(total);
+  for (const std::vector<Warning>& list : warnings) {
+    result.warnings.insert(result.warnings.end(), list.begin(), list.end());
   }
-
-  std::set<std::string> seen;
-  for (const BatchRow& row : result.rows) {
-    if (row.error) ++result.rows_failed;
-    for (const Warning& w : row.warnings) {
-      if (seen.insert(ToString(w)).second) result.warnings.push_back(w);
+  if (!result.interrupted) {
+    const int per_model = total / static_cast<int>(texts.size());
+    for (size_t m = 0; m < texts.size(); ++m) {
+      if (failed[m] == per_model) std::rethrow_exception(first_error[m]);
     }
-  }
-  if (!result.interrupted && result.rows_failed == total) {
-    std::rethrow_exception(row_errors.front());
   }
   result.elapsed_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return result;
+}
+
+}  // namespace
+
+BatchResult RunBatch(const std::string& model_text, const std::string& file_name,
+                     const BatchOptions& options, const std::function<void(int, int)>& progress) {
+  return RunGrid({model_text}, {file_name}, nullptr, options, progress);
 }
 
 BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
@@ -621,74 +715,21 @@ BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
 BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOptions& options,
                           const std::function<void(int, int)>& progress) {
   if (paths.size() == 1) return RunBatchFile(paths.front(), options, progress);
-  const double per_model = BatchRowCount(options);
-  const int total = static_cast<int>(per_model * static_cast<double>(paths.size()));
   std::vector<std::string> texts;  // read every file before any row runs
   texts.reserve(paths.size());
   for (const std::string& path : paths) texts.push_back(ReadModelFileText(path));
-  std::vector<BatchResult> results;
   BatchVariable model_variable;
   model_variable.name = "model";
   model_variable.names = true;
   std::map<std::string, int> stems;  // a name two files share is replaced by their paths
   for (const std::string& path : paths) ++stems[std::filesystem::path(path).stem().string()];
-  for (size_t m = 0; m < paths.size(); ++m) {
-    const int offset = static_cast<int>(per_model * static_cast<double>(m));
-    results.push_back(RunBatch(texts[m], paths[m], options, [&](int done, int) {
-      if (progress) progress(offset + done, total);
-    }));
-    const std::string stem = std::filesystem::path(paths[m]).stem().string();
+  for (const std::string& path : paths) {
+    const std::string stem = std::filesystem::path(path).stem().string();
     BatchValue v;
-    v.label = v.shown = v.expression = stems[stem] > 1 ? paths[m] : stem;
+    v.label = v.shown = v.expression = stems[stem] > 1 ? path : stem;
     model_variable.values.push_back(v);
   }
-  // Interleave so that the ground still varies slowest, then the model, then the --vary ones.
-  BatchResult merged = results.front();
-  merged.model_file.clear();
-  for (size_t m = 0; m < paths.size(); ++m) {
-    merged.model_file += (m ? ", " : "") + paths[m];
-  }
-  merged.variables.insert(merged.variables.begin(), model_variable);
-  merged.rows.clear();
-  merged.rows_failed = 0;
-  merged.elapsed_s = 0.0;
-  merged.warnings.clear();
-  merged.rows_planned = total;
-  merged.interrupted = false;
-  for (const BatchResult& r : results) merged.interrupted = merged.interrupted || r.interrupted;
-  const size_t ground_count = std::max<size_t>(1, merged.grounds.size());
-  const size_t per_ground = static_cast<size_t>(per_model) / ground_count;
-  if (merged.interrupted) {
-    // Some rows never ran: keep the finished ones, numbered as in the interleaved grid below.
-    for (size_t m = 0; m < results.size(); ++m) {
-      for (BatchRow row : results[m].rows) {
-        const size_t g = static_cast<size_t>(row.index) / per_ground;
-        const size_t s = static_cast<size_t>(row.index) % per_ground;
-        row.values.insert(row.values.begin(), model_variable.values[m]);
-        row.index = static_cast<int>((g * results.size() + m) * per_ground + s);
-        if (row.error) ++merged.rows_failed;
-        merged.rows.push_back(std::move(row));
-      }
-    }
-    std::sort(merged.rows.begin(), merged.rows.end(),
-              [](const BatchRow& a, const BatchRow& b) { return a.index < b.index; });
-  }
-  for (size_t g = 0; g < ground_count && !merged.interrupted; ++g) {
-    for (size_t m = 0; m < results.size(); ++m) {
-      for (size_t s = 0; s < per_ground; ++s) {
-        BatchRow row = results[m].rows[g * per_ground + s];
-        row.values.insert(row.values.begin(), model_variable.values[m]);
-        row.index = static_cast<int>(merged.rows.size());
-        if (row.error) ++merged.rows_failed;
-        merged.rows.push_back(std::move(row));
-      }
-    }
-  }
-  for (const BatchResult& r : results) {
-    merged.elapsed_s += r.elapsed_s;
-    merged.warnings.insert(merged.warnings.end(), r.warnings.begin(), r.warnings.end());
-  }
-  return merged;
+  return RunGrid(texts, paths, &model_variable, options, progress);
 }
 
 bool BatchHasBandPatterns(const BatchResult& result) {

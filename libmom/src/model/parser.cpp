@@ -18,6 +18,7 @@
 #include <tuple>
 
 #include "core/materials.hpp"
+#include "core/read_file.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
 #include "model/shapes.hpp"
@@ -1756,33 +1757,10 @@ Model ParseModelText(const std::string& text, const std::string& file_name,
 }
 
 std::string ReadModelFileText(const std::string& path) {
-  const SourceLocation where{path, 0, 0};
-  errno = 0;
-  std::unique_ptr<std::FILE, int (*)(std::FILE*)> file(std::fopen(path.c_str(), "rb"),
-                                                       &std::fclose);
-  if (!file) {
-    throw InputError(where, fmt::format("cannot read the model file: {}", std::strerror(errno)));
-  }
-  std::string text;
-  char buffer[1 << 16];
-  while (true) {
-    errno = 0;
-    const size_t n = std::fread(buffer, 1, sizeof buffer, file.get());
-    text.append(buffer, n);
-    if (text.size() > model::kMaxFileBytes) {
-      throw InputError(where, fmt::format("the file is larger than {} MiB; a model file is a "
-                                          "few kB of text. Is this the right file?",
-                                          model::kMaxFileBytes >> 20));
-    }
-    if (n < sizeof buffer) {
-      if (std::ferror(file.get())) {
-        throw InputError(where, fmt::format("cannot read the model file: {}",
-                                            std::strerror(errno != 0 ? errno : EIO)));
-      }
-      break;
-    }
-  }
-  return text;
+  return core::ReadInputFile(path, "model file", model::kMaxFileBytes,
+                             fmt::format("the file is larger than {} MiB; a model file is a few kB "
+                                         "of text. Is this the right file?",
+                                         model::kMaxFileBytes >> 20));
 }
 
 Model ParseModelFile(const std::string& path, const std::vector<Override>& overrides) {

@@ -31,10 +31,9 @@ void CheckFinite(double value, const std::string& what, const BatchRow& row) {
   }
 }
 
-void CheckBatch(const BatchResult& result) {
-  CheckFinite(result.z0_ohm, "z0", BatchRow{});
-  for (const BatchRow& row : result.rows) {
-    if (row.error) continue;
+void CheckRow(const BatchRow& row) {
+  if (row.error) return;
+  {
     for (double f_hz : row.resonances_hz) CheckFinite(f_hz, "resonance", row);
     CheckFinite(row.min_swr, "minimum SWR", row);
     CheckFinite(row.min_swr_frequency_hz, "frequency of the minimum SWR", row);
@@ -56,6 +55,11 @@ void CheckBatch(const BatchResult& result) {
       }
     }
   }
+}
+
+void CheckBatch(const BatchResult& result) {
+  CheckFinite(result.z0_ohm, "z0", BatchRow{});
+  for (const BatchRow& row : result.rows) CheckRow(row);
 }
 
 std::string ResonanceList(const std::vector<double>& resonances_hz);
@@ -124,9 +128,11 @@ std::string RowMeshCsv(const BatchRow& row) {
 }  // namespace
 }  // namespace report
 
-std::string FormatBatchText(const BatchResult& result) {
-  report::CheckBatch(result);
-  const BatchSummary summary = SummarizeBatch(result);
+namespace report {
+namespace {
+
+// The lines that open a batch report: the model, the grid, the sweep, the pattern, the threads.
+std::string RunHeader(const BatchResult& result, size_t rows) {
   std::string out = fmt::format("wirefield batch: {}\n", result.model_file);
   std::string ground_names;
   for (const std::string& g : result.grounds) {
@@ -138,17 +144,27 @@ std::string FormatBatchText(const BatchResult& result) {
     grid += fmt::format(" x {} value{} of {}", v.values.size(), v.values.size() == 1 ? "" : "s",
                         v.name);
   }
-  out += fmt::format("  {} rows: {}\n", result.rows.size(), grid);
+  out += fmt::format("  {} rows: {}\n", rows, grid);
   out += fmt::format("  sweep: {}; SWR at the first feed's transmitter against {} ohm\n",
                      report::FrequencyPlan(result), result.z0_ohm);
-  const bool per_band = BatchHasBandPatterns(result);
   out += fmt::format(
       "  pattern: at {}, {} deg grid; gain at {} deg elevation in its best azimuth\n",
       result.pattern_frequency_hz ? fmt::format("{} MHz", report::Mhz(*result.pattern_frequency_hz))
-      : per_band                  ? std::string("each band's lowest-SWR frequency, per row")
-                                  : std::string("each row's lowest-SWR frequency"),
+      : BatchHasBandPatterns(result) ? std::string("each band's lowest-SWR frequency, per row")
+                                     : std::string("each row's lowest-SWR frequency"),
       report::AngleText(result.pattern_step_deg), report::AngleText(result.elevation_deg));
-  out += fmt::format("  {} threads, {:.2f} s\n\n", result.threads_used, result.elapsed_s);
+  out += fmt::format("  {} threads, {:.2f} s\n", result.threads_used, result.elapsed_s);
+  return out;
+}
+
+}  // namespace
+}  // namespace report
+
+std::string FormatBatchText(const BatchResult& result) {
+  report::CheckBatch(result);
+  const BatchSummary summary = SummarizeBatch(result);
+  std::string out = report::RunHeader(result, result.rows.size()) + "\n";
+  const bool per_band = BatchHasBandPatterns(result);
 
   report::TextTable table;
   table.AddColumn("#", report::Align::kRight);
@@ -496,6 +512,26 @@ std::string FormatBatchJson(const BatchResult& result) {
 
 std::string FormatBatchCsv(const BatchResult& result) {
   report::CheckBatch(result);
+  std::string out = FormatBatchCsvHeader(result);
+  for (const BatchRow& row : result.rows) out += FormatBatchCsvRow(result, row);
+  return out;
+}
+
+std::string FormatBatchStreamedText(const BatchResult& result, const std::string& csv_path) {
+  report::CheckFinite(result.z0_ohm, "z0", BatchRow{});
+  std::string out = report::RunHeader(result, static_cast<size_t>(result.rows_planned));
+  out += fmt::format(
+      "\nThe rows went to {} as they finished ({} of {} failed; see its error column). A grid "
+      "this large\nis not tabled here and has no summary: both would hold every row in "
+      "memory. Sort the CSV\nby gain_at_elevation_dbi for the best row.\n",
+      csv_path, result.rows_failed, result.rows_planned);
+  out += report::WarningsSection(result.warnings);
+  out += report::TransmitCaution();
+  return out;
+}
+
+std::string FormatBatchCsvHeader(const BatchResult& result) {
+  report::CheckFinite(result.z0_ohm, "z0", BatchRow{});
   std::string out = "index,ground";
   for (const BatchVariable& v : result.variables) {
     out += fmt::format(",{}{}{}", v.name, v.unit.empty() ? "" : "_", v.unit);
@@ -514,48 +550,52 @@ std::string FormatBatchCsv(const BatchResult& result) {
     }
   }
   out += ",mesh_frequency_hz,mesh_r_ohm,mesh_x_ohm,mesh_error_ohm,error\n";
+  return out;
+}
+
+std::string FormatBatchCsvRow(const BatchResult& result, const BatchRow& row) {
+  report::CheckRow(row);
   const size_t band_columns = 9 * result.spans.size();
-  for (const BatchRow& row : result.rows) {
-    out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
-    for (size_t v = 0; v < row.values.size(); ++v) {
-      out += result.variables[v].names ? fmt::format(",{}", report::CsvQuoted(row.values[v].label))
-                                       : fmt::format(",{:.10g}", row.values[v].si);
-    }
-    if (row.error) {
-      out += std::string(3 + result.at_hz.size() + 9 + band_columns + 4 + 1, ',');
-      out += report::CsvQuoted(*row.error) + "\n";
-      continue;
-    }
-    std::string resonances;
-    for (double f_hz : row.resonances_hz) {
-      resonances += fmt::format("{}{:.10g}", resonances.empty() ? "" : ";", f_hz);
-    }
-    out += fmt::format(",{},{:.10g},{:.10g}", resonances, row.min_swr, row.min_swr_frequency_hz);
-    for (const auto& [f_hz, swr] : row.swr_at) out += fmt::format(",{:.10g}", swr);
-    out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{},{:.10g}",
-                       row.pattern_frequency_hz, report::GainValue(row.max_gain_dbi),
-                       row.max_gain_azimuth_deg, row.takeoff_deg,
-                       report::GainValue(row.gain_at_elevation_dbi), result.elevation_deg,
-                       row.efficiency, row.unknowns, row.gain_at_elevation_azimuth_deg);
-    for (const BatchBand& band : row.bands) {
-      std::string band_resonances;
-      for (double f_hz : band.resonances_hz) {
-        band_resonances += fmt::format("{}{:.10g}", band_resonances.empty() ? "" : ";", f_hz);
-      }
-      out += fmt::format(",{},{:.10g},{:.10g}", band_resonances, band.min_swr,
-                         band.min_swr_frequency_hz);
-      if (band.has_pattern) {
-        out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g}",
-                           band.pattern_frequency_hz, report::GainValue(band.max_gain_dbi),
-                           band.takeoff_deg, report::GainValue(band.gain_at_elevation_dbi),
-                           band.gain_at_elevation_azimuth_deg, band.efficiency);
-      } else {
-        out += ",,,,,,";
-      }
-    }
-    out += report::RowMeshCsv(row);
-    out += ",\n";
+  std::string out;
+  out += fmt::format("{},{}", row.index, report::CsvQuoted(row.ground));
+  for (size_t v = 0; v < row.values.size(); ++v) {
+    out += result.variables[v].names ? fmt::format(",{}", report::CsvQuoted(row.values[v].label))
+                                     : fmt::format(",{:.10g}", row.values[v].si);
   }
+  if (row.error) {
+    out += std::string(3 + result.at_hz.size() + 9 + band_columns + 4 + 1, ',');
+    out += report::CsvQuoted(*row.error) + "\n";
+    return out;
+  }
+  std::string resonances;
+  for (double f_hz : row.resonances_hz) {
+    resonances += fmt::format("{}{:.10g}", resonances.empty() ? "" : ";", f_hz);
+  }
+  out += fmt::format(",{},{:.10g},{:.10g}", resonances, row.min_swr, row.min_swr_frequency_hz);
+  for (const auto& [f_hz, swr] : row.swr_at) out += fmt::format(",{:.10g}", swr);
+  out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{},{:.10g}",
+                     row.pattern_frequency_hz, report::GainValue(row.max_gain_dbi),
+                     row.max_gain_azimuth_deg, row.takeoff_deg,
+                     report::GainValue(row.gain_at_elevation_dbi), result.elevation_deg,
+                     row.efficiency, row.unknowns, row.gain_at_elevation_azimuth_deg);
+  for (const BatchBand& band : row.bands) {
+    std::string band_resonances;
+    for (double f_hz : band.resonances_hz) {
+      band_resonances += fmt::format("{}{:.10g}", band_resonances.empty() ? "" : ";", f_hz);
+    }
+    out += fmt::format(",{},{:.10g},{:.10g}", band_resonances, band.min_swr,
+                       band.min_swr_frequency_hz);
+    if (band.has_pattern) {
+      out += fmt::format(",{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g}",
+                         band.pattern_frequency_hz, report::GainValue(band.max_gain_dbi),
+                         band.takeoff_deg, report::GainValue(band.gain_at_elevation_dbi),
+                         band.gain_at_elevation_azimuth_deg, band.efficiency);
+    } else {
+      out += ",,,,,,";
+    }
+  }
+  out += report::RowMeshCsv(row);
+  out += ",\n";
   return out;
 }
 

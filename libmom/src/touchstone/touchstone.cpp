@@ -16,6 +16,8 @@
 #include <string>
 #include <vector>
 
+#include "core/read_file.hpp"
+
 namespace wirefield {
 namespace {
 
@@ -259,27 +261,12 @@ TouchstoneData ParseTouchstone(const std::string& text, const std::string& file_
 }
 
 TouchstoneData ReadTouchstone(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) {
-    throw InputError(SourceLocation{path, 0, 0},
-                     "cannot read the Touchstone file; check the path and its permissions");
-  }
   // A measured one-port file has some hundreds of lines; 64 MiB is far past any real one and
-  // keeps a wrong path (a disk image, a device) from filling the memory.
-  constexpr std::streamsize kMaxBytes = std::streamsize{64} << 20;
-  std::string text;
-  char buffer[65536];
-  while (in.read(buffer, sizeof buffer) || in.gcount() > 0) {
-    text.append(buffer, static_cast<std::size_t>(in.gcount()));
-    if (static_cast<std::streamsize>(text.size()) > kMaxBytes) {
-      throw InputError(SourceLocation{path, 0, 0},
-                       "the Touchstone file is larger than 64 MiB; is this the right file?");
-    }
-  }
-  if (in.bad()) {
-    throw InputError(SourceLocation{path, 0, 0},
-                     "cannot read the Touchstone file; check the path and its permissions");
-  }
+  // keeps a wrong path (a disk image) from filling the memory.
+  constexpr std::size_t kMaxBytes = std::size_t{64} << 20;
+  const std::string text =
+      core::ReadInputFile(path, "Touchstone file", kMaxBytes,
+                          "the Touchstone file is larger than 64 MiB; is this the right file?");
   return ParseTouchstone(text, path);
 }
 

@@ -179,6 +179,60 @@ TEST(BatchGrid, IsTheProductWithGroundSlowestAndLastVariableFastest) {
   }
 }
 
+TEST(BatchGrid, RowsComeFromTheirIndexWithoutStoringTheGrid) {
+  // 3 grounds x 10000 x 10000 x 10000 values: 3e12 rows, far more than memory could hold at
+  // even one byte a row, so any row must be computed from its index alone.
+  const BatchGrid grid(3, {10000, 10000, 10000});
+  EXPECT_EQ(grid.rows(), 3e12);
+  const size_t last = static_cast<size_t>(3e12) - 1;
+  const BatchGrid::Point end = grid.At(last);
+  EXPECT_EQ(end.ground, 2u);
+  EXPECT_EQ(end.values, (std::vector<size_t>{9999, 9999, 9999}));
+  // Row 1e8 + 2: ground 0, then 100000002 = 1*1e8 + 0*1e4 + 2 in the mixed radix.
+  const BatchGrid::Point middle = grid.At(100000002);
+  EXPECT_EQ(middle.ground, 0u);
+  EXPECT_EQ(middle.values, (std::vector<size_t>{1, 0, 2}));
+  EXPECT_THROW(grid.At(last + 1), ComputationError);
+}
+
+TEST(BatchGrid, GridPastTheHardCapIsRefusedEvenWithYesLarge) {
+  BatchOptions options = SmallOptions();
+  options.variables.push_back(ParseVary("total=9m:10m:0.0002m"));
+  options.variables.push_back(ParseVary("height=1m:2m:0.0002m"));
+  options.variables.push_back(ParseVary("spare=1:10000:1"));
+  options.allow_large = true;
+  const std::string model = std::string(kDipole) + "let spare = 1\n";
+  int rows_run = 0;
+  const std::string text = InputErrorText(
+      [&] { RunBatch(model, "dipole.wire", options, [&](int, int) { ++rows_run; }); });
+  EXPECT_EQ(rows_run, 0);
+  EXPECT_NE(text.find("more than 2147483647, the most one batch runs even with --yes-large"),
+            std::string::npos)
+      << text;
+}
+
+TEST(BatchRows, RowSinkTakesEveryRowInGridOrderAndKeepsNone) {
+  BatchOptions options = SmallOptions();
+  options.grounds = ParseGroundList("free,perfect");
+  options.variables.push_back(ParseVary("total=9.5m,10m,10.5m"));
+  options.threads = 3;
+  options.mesh_estimate = false;
+  const BatchResult kept = RunBatch(kDipole, "dipole.wire", options);
+  std::vector<int> order;
+  std::string csv;
+  options.row_sink = [&](const BatchResult& run, const BatchRow& row) {
+    if (order.empty()) csv = FormatBatchCsvHeader(run);
+    order.push_back(row.index);
+    csv += FormatBatchCsvRow(run, row);
+  };
+  const BatchResult streamed = RunBatch(kDipole, "dipole.wire", options);
+  EXPECT_TRUE(streamed.rows.empty());
+  EXPECT_EQ(order, (std::vector<int>{0, 1, 2, 3, 4, 5}));
+  EXPECT_EQ(streamed.rows_planned, 6);
+  EXPECT_FALSE(streamed.interrupted);
+  EXPECT_EQ(csv, FormatBatchCsv(kept));
+}
+
 TEST(BatchGrid, WithoutGroundsUsesTheModelsOwn) {
   BatchOptions options = SmallOptions();
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);

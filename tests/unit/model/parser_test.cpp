@@ -440,7 +440,9 @@ TEST(ParseError, UnreadableFileNamesTheFileAndTheSystemReason) {
     ParseModelFile("/");
     FAIL();
   } catch (const InputError& e) {
-    EXPECT_STREQ(e.what(), "/: error: cannot read the model file: Is a directory");
+    EXPECT_STREQ(e.what(),
+                 "/: error: cannot read the model file: it is a directory, not a regular file; "
+                 "give the path of a file on disk");
   }
 }
 

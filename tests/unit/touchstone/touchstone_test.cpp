@@ -187,8 +187,8 @@ TEST(TouchstoneErrors, MissingFileIsNamed) {
     FAIL() << "no error";
   } catch (const InputError& error) {
     EXPECT_STREQ(error.what(),
-                 "/nonexistent/folder/m.s1p: error: cannot read the Touchstone file; check the "
-                 "path and its permissions");
+                 "/nonexistent/folder/m.s1p: error: cannot read the Touchstone file: No such "
+                 "file or directory");
   }
 }
 
