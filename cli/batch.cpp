@@ -2,8 +2,8 @@
 // `let` values (--vary) and a sweep's frequencies (--band or --from/--to), one row per grid
 // point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
 // Flags -> BatchOptions -> RunBatchFile -> FormatBatch* -> stdout and --csv (written whole).
-// Ctrl-C (SIGINT) stops the grid after the rows in flight: their rows go to CSV.partial,
-// the CSV itself is left as it was, and the exit code is 130.
+// Ctrl-C (SIGINT), SIGTERM or SIGHUP stops the grid after the rows in flight: their rows go
+// to CSV.partial, the CSV itself is left as it was, and the exit code is 128 + signal.
 #include "wirefield/batch.hpp"
 
 #include <fmt/format.h>
@@ -38,60 +38,48 @@ struct BatchFlags {
   CLI::Option* csv_option = nullptr;
 };
 
-// Exit code of a run stopped by Ctrl-C: 128 + SIGINT, as a shell reports it.
-constexpr int kExitInterrupted = 128 + SIGINT;
-
-// Set by the SIGINT handler; read by the batch's workers before each row. A lock-free atomic,
-// so the handler may write it.
+// Set by the stop handler; read by the batch's workers before each row. Lock-free atomics, so
+// the handler may write them.
 std::atomic<bool> interrupt_requested{false};
+std::atomic<int> interrupt_signal{0};
 static_assert(std::atomic<bool>::is_always_lock_free);
+static_assert(std::atomic<int>::is_always_lock_free);
 
-extern "C" void OnInterrupt(int /*signal*/) {
+extern "C" void OnInterrupt(int signal) {
+  interrupt_signal.store(signal);
   interrupt_requested.store(true);
   static constexpr char kNote[] =
-      "\nbatch: interrupted; finishing the rows in flight (Ctrl-C again stops at once)\n";
-  // write() and signal() are async-signal-safe; a second Ctrl-C gets the default action.
+      "\nbatch: interrupted; finishing the rows in flight (the same signal again stops at "
+      "once)\n";
+  // write() and sigaction() are async-signal-safe; the same signal again gets the default
+  // action.
   [[maybe_unused]] const ssize_t ignored = ::write(STDERR_FILENO, kNote, sizeof kNote - 1);
-  ::signal(SIGINT, SIG_DFL);
+  struct sigaction action {};
+  action.sa_handler = SIG_DFL;
+  sigemptyset(&action.sa_mask);
+  ::sigaction(signal, &action, nullptr);
 }
 
-// Installs OnInterrupt for SIGINT while alive; restores the previous action after.
-class InterruptHandler {
- public:
-  InterruptHandler() {
-    struct sigaction action {};
-    action.sa_handler = OnInterrupt;
-    sigemptyset(&action.sa_mask);
-    installed_ = ::sigaction(SIGINT, &action, &previous_) == 0;
-  }
-  ~InterruptHandler() {
-    if (installed_) ::sigaction(SIGINT, &previous_, nullptr);
-  }
-  InterruptHandler(const InterruptHandler&) = delete;
-  InterruptHandler& operator=(const InterruptHandler&) = delete;
-
- private:
-  struct sigaction previous_ {};
-  bool installed_ = false;
-};
-
-// After Ctrl-C: the finished rows to CSV.partial (when --csv), a note on stderr, exit 130.
-int ReportInterrupted(const BatchFlags& flags, const BatchResult& result) {
+// After a stop signal: the finished rows to CSV.partial (when --csv), a note on stderr, exit
+// 128 + signal (130 for Ctrl-C), as a shell reports it.
+int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inputs,
+                      const BatchResult& result) {
+  const int exit_code = 128 + interrupt_signal.load();
   const int finished = static_cast<int>(result.rows.size());
   if (!Given(flags.csv_option)) {
     fmt::print(stderr,
                "batch: interrupted after {} of {} rows; nothing was written (with --csv FILE "
                "the finished rows go to FILE.partial)\n",
                finished, result.rows_planned);
-    return kExitInterrupted;
+    return exit_code;
   }
   const std::string partial_path = flags.csv_path + ".partial";
-  WriteFilesAtomically({OutputFile{partial_path, FormatBatchCsv(result), "partial CSV"}});
+  WriteOutputFiles({OutputFile{partial_path, FormatBatchCsv(result), "partial CSV"}}, inputs);
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
              finished, result.rows_planned, partial_path, flags.csv_path);
-  return kExitInterrupted;
+  return exit_code;
 }
 
 // Progress on a terminal only: "batch: [#######.............] 12/40 rows", rewritten in place.
@@ -138,21 +126,29 @@ int RunBatchCommand(const BatchFlags& flags) {
   options.interpolate = !flags.exact;
   options.mesh_estimate = !flags.no_mesh_estimate;
 
-  const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
   paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
-  const InterruptHandler on_interrupt;
+  std::vector<InputPath> inputs;
+  for (const std::string& path : paths) inputs.push_back({path, "model"});
+  if (Given(flags.csv_option)) {
+    CheckOutputPaths({{flags.csv_path, "CSV"}, {flags.csv_path + ".partial", "partial CSV"}},
+                     inputs);
+  }
+
+  const bool show_progress = ::isatty(STDERR_FILENO) == 1;
+  // Ctrl-C, `kill` and a closed terminal stop the batch cleanly.
+  const ScopedSignalHandlers on_interrupt(OnInterrupt, {SIGINT, SIGTERM, SIGHUP});
   const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
     if (show_progress) ShowProgress(done, total);
   });
   PrintWarnings(result.warnings);
-  if (result.interrupted) return ReportInterrupted(flags, result);
+  if (result.interrupted) return ReportInterrupted(flags, inputs, result);
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
   if (Given(flags.csv_option)) files.push_back({flags.csv_path, FormatBatchCsv(result), "CSV"});
   std::string output = flags.model.json ? FormatBatchJson(result) : FormatBatchText(result);
-  WriteFilesThenReport(files, output, flags.model.json);
+  WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }
 

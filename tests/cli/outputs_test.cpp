@@ -10,11 +10,14 @@
 #include <fcntl.h>
 #include <gtest/gtest.h>
 #include <signal.h>
+#include <sys/socket.h>
 #include <sys/stat.h>
 #include <sys/sysmacros.h>
+#include <sys/un.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <array>
 #include <chrono>
 #include <filesystem>
@@ -38,8 +41,8 @@ const std::string kModel =
 // A short sweep of `model` with `extra` flags.
 std::vector<std::string> Sweep(const std::string& model, const std::vector<std::string>& extra,
                                const std::string& from = "14MHz", const std::string& points = "5") {
-  std::vector<std::string> args{"sweep", model,    "--from", from, "--to", "14.4MHz",
-                                "--points", points, "--no-mesh-estimate"};
+  std::vector<std::string> args{
+      "sweep", model, "--from", from, "--to", "14.4MHz", "--points", points, "--no-mesh-estimate"};
   args.insert(args.end(), extra.begin(), extra.end());
   return args;
 }
@@ -88,8 +91,8 @@ TEST(OutputFiles, AnOutputOntoAnInputIsRefusedWhateverItsName) {
   ASSERT_EQ(RunWirefield(Sweep(model, {"--s1p", measured})).exit_code, 0);
   const std::string measured_text = ReadFile(measured);
   const std::string csv = FreshPath("input_new.csv");
-  const std::vector<std::string> batch{"batch", model, "--from", "14MHz", "--to", "14.4MHz",
-                                       "--points", "3", "--no-mesh-estimate"};
+  const std::vector<std::string> batch{
+      "batch", model, "--from", "14MHz", "--to", "14.4MHz", "--points", "3", "--no-mesh-estimate"};
   auto with = [](std::vector<std::string> args, const std::vector<std::string>& extra) {
     args.insert(args.end(), extra.begin(), extra.end());
     return args;
@@ -100,13 +103,13 @@ TEST(OutputFiles, AnOutputOntoAnInputIsRefusedWhateverItsName) {
   ExpectRefused("sweep --svg HARD LINK", Sweep(model, {"--csv", csv, "--svg", hard}), fragment,
                 {model}, {csv});
   ExpectRefused("sweep --s1p SYMLINK", Sweep(model, {"--s1p", link}), fragment, {model});
-  ExpectRefused("pattern --csv MODEL", {"pattern", model, "--step", "10", "--csv", model},
-                fragment, {model});
+  ExpectRefused("pattern --csv MODEL", {"pattern", model, "--step", "10", "--csv", model}, fragment,
+                {model});
   ExpectRefused("pattern --svg SYMLINK", {"pattern", model, "--step", "10", "--svg", link},
                 fragment, {model});
   ExpectRefused("batch --csv MODEL", with(batch, {"--csv", model}), fragment, {model});
-  ExpectRefused("batch --csv COMPARED MODEL",
-                with(batch, {"--compare", other, "--csv", other}), fragment, {other});
+  ExpectRefused("batch --csv COMPARED MODEL", with(batch, {"--compare", other, "--csv", other}),
+                fragment, {other});
   ExpectRefused("sweep --s1p MEASURED",
                 Sweep(model, {"--measured", measured, "--csv", csv, "--s1p", measured}),
                 "is the measured file", {model}, {csv});
@@ -123,8 +126,7 @@ TEST(OutputFiles, TwoOutputsOntoOneFileAreRefused) {
   const std::string hard = FreshPath("two_hard.out");
   fs::create_hard_link(existing, hard);
   const std::string fragment = "both";
-  ExpectRefused("--csv F --svg F", Sweep(model, {"--csv", out, "--svg", out}), fragment, {},
-                {out});
+  ExpectRefused("--csv F --svg F", Sweep(model, {"--csv", out, "--svg", out}), fragment, {}, {out});
   ExpectRefused("--csv F --s1p LINK TO F", Sweep(model, {"--csv", out, "--s1p", dangling}),
                 fragment, {}, {out});
   ExpectRefused("--svg F --s1p HARD LINK OF F", Sweep(model, {"--svg", existing, "--s1p", hard}),
@@ -238,11 +240,28 @@ TEST(OutputFiles, AFifoWithAReaderGetsTheFile) {
   EXPECT_TRUE(S_ISFIFO(after.st_mode));
 }
 
-TEST(OutputFiles, AFolderIsRefused) {
-  const std::string model = WriteScratchFile("folder_model.wire", kModel);
-  const std::string folder = FreshPath("folder.csv");
+// Paths that cannot take a file, each refused before any work with what to change.
+TEST(OutputFiles, AFolderASocketOrAnEmptyNameIsRefused) {
+  const std::string model = WriteScratchFile("refused_model.wire", kModel);
+  const std::string folder = FreshPath("refused_folder.csv");
   fs::create_directory(folder);
-  ExpectRefused("--csv FOLDER", Sweep(model, {"--csv", folder}), "is a folder", {});
+  const std::string socket_path = FreshPath("refused.sock");
+  const int socket_fd = ::socket(AF_UNIX, SOCK_STREAM, 0);
+  ASSERT_GE(socket_fd, 0);
+  sockaddr_un address{};
+  address.sun_family = AF_UNIX;
+  ASSERT_LT(socket_path.size(), sizeof address.sun_path);
+  std::copy(socket_path.begin(), socket_path.end(), address.sun_path);
+  ASSERT_EQ(::bind(socket_fd, reinterpret_cast<sockaddr*>(&address), sizeof address), 0);
+  const std::string svg = FreshPath("refused.svg");
+  ExpectRefused("--csv FOLDER", Sweep(model, {"--svg", svg, "--csv", folder}), "is a folder", {},
+                {svg});
+  ExpectRefused("--csv SOCKET", Sweep(model, {"--svg", svg, "--csv", socket_path}), "is a socket",
+                {}, {svg});
+  ExpectRefused("--csv ''", Sweep(model, {"--svg", svg, "--csv", ""}), "name is empty", {}, {svg});
+  ExpectRefused("--svg IN A MISSING FOLDER", Sweep(model, {"--svg", folder + "/no/such.svg"}),
+                "cannot write the SVG file", {});
+  ::close(socket_fd);
   EXPECT_TRUE(fs::is_directory(folder));
 }
 

@@ -32,7 +32,7 @@ inline constexpr rlim_t kRunMemoryLimit_bytes = rlim_t{4} << 30;
 
 // Limits of one run beyond the defaults above.
 struct RunLimits {
-  unsigned time_s = kRunTimeLimit_s;     // killed by SIGALRM past it
+  unsigned time_s = kRunTimeLimit_s;       // killed by SIGALRM past it
   rlim_t file_size_bytes = RLIM_INFINITY;  // RLIMIT_FSIZE: a larger write raises SIGXFSZ
 };
 
