@@ -48,10 +48,12 @@ std::vector<std::string> Sweep(const std::string& model, const std::vector<std::
 }
 
 // A path in the scratch folder where nothing is (yet).
+// (Never opened: a FIFO left by an earlier repeat of a test would block an open for writing.)
 std::string FreshPath(const std::string& name) {
-  const std::string path = WriteScratchFile(name, "");
+  const fs::path folder = fs::path(WriteScratchFile("fresh_path_probe", "")).parent_path();
+  const fs::path path = folder / name;
   fs::remove(path);
-  return path;
+  return path.string();
 }
 
 std::string ScratchPath(const std::string& name) { return WriteScratchFile(name, "old\n"); }
