@@ -3,8 +3,8 @@
 // point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
 // Flags -> BatchOptions -> RunBatchFiles -> FormatBatch* -> stdout and --csv; a grid past
 // 100000 rows (--yes-large) streams its rows into the CSV and gets a short account on stdout.
-// Ctrl-C (SIGINT) stops the grid after the rows in flight: their rows go to CSV.partial,
-// the CSV itself is left as it was, and the exit code is 130.
+// Ctrl-C (SIGINT), SIGTERM or SIGHUP stops the grid after the rows in flight: their rows go
+// to CSV.partial, the CSV itself is left as it was, and the exit code is 128 + signal.
 #include "wirefield/batch.hpp"
 
 #include <fmt/format.h>
@@ -39,61 +39,47 @@ struct BatchFlags {
   CLI::Option* csv_option = nullptr;
 };
 
-// Exit code of a run stopped by Ctrl-C: 128 + SIGINT, as a shell reports it.
-constexpr int kExitInterrupted = 128 + SIGINT;
-
-// Set by the SIGINT handler; read by the batch's workers before each row. A lock-free atomic,
-// so the handler may write it.
+// Set by the stop handler; read by the batch's workers before each row. Lock-free atomics, so
+// the handler may write them.
 std::atomic<bool> interrupt_requested{false};
+std::atomic<int> interrupt_signal{0};
 static_assert(std::atomic<bool>::is_always_lock_free);
+static_assert(std::atomic<int>::is_always_lock_free);
 
-extern "C" void OnInterrupt(int /*signal*/) {
+extern "C" void OnInterrupt(int signal) {
+  interrupt_signal.store(signal);
   interrupt_requested.store(true);
   static constexpr char kNote[] =
-      "\nbatch: interrupted; finishing the rows in flight (Ctrl-C again stops at once)\n";
-  // write() and signal() are async-signal-safe; a second Ctrl-C gets the default action.
+      "\nbatch: interrupted; finishing the rows in flight (the same signal again stops at "
+      "once)\n";
+  // write() and sigaction() are async-signal-safe; the same signal again gets the default
+  // action.
   [[maybe_unused]] const ssize_t ignored = ::write(STDERR_FILENO, kNote, sizeof kNote - 1);
-  ::signal(SIGINT, SIG_DFL);
+  struct sigaction action {};
+  action.sa_handler = SIG_DFL;
+  sigemptyset(&action.sa_mask);
+  ::sigaction(signal, &action, nullptr);
 }
 
-// Installs OnInterrupt for SIGINT while alive; restores the previous action after.
-class InterruptHandler {
- public:
-  InterruptHandler() {
-    struct sigaction action {};
-    action.sa_handler = OnInterrupt;
-    sigemptyset(&action.sa_mask);
-    installed_ = ::sigaction(SIGINT, &action, &previous_) == 0;
-  }
-  ~InterruptHandler() {
-    if (installed_) ::sigaction(SIGINT, &previous_, nullptr);
-  }
-  InterruptHandler(const InterruptHandler&) = delete;
-  InterruptHandler& operator=(const InterruptHandler&) = delete;
-
- private:
-  struct sigaction previous_ {};
-  bool installed_ = false;
-};
-
-// After Ctrl-C: the finished rows (csv_text) to CSV.partial (when --csv), a note on stderr,
-// exit 130.
-int ReportInterrupted(const BatchFlags& flags, const BatchResult& result, int finished,
-                      const std::string& csv_text) {
+// After a stop signal: the finished rows (csv_text) to CSV.partial (when --csv), a note on
+// stderr, exit 128 + signal (130 for Ctrl-C), as a shell reports it.
+int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inputs,
+                      const BatchResult& result, int finished, const std::string& csv_text) {
+  const int exit_code = 128 + interrupt_signal.load();
   if (!Given(flags.csv_option)) {
     fmt::print(stderr,
                "batch: interrupted after {} of {} rows; nothing was written (with --csv FILE "
                "the finished rows go to FILE.partial)\n",
                finished, result.rows_planned);
-    return kExitInterrupted;
+    return exit_code;
   }
   const std::string partial_path = flags.csv_path + ".partial";
-  WriteFilesAtomically({OutputFile{partial_path, csv_text, "partial CSV"}});
+  WriteOutputFiles({OutputFile{partial_path, csv_text, "partial CSV"}}, inputs);
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
              finished, result.rows_planned, partial_path, flags.csv_path);
-  return kExitInterrupted;
+  return exit_code;
 }
 
 // The most rows the text and JSON reports take: they hold every row in memory (some kB a
@@ -164,9 +150,14 @@ int RunBatchCommand(const BatchFlags& flags) {
   options.interpolate = !flags.exact;
   options.mesh_estimate = !flags.no_mesh_estimate;
 
-  const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   std::vector<std::string> paths{flags.model.model_path};
   paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
+  std::vector<InputPath> inputs;
+  for (const std::string& path : paths) inputs.push_back({path, "model"});
+  if (Given(flags.csv_option)) {
+    CheckOutputPaths({{flags.csv_path, "CSV"}, {flags.csv_path + ".partial", "partial CSV"}},
+                     inputs);
+  }
 
   // A grid past kMaxRowsInReport streams: each row goes to the CSV text as it finishes and is
   // dropped, and stdout gets a short account instead of the table and summary.
@@ -182,7 +173,9 @@ int RunBatchCommand(const BatchFlags& flags) {
     };
   }
 
-  const InterruptHandler on_interrupt;
+  const bool show_progress = ::isatty(STDERR_FILENO) == 1;
+  // Ctrl-C, `kill` and a closed terminal stop the batch cleanly.
+  const ScopedSignalHandlers on_interrupt(OnInterrupt, {SIGINT, SIGTERM, SIGHUP});
   const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
     if (show_progress) ShowProgress(done, total);
   });
@@ -190,7 +183,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   if (!stream && Given(flags.csv_option)) csv_text = FormatBatchCsv(result);
   if (stream && streamed == 0) csv_text = FormatBatchCsvHeader(result);
   if (result.interrupted) {
-    return ReportInterrupted(flags, result,
+    return ReportInterrupted(flags, inputs, result,
                              stream ? streamed : static_cast<int>(result.rows.size()), csv_text);
   }
 
@@ -200,7 +193,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   std::string output = stream             ? FormatBatchStreamedText(result, flags.csv_path)
                        : flags.model.json ? FormatBatchJson(result)
                                           : FormatBatchText(result);
-  WriteFilesThenReport(files, output, flags.model.json);
+  WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }
 

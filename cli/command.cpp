@@ -4,8 +4,6 @@
 #include "command.hpp"
 
 #include <fmt/format.h>
-#include <sys/stat.h>
-#include <unistd.h>
 
 #include <algorithm>
 #include <cerrno>
@@ -13,71 +11,8 @@
 #include <cstdio>
 #include <cstdlib>
 #include <cstring>
-#include <filesystem>
 
 namespace wirefield::cli {
-namespace {
-
-void RemoveQuietly(const std::string& path) {
-  std::error_code ignored;
-  std::filesystem::remove(path, ignored);
-}
-
-[[noreturn]] void FailToWrite(const OutputFile& file, const std::string& reason) {
-  throw InputError(SourceLocation{file.path, 0, 0},
-                   fmt::format("cannot write the {} file: {}; check that its folder exists and "
-                               "is writable, or give another path",
-                               file.what, reason));
-}
-
-}  // namespace
-
-void WriteFilesAtomically(const std::vector<OutputFile>& files) {
-  std::vector<std::string> written;
-  auto clean_up = [&written] {
-    for (const std::string& tmp : written) RemoveQuietly(tmp);
-  };
-  // The permissions a plainly created file would get (mkstemp makes its file private).
-  const mode_t mask = ::umask(0);
-  ::umask(mask);
-  for (const OutputFile& file : files) {
-    // A fresh name beside the target (same folder, so the rename is atomic): never a file the
-    // user owns, never one a concurrent run is writing.
-    std::string tmp = file.path + ".wirefield-XXXXXX";
-    const int fd = ::mkstemp(tmp.data());
-    if (fd < 0) {
-      const std::string reason = std::strerror(errno);
-      clean_up();
-      FailToWrite(file, reason);
-    }
-    written.push_back(tmp);
-    ::fchmod(fd, static_cast<mode_t>(0666 & ~mask));
-    std::FILE* out = ::fdopen(fd, "wb");
-    if (out == nullptr) {
-      const std::string reason = std::strerror(errno);
-      ::close(fd);
-      clean_up();
-      FailToWrite(file, reason);
-    }
-    const bool ok = std::fwrite(file.text.data(), 1, file.text.size(), out) == file.text.size() &&
-                    std::fflush(out) == 0 && ::fsync(fd) == 0;
-    const int errno_after_write = errno;
-    const bool closed = std::fclose(out) == 0;
-    if (!ok || !closed) {
-      clean_up();
-      FailToWrite(file, std::strerror(ok ? errno : errno_after_write));
-    }
-  }
-  for (std::size_t i = 0; i < files.size(); ++i) {
-    std::error_code error;
-    std::filesystem::rename(written[i], files[i].path, error);
-    if (error) {
-      clean_up();
-      FailToWrite(files[i], error.message());
-    }
-  }
-}
-
 bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
 
 void FailOption(const std::string& option, const std::string& message) {
@@ -347,16 +282,6 @@ void WriteStdout(const std::string& text) {
   if (written != text.size() || std::fflush(stdout) != 0) {
     throw ComputationError("could not write the result to standard output");
   }
-}
-
-void WriteFilesThenReport(const std::vector<OutputFile>& files, std::string report, bool json) {
-  WriteFilesAtomically(files);
-  if (!json) {
-    for (const OutputFile& file : files) {
-      report += fmt::format("Wrote the {} file {}\n", file.what, file.path);
-    }
-  }
-  WriteStdout(report);
 }
 
 }  // namespace wirefield::cli

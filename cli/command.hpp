@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "output_files.hpp"
 #include "wirefield/bands.hpp"
 #include "wirefield/wirefield.hpp"
 
@@ -121,21 +122,5 @@ Command AddSweepCommand(CLI::App& program);
 Command AddBatchCommand(CLI::App& program);
 Command AddCoilCommand(CLI::App& program);
 Command AddTuneCommand(CLI::App& program);
-
-// A file to write whole: first to a fresh temporary file beside PATH (PATH.wirefield-XXXXXX),
-// renamed over PATH only when every file is ready.
-struct OutputFile {
-  std::string path;
-  std::string text;
-  std::string what;  // "CSV", "SVG", "Touchstone": named in error messages
-};
-
-// Writes every file or none: on any failure removes the temporary files and throws an
-// InputError naming the file (exit 2). Never leaves a half-written file.
-void WriteFilesAtomically(const std::vector<OutputFile>& files);
-
-// Writes the files atomically, then prints `report` to stdout; a text report (json false)
-// gets one line per file written.
-void WriteFilesThenReport(const std::vector<OutputFile>& files, std::string report, bool json);
 
 }  // namespace wirefield::cli

@@ -135,6 +135,11 @@ int RunPattern(const PatternFlags& flags) {
   FrequencyFlag(flags.model);
   const std::optional<StressOptions> stress_options = ChosenStress(flags.power);
   const std::optional<ExposureOptions> exposure_options = ChosenExposure(flags, stress_options);
+  const std::vector<InputPath> inputs{{flags.model.model_path, "model"}};
+  std::vector<OutputPath> outputs;
+  if (Given(flags.csv_option)) outputs.push_back({flags.csv_path, "CSV"});
+  if (Given(flags.svg_option)) outputs.push_back({flags.svg_path, "SVG"});
+  CheckOutputPaths(outputs, inputs);
   Model model = LoadModel(flags.model);
   const PatternOptions options = ChosenOptions(flags, model);
   const double frequency_hz = ChosenFrequency(flags.model, model);
@@ -166,7 +171,7 @@ int RunPattern(const PatternFlags& flags) {
   std::string output = flags.model.json
                            ? FormatPatternJson(simulation, pattern, stress_shown, exposure_shown)
                            : FormatPatternText(simulation, pattern, stress_shown, exposure_shown);
-  WriteFilesThenReport(files, output, flags.model.json);
+  WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }
 

@@ -52,6 +52,13 @@ int RunSweepCommand(const SweepFlags& flags) {
   options.interpolate = !flags.exact;
   std::vector<Band> bands;
   const std::vector<SweepSpan> spans = ChosenSpans(flags.frequencies, "sweep", region, bands);
+  std::vector<InputPath> inputs{{flags.model.model_path, "model"}};
+  if (Given(flags.measured_option)) inputs.push_back({flags.measured_path, "measured"});
+  std::vector<OutputPath> outputs;
+  if (Given(flags.csv_option)) outputs.push_back({flags.csv_path, "CSV"});
+  if (Given(flags.svg_option)) outputs.push_back({flags.svg_path, "SVG"});
+  if (Given(flags.s1p_option)) outputs.push_back({flags.s1p_path, "Touchstone"});
+  CheckOutputPaths(outputs, inputs);
   std::optional<TouchstoneData> measured;
   if (Given(flags.measured_option)) measured = ReadTouchstone(flags.measured_path);
 
@@ -118,7 +125,7 @@ int RunSweepCommand(const SweepFlags& flags) {
     files.push_back({flags.s1p_path, FormatSweepTouchstone(report), "Touchstone"});
   }
   std::string output = flags.model.json ? FormatSweepJson(report) : FormatSweepText(report);
-  WriteFilesThenReport(files, output, flags.model.json);
+  WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }
 

@@ -7,16 +7,21 @@
 #include <fcntl.h>
 #include <gtest/gtest.h>
 #include <signal.h>
+#include <spawn.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
 #include <cerrno>
+#include <chrono>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <stdexcept>
+#include <thread>
+
+extern char** environ;
 
 namespace wirefield::cli_test {
 
@@ -77,7 +82,7 @@ std::string WriteScratchFile(const std::string& name, const std::string& text) {
 
 std::string ModelsDir() { return std::string(WIREFIELD_SOURCE_DIR) + "/models"; }
 
-ProgramRun RunWirefield(const std::vector<std::string>& args) {
+ProgramRun RunWirefield(const std::vector<std::string>& args, const RunLimits& limits) {
   static int run_count = 0;
   ++run_count;
   const std::string out_path =
@@ -108,7 +113,11 @@ ProgramRun RunWirefield(const std::vector<std::string>& args) {
     const rlimit memory{kRunMemoryLimit_bytes, kRunMemoryLimit_bytes};
     ::setrlimit(RLIMIT_AS, &memory);
 #endif
-    ::alarm(kRunTimeLimit_s);
+    if (limits.file_size_bytes != RLIM_INFINITY) {
+      const rlimit file_size{limits.file_size_bytes, limits.file_size_bytes};
+      ::setrlimit(RLIMIT_FSIZE, &file_size);
+    }
+    ::alarm(limits.time_s);
     ::execv(argv[0], argv.data());
     ::_exit(127);
   }
@@ -125,6 +134,42 @@ ProgramRun RunWirefield(const std::vector<std::string>& args) {
   std::filesystem::remove(out_path);
   std::filesystem::remove(err_path);
   return run;
+}
+
+SpawnedRun SpawnWirefield(const std::vector<std::string>& args, const std::string& stem) {
+  SpawnedRun child;
+  child.out_path = WriteScratchFile(stem + ".out", "");
+  child.err_path = WriteScratchFile(stem + ".err", "");
+  posix_spawn_file_actions_t actions;
+  posix_spawn_file_actions_init(&actions);
+  posix_spawn_file_actions_addopen(&actions, 0, "/dev/null", O_RDONLY, 0);
+  posix_spawn_file_actions_addopen(&actions, 1, child.out_path.c_str(), O_WRONLY | O_TRUNC, 0);
+  posix_spawn_file_actions_addopen(&actions, 2, child.err_path.c_str(), O_WRONLY | O_TRUNC, 0);
+  std::vector<std::string> argv_text{WIREFIELD_BINARY};
+  argv_text.insert(argv_text.end(), args.begin(), args.end());
+  std::vector<char*> argv;
+  for (std::string& a : argv_text) argv.push_back(a.data());
+  argv.push_back(nullptr);
+  const int rc = posix_spawn(&child.pid, argv[0], &actions, nullptr, argv.data(), environ);
+  posix_spawn_file_actions_destroy(&actions);
+  if (rc != 0) child.pid = -1;
+  return child;
+}
+
+int WaitForRun(pid_t pid, unsigned limit_s) {
+  const auto deadline = std::chrono::steady_clock::now() + std::chrono::seconds(limit_s);
+  int status = 0;
+  while (true) {
+    const pid_t done = ::waitpid(pid, &status, WNOHANG);
+    if (done == pid) return status;
+    if (done < 0 && errno != EINTR) return -1;
+    if (std::chrono::steady_clock::now() > deadline) {
+      ::kill(pid, SIGKILL);
+      ::waitpid(pid, &status, 0);
+      return status;
+    }
+    std::this_thread::sleep_for(std::chrono::milliseconds(5));
+  }
 }
 
 std::string Describe(const ProgramRun& run) {

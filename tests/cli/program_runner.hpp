@@ -4,6 +4,7 @@
 #pragma once
 
 #include <sys/resource.h>
+#include <sys/types.h>
 
 #include <string>
 #include <vector>
@@ -29,8 +30,28 @@ inline constexpr unsigned kRunTimeLimit_s = 120;
 // which the program must report with exit code 1.
 inline constexpr rlim_t kRunMemoryLimit_bytes = rlim_t{4} << 30;
 
+// Limits of one run beyond the defaults above.
+struct RunLimits {
+  unsigned time_s = kRunTimeLimit_s;       // killed by SIGALRM past it
+  rlim_t file_size_bytes = RLIM_INFINITY;  // RLIMIT_FSIZE: a larger write raises SIGXFSZ
+};
+
 // Runs WIREFIELD_BINARY with the given arguments (no shell involved).
-ProgramRun RunWirefield(const std::vector<std::string>& args);
+ProgramRun RunWirefield(const std::vector<std::string>& args, const RunLimits& limits = {});
+
+// A wirefield started without waiting for it: stdout and stderr go to the two files.
+struct SpawnedRun {
+  pid_t pid = -1;  // -1 when it could not be started
+  std::string out_path;
+  std::string err_path;
+};
+
+// Starts wirefield with `args` (stdin from /dev/null); `stem` names its scratch files.
+SpawnedRun SpawnWirefield(const std::vector<std::string>& args, const std::string& stem);
+
+// Waits for a spawned run, at most `limit_s` seconds, killing it (SIGKILL) past that; returns
+// its wait status.
+int WaitForRun(pid_t pid, unsigned limit_s);
 
 // Writes `text` to a file of that name in a scratch folder for this test process and
 // returns its path.
