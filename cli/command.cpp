@@ -346,7 +346,7 @@ void WriteFilesThenReport(const std::vector<OutputFile>& files, std::string repo
   WriteFilesAtomically(files);
   if (!json) {
     for (const OutputFile& file : files) {
-      report += fmt::format("Wrote the {} file {}\n", file.what, file.path);
+      report += fmt::format("Wrote the {} file {}\n", file.what, Printable(file.path));
     }
   }
   WriteStdout(report);
