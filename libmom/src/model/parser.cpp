@@ -50,6 +50,12 @@ constexpr double kMaxSegmentsPerWire = 100000.0;
 // power, far past any real line, and stays far inside the 6158 dB (709 nepers) where e^x
 // overflows double precision in the line's cosh and sinh.
 constexpr double kMaxLineLossDb = 1000.0;
+// Legal but dubious values, warned about: a z0 outside the impedances of feed lines and
+// antenna systems (a few ohm for a small loop's match to 600 ohm open-wire line; common
+// practice) and a coil of more turns than a single-layer loading coil has (common practice).
+constexpr double kDubiousLowZ0_ohm = 1.0;
+constexpr double kDubiousHighZ0_ohm = 1e4;
+constexpr double kDubiousCoilTurns = 1e4;
 // Bytes per matrix entry (a complex double), for the memory estimate in messages.
 constexpr double kBytesPerMatrixEntry = 16.0;
 // A position within this fraction of the wire length from an end is that end. Far below any
@@ -1001,6 +1007,13 @@ class Parser {
                                            FormatNumber(coil.turns)));
         }
         InRange(ValueKind::kCoilTurns, coil.turns, m, what);
+        if (coil.turns > kDubiousCoilTurns) {
+          model_.warnings.push_back(Warning{
+              Loc(m.start),
+              fmt::format("{}: {} turns is more than any single-layer antenna coil ({} at most); "
+                          "check the number",
+                          context, FormatNumber(coil.turns), FormatNumber(kDubiousCoilTurns))});
+        }
         continue;
       }
       if (clause.text == "inductance") {
@@ -1740,6 +1753,13 @@ class Parser {
       throw Error(m.start, fmt::format("z0 must be positive; got {} ohm", FormatNumber(z0)));
     }
     InRange(ValueKind::kImpedanceOhm, z0, m, "z0");
+    if (z0 < kDubiousLowZ0_ohm || z0 > kDubiousHighZ0_ohm) {
+      model_.warnings.push_back(Warning{
+          Loc(m.start), fmt::format("z0 {} ohm is far from any feed line ({} to {} ohm); the SWR "
+                                    "against it says little about a real transmitter",
+                                    FormatNumber(z0), FormatNumber(kDubiousLowZ0_ohm),
+                                    FormatNumber(kDubiousHighZ0_ohm))});
+    }
     ExpectEnd("z0");
     z0_line_ = Loc(keyword);
     model_.z0_ohm = z0;
