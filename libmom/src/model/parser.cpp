@@ -1257,6 +1257,7 @@ class Parser {
             throw Error(m.start, fmt::format("{}: al must be positive; got {} nH/turn^2", context,
                                              FormatNumber(al)));
           }
+          InRange(ValueKind::kAlNanohenryPerTurn2, al, m, context + ": al");
           t.al_nh_per_turn2 = al;
           al_token = clause;
         }
@@ -1267,6 +1268,7 @@ class Parser {
           throw Error(m.start, fmt::format("{}: leakage must not be negative; got {} H", context,
                                            FormatNumber(l)));
         }
+        InRange(ValueKind::kInductanceH, l, m, context + ": leakage");
         t.leakage_inductance_h = l;
         leakage_token = clause;
       } else if (w == "compensation") {
@@ -1286,6 +1288,7 @@ class Parser {
             throw Error(m.start,
                         fmt::format("{}: q must be positive; got {}", context, FormatNumber(q)));
           }
+          InRange(ValueKind::kQuality, q, m, context + ": q");
           t.core_q = q;
           q_token = clause;
         } else {
@@ -1511,6 +1514,7 @@ class Parser {
         throw Error(m.start, fmt::format("{}: loss must not be negative; got {} dB/100 m", context,
                                          FormatNumber(db[n])));
       }
+      InRange(ValueKind::kLossDbPer100m, db[n], m, context + ": loss");
       if (!IsPunct("@")) {
         throw Expected(context, "'@' and the frequency of the loss figure (loss=1.3@10MHz)");
       }

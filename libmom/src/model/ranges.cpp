@@ -42,6 +42,11 @@ const std::vector<ValueRange>& ValueRanges() {
       {ValueKind::kTransformerTurns, "transformer turns", 1e-3, 1e6, false, "",
        "0.001 to 1e6 turns on each side"},
       {ValueKind::kPowerW, "a power", 1e-9, 1e7, false, "W", "1 nW to 10 MW"},
+      {ValueKind::kLossDbPer100m, "a line loss figure", 0.0, 1e4, false, "dB/100 m",
+       "0 to 10 000 dB per 100 m"},
+      {ValueKind::kAlNanohenryPerTurn2, "a core's A_L", 1e-3, 1e7, false, "nH/turn^2",
+       "0.001 to 1e7 nH/turn^2"},
+      {ValueKind::kQuality, "a Q", 1e-3, 1e6, false, "", "0.001 to 1e6"},
   };
   // clang-format on
   return kTable;

@@ -12,22 +12,25 @@
 namespace wirefield::model {
 
 enum class ValueKind {
-  kCoordinateM,        // a point's X, Y or Z, a shape's size (m)
-  kRadiusM,            // a wire's radius (m)
-  kFrequencyHz,        // the frequency of a model or an option (Hz)
-  kVoltageV,           // a feed's voltage (V), either sign
-  kResistanceOhm,      // a load's R (ohm)
-  kInductanceH,        // a load's L, a coil's or a transformer's inductance (H)
-  kCapacitanceF,       // a load's C (F)
-  kImpedanceOhm,       // z0, a line's or a reference impedance (ohm)
-  kPermittivity,       // a ground's relative permittivity
-  kConductivitySPerM,  // a ground's or a wire's conductivity (S/m)
-  kPermeability,       // a wire's relative permeability
-  kLineLengthM,        // a transmission line's length (m)
-  kCoilSizeM,          // a coil's diameter, length, pitch, wire diameter (m)
-  kCoilTurns,          // a coil's turns
-  kTransformerTurns,   // a transformer's primary or secondary turns
-  kPowerW,             // a transmitter power (W)
+  kCoordinateM,          // a point's X, Y or Z, a shape's size (m)
+  kRadiusM,              // a wire's radius (m)
+  kFrequencyHz,          // the frequency of a model or an option (Hz)
+  kVoltageV,             // a feed's voltage (V), either sign
+  kResistanceOhm,        // a load's R (ohm)
+  kInductanceH,          // a load's L, a coil's or a transformer's inductance (H)
+  kCapacitanceF,         // a load's C (F)
+  kImpedanceOhm,         // z0, a line's or a reference impedance (ohm)
+  kPermittivity,         // a ground's relative permittivity
+  kConductivitySPerM,    // a ground's or a wire's conductivity (S/m)
+  kPermeability,         // a wire's relative permeability
+  kLineLengthM,          // a transmission line's length (m)
+  kCoilSizeM,            // a coil's diameter, length, pitch, wire diameter (m)
+  kCoilTurns,            // a coil's turns
+  kTransformerTurns,     // a transformer's primary or secondary turns
+  kPowerW,               // a transmitter power (W)
+  kLossDbPer100m,        // a line's matched loss figure (dB per 100 m)
+  kAlNanohenryPerTurn2,  // a transformer core's A_L (nH/turn^2)
+  kQuality,              // a transformer core's Q
 };
 
 // One row of the table: [min_si, max_si] (on the magnitude when signed), its unit.
