@@ -89,6 +89,36 @@ TEST(SolveDense, NonFiniteEntriesAreRefused) {
   EXPECT_THROW((void)SolveDense(z, bad_v), ComputationError);
 }
 
+// The message names what overflowed: the excitation or the matrix, never a guess at a cause
+// the input does not have.
+std::string SolveMessage(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
+  try {
+    (void)SolveDense(z, v);
+  } catch (const ComputationError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+TEST(SolveDense, AnOverflowIsCalledAnOverflowAndSaysWhere) {
+  const Model m = testing::Dipole(0.5, 1e-3, 11);
+  geometry::MeshOptions o;
+  o.max_frequency_hz = testing::kUnitWavelengthHz;
+  const geometry::Mesh mesh = geometry::BuildMesh(m, o);
+  const Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz);
+  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, m);
+  const double inf = std::numeric_limits<double>::infinity();
+  Eigen::VectorXcd bad_v = v;
+  bad_v(2) = {inf, 0.0};
+  EXPECT_NE(SolveMessage(z, bad_v).find("the excitation overflows double precision"),
+            std::string::npos);
+  Eigen::MatrixXcd bad_z = z;
+  bad_z(1, 1) = {inf, 0.0};
+  const std::string matrix = SolveMessage(bad_z, v);
+  EXPECT_NE(matrix.find("the impedance matrix overflows double precision"), std::string::npos)
+      << matrix;
+}
+
 int ThreadsOfThisProcess() {
   int count = 0;
   for ([[maybe_unused]] const auto& entry :
