@@ -68,13 +68,18 @@ TEST(SolveDense, UnsymmetricMatrixIsDetectedAndSolvedByLu) {
 
 // A NaN or an infinity anywhere in the matrix (here in either triangle or on the diagonal of a
 // symmetric matrix) is refused before any factorization, and so is one in the excitation.
-TEST(SolveDense, NonFiniteEntriesAreRefused) {
-  const Model m = testing::Dipole(0.5, 1e-3, 31);
+// The matrix and excitation of a half-wave dipole of `segments` segments at one wavelength.
+std::pair<Eigen::MatrixXcd, Eigen::VectorXcd> DipoleSystem(int segments) {
+  const Model m = testing::Dipole(0.5, 1e-3, segments);
   geometry::MeshOptions o;
   o.max_frequency_hz = testing::kUnitWavelengthHz;
   const geometry::Mesh mesh = geometry::BuildMesh(m, o);
-  const Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz);
-  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, m);
+  return {fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz),
+          fill::AssembleExcitation(mesh, m)};
+}
+
+TEST(SolveDense, NonFiniteEntriesAreRefused) {
+  const auto [z, v] = DipoleSystem(31);
   const double nan = std::numeric_limits<double>::quiet_NaN();
   const double inf = std::numeric_limits<double>::infinity();
   for (const auto& [r, c, value] : {std::tuple{3, 17, std::complex<double>(nan, 0.0)},
@@ -101,12 +106,7 @@ std::string SolveMessage(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
 }
 
 TEST(SolveDense, AnOverflowIsCalledAnOverflowAndSaysWhere) {
-  const Model m = testing::Dipole(0.5, 1e-3, 11);
-  geometry::MeshOptions o;
-  o.max_frequency_hz = testing::kUnitWavelengthHz;
-  const geometry::Mesh mesh = geometry::BuildMesh(m, o);
-  const Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz);
-  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, m);
+  const auto [z, v] = DipoleSystem(11);
   const double inf = std::numeric_limits<double>::infinity();
   Eigen::VectorXcd bad_v = v;
   bad_v(2) = {inf, 0.0};
