@@ -78,7 +78,7 @@ int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inp
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
-             finished, result.rows_planned, partial_path, flags.csv_path);
+             finished, result.rows_planned, Printable(partial_path), Printable(flags.csv_path));
   return exit_code;
 }
 

@@ -2,6 +2,7 @@
 // parses the arguments with CLI11, runs the chosen command and turns every outcome into an
 // exit code: 0 done, 2 bad input or options, 1 a failed computation or an internal error.
 #include <fmt/format.h>
+#include <sys/stat.h>
 
 #include <CLI/CLI.hpp>
 #include <cstdio>
@@ -35,6 +36,24 @@ std::string FirstWord(int argc, char** argv) {
     if (arg.empty() || arg.front() != '-') return arg;
   }
   return {};
+}
+
+// "; '-rf.wire' is an existing file: ..." when an argument that the option parser took for an
+// option names an existing file, else empty.
+std::string DashFileHint(int argc, char** argv) {
+  for (int i = 1; i < argc; ++i) {
+    const std::string arg = argv[i];
+    if (arg == "--") break;
+    if (arg.size() < 2 || arg[0] != '-') continue;
+    struct stat info {};
+    if (stat(arg.c_str(), &info) != 0 || S_ISDIR(info.st_mode)) continue;
+    return fmt::format(
+        "; '{}' is an existing file, but a name starting with '-' reads as an "
+        "option: put '--' before it (wirefield {} -- {}) or write ./{}",
+        wirefield::Printable(arg), wirefield::Printable(argv[1]), wirefield::Printable(arg),
+        wirefield::Printable(arg));
+  }
+  return "";
 }
 
 // Runs a command and maps its exceptions to exit codes; nothing escapes.
@@ -104,7 +123,8 @@ int Run(int argc, char** argv) {
                  CommandList(names), help);
       return kExitBadInput;
     }
-    fmt::print(stderr, "wirefield: error: {}\nRun `{}` to see the options.\n", error.what(), help);
+    fmt::print(stderr, "wirefield: error: {}{}\nRun `{}` to see the options.\n",
+               wirefield::Printable(error.what()), DashFileHint(argc, argv), help);
     return kExitBadInput;
   }
   for (const auto& command : commands) {

@@ -138,7 +138,7 @@ Target Resolve(const OutputPath& output) {
     if (type == S_IFDIR) {
       Refuse(output.path, fmt::format("the {} file to write is a folder; give a file name in it, "
                                       "e.g. {}/out",
-                                      output.what, output.path));
+                                      output.what, Printable(output.path)));
     }
     if (type == S_IFREG) {
       target.kind = Kind::kRegular;
@@ -179,7 +179,7 @@ std::vector<Target> CheckTargets(const std::vector<OutputPath>& outputs,
         Refuse(target.path,
                fmt::format("the {} file to write is the {} file {}{}; nothing was written: give "
                            "the {} file another path",
-                           target.what, input.what, input.path,
+                           target.what, input.what, Printable(input.path),
                            input.path == target.path ? "" : " (the same file by another name)",
                            target.what));
       }
@@ -200,7 +200,7 @@ std::vector<Target> CheckTargets(const std::vector<OutputPath>& outputs,
       Refuse(target.path,
              fmt::format("the {} and {} files are both {}{}; nothing was written: give each its "
                          "own path",
-                         other.what, target.what, other.path,
+                         other.what, target.what, Printable(other.path),
                          other.path == target.path ? "" : " (one file by two names)"));
     }
   }
@@ -348,7 +348,7 @@ void WriteOutputFiles(const std::vector<OutputFile>& files, const std::vector<In
       Refuse(target.path,
              fmt::format("no program is reading the FIFO {} (the {} file); start the reader "
                          "first, or give a regular file",
-                         target.path, target.what));
+                         Printable(target.path), target.what));
     }
     if (fd < 0) FailToWrite(target.path, target.what, std::strerror(errno));
     progress.KeepOpen(fd);
@@ -405,7 +405,7 @@ void WriteFilesThenReport(const std::vector<OutputFile>& files,
   WriteOutputFiles(files, inputs);
   if (!json) {
     for (const OutputFile& file : files) {
-      report += fmt::format("Wrote the {} file {}\n", file.what, file.path);
+      report += fmt::format("Wrote the {} file {}\n", file.what, Printable(file.path));
     }
   }
   WriteStdout(report);

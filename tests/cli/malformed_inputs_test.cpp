@@ -6,6 +6,8 @@
 // count characters from 1; a tab is one column). Cases found by fuzzing are at the end.
 #include <gtest/gtest.h>
 
+#include <cctype>
+#include <filesystem>
 #include <string>
 #include <vector>
 
@@ -413,6 +415,48 @@ std::vector<MalformedCase> Cases() {
        kUnits + "wire dip from (-5, 0, 0) to (5, 0, 0) radius 1mm\n" + kFeed + kFrequency +
            "ground perfect\n",
        2, 1, "lies on the perfect ground"},
+      // ---- values outside their allowed range (model/ranges.cpp) ---------------------
+      {"voltage_past_the_range", kHead + "feed src at dip@50% voltage 1e308V\n" + kFrequency, 3, 29,
+       "voltage must be 1e-06 V to 1e+06 V in magnitude, either sign; got 1e+308 V"},
+      {"voltage_below_the_range", kHead + "feed src at dip@50% voltage 1e-300V\n" + kFrequency, 3,
+       29, "voltage must be 1e-06 V to 1e+06 V in magnitude, either sign; got 1e-300 V"},
+      {"ground_permittivity_past_the_range",
+       kGood + "ground real permittivity=1e308 conductivity=1e308\n", 5, 26,
+       "permittivity must be 1 to 1000; got 1e+308"},
+      {"ground_conductivity_past_the_range",
+       kGood + "ground real permittivity=13 conductivity=1e308\n", 5, 42,
+       "conductivity must be 0 S/m to 1e+09 S/m; got 1e+308 S/m"},
+      {"line_length_past_the_range", kGood + "line feeder at src length 1e9 z0=50 velocity=0.66\n",
+       5, 27, "length must be 1e-06 m to 100000 m; got 1e+09 m"},
+      {"line_loss_past_what_double_precision_carries",
+       kGood + "line feeder at src length 1e5 z0=50 velocity=0.66 loss=1000@14MHz\n", 5, 20,
+       "a matched loss of 1e+06 dB over its 100000 m is more than 1000 dB"},
+      {"coordinate_past_the_range",
+       kUnits + "wire dip from (-5e9, 0, 10) to (5, 0, 10) radius 1mm\n" + kFeed + kFrequency, 2,
+       16, "the X coordinate must be -100000 m to 100000 m; got -5e+09 m"},
+      {"radius_below_the_range",
+       kUnits + "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1e-12\n" + kFeed + kFrequency, 2,
+       48, "the radius must be 1e-07 m to 10 m; got 1e-12 m"},
+      {"load_resistance_past_the_range", kGood + "load l at dip@25% series R=1e15\n", 5, 28,
+       "must be 0 ohm to 1e+12 ohm; got 1e+15 ohm"},
+      {"frequency_below_the_range", kBody + "frequency 0.5Hz\n", 4, 11,
+       "frequency must be 1 Hz to 3e+12 Hz; got 0.5 Hz"},
+      {"z0_below_the_range", kGood + "z0 1e-300\n", 5, 4,
+       "z0 must be 0.001 ohm to 1e+06 ohm; got 1e-300 ohm"},
+      {"coil_turns_past_the_range",
+       kGood + "load c at dip@25% coil turns=1e9 diameter=5cm length=10cm wire=1mm\n", 5, 30,
+       "turns must be 1 to 1e+06; got 1e+09"},
+      // ---- bytes that are not UTF-8 (RFC 3629) are named, never echoed -----------------
+      {"utf8_surrogate_in_name",
+       kUnits + "wire d\xED\xA0\x80p from (-5, 0, 10) to (5, 0, 10) radius 1mm\n" + kFeed +
+           kFrequency,
+       2, 7, "unexpected byte 0xED: not UTF-8 text"},
+      {"utf8_overlong_slash",
+       kUnits + "wire d\xC0\xAFp from (-5, 0, 10) to (5, 0, 10) radius 1mm\n" + kFeed + kFrequency,
+       2, 7, "unexpected byte 0xC0: not UTF-8 text"},
+      {"c1_control_character",
+       kUnits + "wire d\xC2\x9Bp from (-5, 0, 10) to (5, 0, 10) radius 1mm\n" + kFeed + kFrequency,
+       2, 7, "unexpected control character U+009B"},
   };
 }
 
@@ -432,6 +476,79 @@ TEST(MalformedInputs, EachEndsWithExitTwoAndTheLineAndColumnOfTheMistake) {
     EXPECT_NE(run.err.find(c.fragment), std::string::npos) << run.err;
     EXPECT_EQ(run.err.find('\n'), run.err.size() - 1) << "one line of diagnostic: " << run.err;
   }
+}
+
+// Coarse settings keep the three commands fast: a 3-point sweep without the mesh estimate, a
+// pattern on a 10-degree grid (its coarsest).
+const std::vector<std::vector<std::string>>& CommandsAndOptions() {
+  static const std::vector<std::vector<std::string>> kCommands = {
+      {"solve"},
+      {"sweep", "--from", "14MHz", "--to", "14.4MHz", "--points", "3", "--no-mesh-estimate"},
+      {"pattern", "--step", "10"},
+  };
+  return kCommands;
+}
+
+std::vector<std::string> Args(const std::vector<std::string>& command, const std::string& path) {
+  std::vector<std::string> args = {command.front(), path};
+  args.insert(args.end(), command.begin() + 1, command.end());
+  return args;
+}
+
+// True when `text` holds the word nan or inf (any case, any sign) as printf writes them;
+// "resonances" or "information" do not count.
+bool HasNonFiniteNumber(const std::string& text) {
+  std::string word;
+  for (size_t i = 0; i <= text.size(); ++i) {
+    const char c = i < text.size() ? text[i] : ' ';
+    if (std::isalpha(static_cast<unsigned char>(c))) {
+      word += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+      continue;
+    }
+    if (word == "nan" || word == "inf" || word == "infinity") return true;
+    word.clear();
+  }
+  return false;
+}
+
+TEST(MalformedInputs, SweepAndPatternStopAtTheSameLineAndColumnAsSolve) {
+  for (const MalformedCase& c : Cases()) {
+    const std::string path = WriteScratchFile("malformed_" + c.name + ".wire", c.text);
+    const std::string where =
+        path + ":" + std::to_string(c.line) + ":" + std::to_string(c.column) + ": error: ";
+    for (const std::vector<std::string>& command : CommandsAndOptions()) {
+      SCOPED_TRACE(c.name + " with " + command.front());
+      const ProgramRun run = RunWirefield(Args(command, path));
+      ASSERT_TRUE(run.exited) << Describe(run);
+      EXPECT_EQ(run.exit_code, 2) << Describe(run);
+      EXPECT_EQ(run.out, "");
+      EXPECT_EQ(run.err.rfind(where, 0), 0u) << "expected [" << where << "...], got " << run.err;
+    }
+  }
+}
+
+TEST(BundledModels, SolveSweepAndPatternEachExitZeroWithoutNonFiniteNumbers) {
+  std::vector<std::string> models;
+  for (const auto& entry : std::filesystem::directory_iterator(ModelsDir())) {
+    if (entry.path().extension() == ".wire") models.push_back(entry.path().string());
+  }
+  ASSERT_GE(models.size(), 10u);  // the bundled models (models/*.wire)
+  for (const std::string& model : models) {
+    for (const std::vector<std::string>& command : CommandsAndOptions()) {
+      SCOPED_TRACE(model + " with " + command.front());
+      const ProgramRun run = RunWirefield(Args(command, model));
+      ASSERT_TRUE(run.exited) << Describe(run);
+      EXPECT_EQ(run.exit_code, 0) << run.err;
+      EXPECT_FALSE(HasNonFiniteNumber(run.out)) << run.out;
+      EXPECT_FALSE(HasNonFiniteNumber(run.err)) << run.err;
+    }
+  }
+}
+
+TEST(MalformedInputs, TheNonFiniteCheckFindsPrintfsSpellingsOnly) {
+  EXPECT_TRUE(HasNonFiniteNumber("R = -nan ohm"));
+  EXPECT_TRUE(HasNonFiniteNumber("gain inf dBi"));
+  EXPECT_FALSE(HasNonFiniteNumber("resonances at 14.1859 MHz; information"));
 }
 
 TEST(MalformedInputs, CaseNamesAreUnique) {

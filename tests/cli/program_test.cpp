@@ -102,18 +102,25 @@ TEST(Program, SolveWithoutAModelExitsTwo) {
 }
 
 TEST(Program, FailedComputationExitsOneWithAComputationMessage) {
-  // Well-formed input whose numbers overflow the solve: a series load of 1e308 ohm (the
-  // largest double is about 1.8e308, IEEE 754) makes the matrix non-finite.
-  const std::string path = WriteScratchFile("overflowing_load.wire",
-                                            "wire w from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
-                                            "feed f at w@50%\n"
-                                            "load l at w@25% series R=1e308\n"
-                                            "frequency 14.2MHz\n");
+  // Well-formed input whose numbers overflow the feed chain: every value is in its allowed
+  // range and the line's loss is 900 dB at its own figure (1 MHz), but scaled as sqrt(f) it is
+  // 9000 dB at 100 MHz, past the 709 nepers (6158 dB) where e^x overflows double precision
+  // (the largest double is about 1.8e308, IEEE 754).
+  const std::string path =
+      WriteScratchFile("overflowing_line.wire",
+                       "wire w from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
+                       "feed f at w@50%\n"
+                       "line feeder at f length 1e5 z0=50 velocity=0.66 loss=0.9@1MHz\n"
+                       "frequency 100MHz\n");
   const ProgramRun run = RunWirefield({"solve", path, "--json"});
   ASSERT_TRUE(run.exited) << Describe(run);
   EXPECT_EQ(run.exit_code, 1) << Describe(run);
   EXPECT_EQ(run.out, "");
   EXPECT_EQ(run.err.rfind("wirefield: computation failed: ", 0), 0u) << run.err;
+  // The message says what happened: an overflow in the chain, not a non-finite impedance.
+  EXPECT_NE(run.err.find("overflow double precision"), std::string::npos) << run.err;
+  EXPECT_NE(run.err.find("feed line 'feeder' has a total loss too large"), std::string::npos)
+      << run.err;
 }
 
 TEST(Program, SolvingTheDemoModelExitsZeroWithAReport) {

@@ -21,8 +21,19 @@ struct SourceLocation {
   int column = 0;  // 1-based; 0 when unknown
 };
 
-// Formats a location as "FILE:LINE:COLUMN" (or just FILE when line is 0).
+// Formats a location as "FILE:LINE:COLUMN" (or just FILE when line is 0), the file name
+// made Printable.
 std::string ToString(const SourceLocation& location);
+
+// Returns `text` safe to print on a terminal: valid UTF-8 (RFC 3629) passes unchanged except
+// control characters (C0, DEL, C1), which become \t, \n, \r or \xNN, as does every byte
+// that is not part of valid UTF-8 (\xFF) and a backslash itself (\\). Every message that
+// prints a name or a path from the user passes it through here.
+std::string Printable(std::string_view text);
+
+// Decodes one UTF-8 sequence of `text` at byte i (RFC 3629: shortest form, no surrogates,
+// at most U+10FFFF); returns the code point and sets *length, or returns -1 (length 1).
+long DecodeUtf8(std::string_view text, size_t i, size_t* length);
 
 // The user's input is wrong (exit code 2). what() is "FILE:LINE:COLUMN: error: MESSAGE".
 class InputError : public std::runtime_error {

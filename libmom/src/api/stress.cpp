@@ -13,6 +13,7 @@
 #include <cstdlib>
 
 #include "core/constants.hpp"
+#include "model/ranges.hpp"
 #include "network/chain.hpp"
 #include "network/line.hpp"
 #include "post/charge_potential.hpp"
@@ -347,6 +348,9 @@ double ParsePowerArgument(const std::string& text, const std::string& option_nam
   }
   if (!(number > 0.0)) {
     throw InputError(where, fmt::format("{} must be positive; got '{}'", option_name, text));
+  }
+  if (auto message = model::OutOfRange(model::ValueKind::kPowerW, number * factor, option_name)) {
+    throw InputError(where, *message);
   }
   return number * factor;
 }

@@ -34,6 +34,15 @@ constexpr double kMinSegmentOfRadius = 1.0;
 // Relative slack on that bound, so that a wire of exactly N radii in N segments passes despite
 // the rounding of length / N.
 constexpr double kSegmentBoundSlack = 1e-9;
+// Below this length in wavelengths the longest wire is electrically small: the radiation
+// resistance falls as the square of the length (a short dipole's 80 pi^2 (l/lambda)^2 ohm,
+// Balanis, Antenna Theory, 3rd ed., eq. 4-37; from memory) to milliohms, so every result is
+// a tiny difference of large numbers. 0.01 wavelength (a 10 m wire below 300 kHz) is the
+// threshold (common practice); every bundled model is above 0.1.
+constexpr double kElectricallySmallWavelengths = 0.01;
+// Two wires leaving a joint in directions within about 8 degrees of opposite continue each
+// other straight on (cos 172 deg = -0.99).
+constexpr double kStraightThroughCosine = 0.99;
 // Mesh nodes closer than this fraction of the shortest wire coincide.
 constexpr double kJoinRelativeTolerance = 1e-6;
 // Radii below this fraction of the wire length are not physical and would underflow the
@@ -532,6 +541,35 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                                      what, name, EndName(at_end), model.wires[w].name,
                                      model.wires[w].name, has_ground ? " or the ground" : ""));
       }
+      if (what == "feed" && joints[joint].size() >= 3) {
+        // The gap sits at the end of wire w only: the source drives wire w against all the
+        // others joined there. That is meant at a mast's base among radials; it is likely a
+        // slip when another wire continues wire w straight through the joint (a dipole's two
+        // halves with a third wire hung from the middle).
+        auto outward = [&](const EndRef& end) {
+          const auto& c = layout[end.wire].corners;
+          const Vec3 d = end.at_end ? Vec3(c[c.size() - 2] - c.back()) : Vec3(c[1] - c.front());
+          return Vec3(d.normalized());
+        };
+        const Vec3 own = outward(EndRef{w, at_end});
+        std::string straight_on, others;
+        for (const EndRef& end : joints[joint]) {
+          if (end.wire == w) continue;
+          others += fmt::format("{}'{}'", others.empty() ? "" : ", ", model.wires[end.wire].name);
+          if (own.dot(outward(end)) < -kStraightThroughCosine) {
+            straight_on = model.wires[end.wire].name;
+          }
+        }
+        if (!straight_on.empty()) {
+          mesh.warnings.push_back(
+              {at.location,
+               fmt::format("feed '{}' is at a joint of {} wires; it is in series with wire '{}' "
+                           "alone, driving it against {} together, not against '{}' alone, "
+                           "which continues it straight on: move the feed inside the wire it "
+                           "should drive if that is not what you meant",
+                           name, joints[joint].size(), model.wires[w].name, others, straight_on)});
+        }
+      }
     }
     // The segment beside the gap and the node's side of it.
     const int seg = layout[w].first_segment + (k == 0 ? 0 : k - 1);
@@ -592,6 +630,30 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                        spec.name, longest_seg / wavelength_m, options.max_frequency_hz / 1e6,
                        kMaxSegmentWavelengths)});
     }
+  }
+  // The whole antenna far shorter than the wavelength: legal, but dubious.
+  int longest_wire = -1;
+  double longest_wire_m = 0.0;
+  for (int w = 0; w < wire_count; ++w) {
+    double length_m = 0.0;
+    for (int s = 0; s < mesh.wires[w].segments_used; ++s) {
+      length_m += mesh.segments[layout[w].first_segment + s].length_m();
+    }
+    if (length_m > longest_wire_m) {
+      longest_wire_m = length_m;
+      longest_wire = w;
+    }
+  }
+  if (longest_wire >= 0 && longest_wire_m < kElectricallySmallWavelengths * wavelength_m) {
+    const WireSpec& spec = model.wires[longest_wire];
+    mesh.warnings.push_back(
+        {spec.location,
+         fmt::format("the longest wire, '{}', is {:.3g} wavelengths long at {:.6g} MHz "
+                     "({:.3g} m of a {:.3g} m wavelength): the antenna is electrically small, so "
+                     "its radiation resistance is tiny and every result is sensitive to losses "
+                     "and rounding; check the frequency's unit (kHz or MHz?)",
+                     spec.name, longest_wire_m / wavelength_m, options.max_frequency_hz / 1e6,
+                     longest_wire_m, wavelength_m)});
   }
   // Wires that cross or touch without a joint, leg by leg: legs that share an end (a bend of
   // one wire, or a joint of two) are connected there and are not a crossing.

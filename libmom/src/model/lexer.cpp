@@ -24,40 +24,6 @@ bool IsNameStart(char c) { return std::isalpha(static_cast<unsigned char>(c)) ||
 bool IsNameChar(char c) { return std::isalnum(static_cast<unsigned char>(c)) || c == '_'; }
 bool IsDigit(char c) { return c >= '0' && c <= '9'; }
 
-// Decodes one UTF-8 sequence at text[i]; returns the code point or -1 when malformed.
-long DecodeUtf8(std::string_view text, size_t i, size_t* length) {
-  const auto b0 = static_cast<unsigned char>(text[i]);
-  int extra = 0;
-  long cp = 0;
-  if (b0 >= 0xC2 && b0 <= 0xDF) {
-    extra = 1;
-    cp = b0 & 0x1F;
-  } else if (b0 >= 0xE0 && b0 <= 0xEF) {
-    extra = 2;
-    cp = b0 & 0x0F;
-  } else if (b0 >= 0xF0 && b0 <= 0xF4) {
-    extra = 3;
-    cp = b0 & 0x07;
-  } else {
-    *length = 1;
-    return -1;
-  }
-  if (i + static_cast<size_t>(extra) >= text.size()) {
-    *length = 1;
-    return -1;
-  }
-  for (int k = 1; k <= extra; ++k) {
-    const auto b = static_cast<unsigned char>(text[i + static_cast<size_t>(k)]);
-    if ((b & 0xC0) != 0x80) {
-      *length = 1;
-      return -1;
-    }
-    cp = (cp << 6) | (b & 0x3F);
-  }
-  *length = static_cast<size_t>(extra) + 1;
-  return cp;
-}
-
 // A hint for characters that word processors put in place of ASCII ones.
 std::string NonAsciiHint(long cp) {
   switch (cp) {
@@ -116,8 +82,14 @@ std::string NonAsciiHint(long cp) {
                      fmt::format("unexpected byte 0x{:02X}: not UTF-8 text; a model is UTF-8 text",
                                  static_cast<unsigned>(byte)));
   }
-  throw InputError(At(source, column), fmt::format("unexpected character '{}' (U+{:04X}){}",
-                                                   line.substr(i, length), cp, NonAsciiHint(cp)));
+  if (cp <= 0x9F) {  // a C1 control character (U+0080 to U+009F), never printed raw
+    throw InputError(At(source, column),
+                     fmt::format("unexpected control character U+{:04X}; a model is plain text",
+                                 static_cast<unsigned>(cp)));
+  }
+  throw InputError(At(source, column),
+                   fmt::format("unexpected character '{}' (U+{:04X}){}",
+                               Printable(line.substr(i, length)), cp, NonAsciiHint(cp)));
 }
 
 [[noreturn]] void ThrowBadPunct(char c, int column, const LineSource& source) {
@@ -251,8 +223,8 @@ std::vector<std::string_view> SplitLines(std::string_view text) {
 
 std::string Shorten(std::string_view text) {
   constexpr size_t kMaxShown = 40;  // long enough for any real token, short enough for a line
-  if (text.size() <= kMaxShown) return std::string(text);
-  return std::string(text.substr(0, kMaxShown)) + "...";
+  if (text.size() <= kMaxShown) return Printable(text);
+  return Printable(text.substr(0, kMaxShown)) + "...";
 }
 
 std::string Quote(const Token& token) {

@@ -21,6 +21,7 @@
 #include "core/read_file.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
+#include "model/ranges.hpp"
 #include "model/shapes.hpp"
 #include "model/thin_wire.hpp"
 #include "model/units.hpp"
@@ -46,6 +47,16 @@ constexpr size_t kMaxWires = 10000;
 constexpr size_t kMaxStatements = 1000000;
 // Most segments one wire may ask for: 16 * N^2 bytes of complex matrix is then 149 GiB.
 constexpr double kMaxSegmentsPerWire = 100000.0;
+// Largest matched loss of a feed line at its loss figures: 1000 dB passes 1e-100 of the
+// power, far past any real line, and stays far inside the 6158 dB (709 nepers) where e^x
+// overflows double precision in the line's cosh and sinh.
+constexpr double kMaxLineLossDb = 1000.0;
+// Legal but dubious values, warned about: a z0 outside the impedances of feed lines and
+// antenna systems (a few ohm for a small loop's match to 600 ohm open-wire line; common
+// practice) and a coil of more turns than a single-layer loading coil has (common practice).
+constexpr double kDubiousLowZ0_ohm = 1.0;
+constexpr double kDubiousHighZ0_ohm = 1e4;
+constexpr double kDubiousCoilTurns = 1e4;
 // Bytes per matrix entry (a complex double), for the memory estimate in messages.
 constexpr double kBytesPerMatrixEntry = 16.0;
 // A position within this fraction of the wire length from an end is that end. Far below any
@@ -210,6 +221,10 @@ class Parser {
     throw Error(m.start, fmt::format("{} needs {} ({}); got {}", what, q.noun, q.unit_list,
                                      Describe(m.value.dimension)));
   }
+  // Throws at the value's first token unless `v` lies in the allowed range of `kind`.
+  void InRange(ValueKind kind, double v, const Measured& m, const std::string& what) const {
+    if (auto message = OutOfRange(kind, v, what)) throw Error(m.start, *message);
+  }
   double Plain(const Measured& m, const std::string& what, const std::string& meaning) const {
     if (m.value.dimension.IsNone()) return m.value.si;
     throw Error(m.start, fmt::format("{} needs a plain number ({}); got {}", what, meaning,
@@ -360,8 +375,9 @@ class Parser {
     ExpectPunct("(", context, fmt::format("'(' to open the {} point {}", which, form));
     for (size_t i = 0; i < count; ++i) {
       const Measured m = Expression();
-      out[i] = As(m, LengthQuantity(), length_factor_,
-                  fmt::format("{}: the {} coordinate", context, kAxis[i]));
+      const std::string what = fmt::format("{}: the {} coordinate", context, kAxis[i]);
+      out[i] = As(m, LengthQuantity(), length_factor_, what);
+      InRange(ValueKind::kCoordinateM, out[i], m, what);
       if (i + 1 < count) {
         if (IsPunct(")")) {
           throw Error(Peek(), fmt::format("{}: the {} point needs {} coordinates {}; got {}",
@@ -478,6 +494,7 @@ class Parser {
                                            clause.text, FormatNumber(size)));
         }
         const double r = is_diameter ? size / 2.0 : size;
+        InRange(ValueKind::kRadiusM, r, m, fmt::format("{}: the radius", context));
         radius_m = r;
         radius_start_ = m.start;
         wire->radius_m = r;
@@ -629,9 +646,9 @@ class Parser {
         toward_token = clause;
         return true;
       }
-      const ShapeNumber number{
-          As(m, LengthQuantity(), length_factor_, fmt::format("{}: {}", context, clause.text)),
-          Loc(m.start)};
+      const std::string what = fmt::format("{}: {}", context, clause.text);
+      const ShapeNumber number{As(m, LengthQuantity(), length_factor_, what), Loc(m.start)};
+      InRange(ValueKind::kCoordinateM, number.value, m, what);
       std::optional<ShapeNumber>* slot = clause.text == "top"      ? &top
                                          : clause.text == "length" ? &length
                                                                    : &request.low_m;
@@ -718,6 +735,7 @@ class Parser {
                                          "it out for a perfect conductor)",
                                          context, FormatNumber(sigma)));
       }
+      InRange(ValueKind::kConductivitySPerM, sigma, m, context + ": conductivity");
       c->conductivity = sigma;
     } else {
       if (c->permeability) throw twice();
@@ -733,6 +751,7 @@ class Parser {
                                          "vacuum; 1 for non-magnetic metals); got {}",
                                          context, FormatNumber(mu_r)));
       }
+      InRange(ValueKind::kPermeability, mu_r, m, context + ": permeability");
       c->permeability = mu_r;
       c->permeability_token = clause;
     }
@@ -843,6 +862,7 @@ class Parser {
                                          "nothing); leave it out for 1 V",
                                          context));
       }
+      InRange(ValueKind::kVoltageV, feed.voltage_v, m, context + ": voltage");
     }
     if (Peek().kind != TokenKind::kEnd) {
       throw Error(Peek(), fmt::format("{}: unexpected {}; after the point comes only an optional "
@@ -899,6 +919,7 @@ class Parser {
           throw Error(m.start, fmt::format("{}: R must not be negative; got {} ohm", context,
                                            FormatNumber(r)));
         }
+        InRange(ValueKind::kResistanceOhm, r, m, what);
         load.resistance_ohm = r;
       } else if (element.text == "L") {
         if (load.inductance_h) throw twice();
@@ -907,6 +928,7 @@ class Parser {
           throw Error(m.start, fmt::format("{}: L must not be negative; got {} H", context,
                                            FormatNumber(l)));
         }
+        InRange(ValueKind::kInductanceH, l, m, what);
         load.inductance_h = l;
       } else {
         if (load.capacitance_f) throw twice();
@@ -916,6 +938,7 @@ class Parser {
                                            "capacitor)",
                                            context, FormatNumber(c)));
         }
+        InRange(ValueKind::kCapacitanceF, c, m, what);
         load.capacitance_f = c;
       }
     }
@@ -984,10 +1007,19 @@ class Parser {
           throw Error(m.start, fmt::format("{}: the coil needs at least 1 turn; got {}", context,
                                            FormatNumber(coil.turns)));
         }
+        InRange(ValueKind::kCoilTurns, coil.turns, m, what);
+        if (coil.turns > kDubiousCoilTurns) {
+          model_.warnings.push_back(Warning{
+              Loc(m.start),
+              fmt::format("{}: {} turns is more than any single-layer antenna coil ({} at most); "
+                          "check the number",
+                          context, FormatNumber(coil.turns), FormatNumber(kDubiousCoilTurns))});
+        }
         continue;
       }
       if (clause.text == "inductance") {
-        target_h = Positive(m, InductanceQuantity(), context, "the coil inductance", "");
+        target_h = Positive(m, InductanceQuantity(), ValueKind::kInductanceH, context,
+                            "the coil inductance", "");
         continue;
       }
       const double size_m = As(m, LengthQuantity(), length_factor_, what);
@@ -997,6 +1029,7 @@ class Parser {
                     fmt::format("{}: the coil {} must be {}; got {} m", context, clause.text,
                                 may_be_zero ? "zero or more" : "positive", FormatNumber(size_m)));
       }
+      InRange(ValueKind::kCoilSizeM, size_m, m, what);
       if (clause.text == "diameter") coil.former_diameter_m = size_m;
       if (clause.text == "length") coil.length_m = size_m;
       if (clause.text == "pitch") coil.pitch_m = size_m;
@@ -1115,13 +1148,15 @@ class Parser {
     return Expression();
   }
 
-  double Positive(const Measured& m, const Quantity& q, const std::string& context,
+  // A positive value of q, in the allowed range of `kind`.
+  double Positive(const Measured& m, const Quantity& q, ValueKind kind, const std::string& context,
                   const std::string& what, const std::string& advice) const {
     const double v = As(m, q, 1.0, fmt::format("{}: {}", context, what));
     if (!(v > 0.0)) {
       throw Error(m.start, fmt::format("{}: {} must be positive; got {} {}{}", context, what,
                                        FormatNumber(v), q.si_unit, advice));
     }
+    InRange(kind, v, m, fmt::format("{}: {}", context, what));
     return v;
   }
 
@@ -1172,6 +1207,10 @@ class Parser {
             throw Error(at, fmt::format("{}: the {} turns must be positive; got {}", context, side,
                                         FormatNumber(value)));
           }
+          if (auto message = OutOfRange(ValueKind::kTransformerTurns, value,
+                                        fmt::format("{}: the {} turns", context, side))) {
+            throw Error(at, *message);
+          }
         }
         have_turns = true;
         continue;
@@ -1200,8 +1239,9 @@ class Parser {
                                           context));
         }
         if (w == "magnetizing") {
-          t.magnetizing_inductance_h = Positive(m, InductanceQuantity(), context, "magnetizing",
-                                                " (leave it out for an ideal transformer)");
+          t.magnetizing_inductance_h =
+              Positive(m, InductanceQuantity(), ValueKind::kInductanceH, context, "magnetizing",
+                       " (leave it out for an ideal transformer)");
           magnetizing_token = clause;
         } else {
           double al = 0.0;
@@ -1218,6 +1258,7 @@ class Parser {
             throw Error(m.start, fmt::format("{}: al must be positive; got {} nH/turn^2", context,
                                              FormatNumber(al)));
           }
+          InRange(ValueKind::kAlNanohenryPerTurn2, al, m, context + ": al");
           t.al_nh_per_turn2 = al;
           al_token = clause;
         }
@@ -1228,12 +1269,14 @@ class Parser {
           throw Error(m.start, fmt::format("{}: leakage must not be negative; got {} H", context,
                                            FormatNumber(l)));
         }
+        InRange(ValueKind::kInductanceH, l, m, context + ": leakage");
         t.leakage_inductance_h = l;
         leakage_token = clause;
       } else if (w == "compensation") {
         if (t.compensation_capacitance_f) throw twice();
-        t.compensation_capacitance_f = Positive(m, CapacitanceQuantity(), context, "compensation",
-                                                " (leave it out for no capacitor)");
+        t.compensation_capacitance_f =
+            Positive(m, CapacitanceQuantity(), ValueKind::kCapacitanceF, context, "compensation",
+                     " (leave it out for no capacitor)");
       } else {
         const bool is_q = w == "q";
         if ((is_q && q_token) || (!is_q && coreloss_token)) throw twice();
@@ -1246,11 +1289,13 @@ class Parser {
             throw Error(m.start,
                         fmt::format("{}: q must be positive; got {}", context, FormatNumber(q)));
           }
+          InRange(ValueKind::kQuality, q, m, context + ": q");
           t.core_q = q;
           q_token = clause;
         } else {
-          t.core_loss_resistance_ohm = Positive(m, ResistanceQuantity(), context, "coreloss",
-                                                " (leave it out for a lossless core)");
+          t.core_loss_resistance_ohm =
+              Positive(m, ResistanceQuantity(), ValueKind::kResistanceOhm, context, "coreloss",
+                       " (leave it out for a lossless core)");
           coreloss_token = clause;
         }
       }
@@ -1365,6 +1410,7 @@ class Parser {
           throw Error(m.start, fmt::format("{}: length must be positive; got {} m", context,
                                            FormatNumber(line.length_m)));
         }
+        InRange(ValueKind::kLineLengthM, line.length_m, m, context + ": length");
         length_token = clause;
       } else if (w == "cable") {
         if (cable_token) throw twice();
@@ -1400,8 +1446,8 @@ class Parser {
       } else if (w == "z0") {
         if (z0_token) throw twice();
         if (cable_token) throw Error(clause, either);
-        line.z0_ohm =
-            Positive(ClauseValue(context, clause), ResistanceQuantity(), context, "z0", "");
+        line.z0_ohm = Positive(ClauseValue(context, clause), ResistanceQuantity(),
+                               ValueKind::kImpedanceOhm, context, "z0", "");
         z0_token = clause;
       } else if (w == "velocity") {
         if (velocity_token) throw twice();
@@ -1433,6 +1479,18 @@ class Parser {
       }
       if (!loss_token) line.loss_points = 0;  // documented: no loss= is a lossless line
     }
+    // A matched loss beyond kMaxLineLossDb at its own loss figures overflows the line's
+    // cosh and sinh (e^x overflows past x = 709 nepers, 6158 dB) long before any sweep.
+    const double worst_db_per_100m =
+        line.loss_points == 0 ? 0.0 : std::max(line.loss1_db_per_100m, line.loss2_db_per_100m);
+    if (worst_db_per_100m * line.length_m / 100.0 > kMaxLineLossDb) {
+      throw Error(*length_token,
+                  fmt::format("{}: a matched loss of {} dB over its {} m is more than {} dB; "
+                              "no power would reach the antenna: shorten the line or lower its "
+                              "loss",
+                              context, FormatNumber(worst_db_per_100m * line.length_m / 100.0),
+                              FormatNumber(line.length_m), FormatNumber(kMaxLineLossDb)));
+    }
     line_lines_[line.name] = line.location;
     feed_line_[line.feed] = {line.name, line.location};
     model_.feed_lines.push_back(std::move(line));
@@ -1457,12 +1515,14 @@ class Parser {
         throw Error(m.start, fmt::format("{}: loss must not be negative; got {} dB/100 m", context,
                                          FormatNumber(db[n])));
       }
+      InRange(ValueKind::kLossDbPer100m, db[n], m, context + ": loss");
       if (!IsPunct("@")) {
         throw Expected(context, "'@' and the frequency of the loss figure (loss=1.3@10MHz)");
       }
       Next();
       const Measured fm = Expression();
       f[n] = As(fm, FrequencyQuantity(), 1.0, context + ": loss=DB@F");
+      if (f[n] > 0.0) InRange(ValueKind::kFrequencyHz, f[n], fm, context + ": loss=DB@F");
       if (!(f[n] > 0.0)) {
         throw Error(fm.start, fmt::format("{}: the frequency of a loss figure must be positive; "
                                           "got {} Hz",
@@ -1598,6 +1658,7 @@ class Parser {
                                              "more (0 turns the exact ground off); got {} m",
                                              FormatNumber(h)));
           }
+          InRange(ValueKind::kCoordinateM, h, m, "ground real: exact_below");
           ground.exact_below_m = h;
           continue;
         }
@@ -1625,6 +1686,7 @@ class Parser {
                                              "(relative to vacuum); got {}",
                                              FormatNumber(eps)));
           }
+          InRange(ValueKind::kPermittivity, eps, m, "ground real: permittivity");
           permittivity = eps;
         } else {
           if (conductivity) throw Error(setting, "ground real: conductivity is given twice");
@@ -1634,6 +1696,7 @@ class Parser {
                                              "got {} S/m",
                                              FormatNumber(sigma)));
           }
+          InRange(ValueKind::kConductivitySPerM, sigma, m, "ground real: conductivity");
           conductivity = sigma;
         }
       }
@@ -1678,6 +1741,7 @@ class Parser {
     if (f <= 0.0) {
       throw Error(m.start, fmt::format("frequency must be positive; got {} Hz", FormatNumber(f)));
     }
+    InRange(ValueKind::kFrequencyHz, f, m, "frequency");
     ExpectEnd("frequency");
     frequency_line_ = Loc(keyword);
     model_.frequency_hz = f;
@@ -1692,6 +1756,14 @@ class Parser {
     const double z0 = As(m, ResistanceQuantity(), 1.0, "z0");
     if (z0 <= 0.0) {
       throw Error(m.start, fmt::format("z0 must be positive; got {} ohm", FormatNumber(z0)));
+    }
+    InRange(ValueKind::kImpedanceOhm, z0, m, "z0");
+    if (z0 < kDubiousLowZ0_ohm || z0 > kDubiousHighZ0_ohm) {
+      model_.warnings.push_back(Warning{
+          Loc(m.start), fmt::format("z0 {} ohm is far from any feed line ({} to {} ohm); the SWR "
+                                    "against it says little about a real transmitter",
+                                    FormatNumber(z0), FormatNumber(kDubiousLowZ0_ohm),
+                                    FormatNumber(kDubiousHighZ0_ohm))});
     }
     ExpectEnd("z0");
     z0_line_ = Loc(keyword);
@@ -1718,7 +1790,7 @@ class Parser {
 
 // A command-line quantity: one expression of the quantity q (bare numbers in its SI unit).
 double ParseArgument(const std::string& text, const std::string& option_name, const Quantity& q,
-                     const std::string& example) {
+                     ValueKind kind, const std::string& example) {
   const LineSource source{option_name, 1, 0};
   const std::vector<Token> tokens = LexLine(text, source);
   if (tokens[0].kind == TokenKind::kEnd) {
@@ -1733,7 +1805,7 @@ double ParseArgument(const std::string& text, const std::string& option_name, co
     throw InputError(At(source, tokens[pos].column),
                      fmt::format("unexpected {} after the value", Quote(tokens[pos])));
   }
-  double si = v.si;
+  const double si = v.si;
   if (!v.dimension.IsNone() && v.dimension != q.dimension) {
     throw InputError(At(source, start.column),
                      fmt::format("{} needs {} ({}); got {}", option_name, q.noun, q.unit_list,
@@ -1743,6 +1815,9 @@ double ParseArgument(const std::string& text, const std::string& option_name, co
     throw InputError(
         At(source, start.column),
         fmt::format("{} must be positive; got {} {}", option_name, FormatNumber(si), q.si_unit));
+  }
+  if (auto message = OutOfRange(kind, si, option_name)) {
+    throw InputError(At(source, start.column), *message);
   }
   return si;
 }
@@ -1787,15 +1862,18 @@ Override ParseOverride(const std::string& text) {
 }
 
 double ParseFrequencyArgument(const std::string& text, const std::string& option_name) {
-  return model::ParseArgument(text, option_name, model::FrequencyQuantity(), "14.2MHz");
+  return model::ParseArgument(text, option_name, model::FrequencyQuantity(),
+                              model::ValueKind::kFrequencyHz, "14.2MHz");
 }
 
 double ParseResistanceArgument(const std::string& text, const std::string& option_name) {
-  return model::ParseArgument(text, option_name, model::ResistanceQuantity(), "50 or 50ohm");
+  return model::ParseArgument(text, option_name, model::ResistanceQuantity(),
+                              model::ValueKind::kImpedanceOhm, "50 or 50ohm");
 }
 
 double ParseLengthArgument(const std::string& text, const std::string& option_name) {
-  return model::ParseArgument(text, option_name, model::LengthQuantity(), "28.5mm");
+  return model::ParseArgument(text, option_name, model::LengthQuantity(),
+                              model::ValueKind::kCoilSizeM, "28.5mm");
 }
 
 double ParseVariableArgument(const std::string& text, const std::string& option_name,
@@ -1825,11 +1903,13 @@ double ParseVariableArgument(const std::string& text, const std::string& option_
 }
 
 double ParseInductanceArgument(const std::string& text, const std::string& option_name) {
-  return model::ParseArgument(text, option_name, model::InductanceQuantity(), "20uH");
+  return model::ParseArgument(text, option_name, model::InductanceQuantity(),
+                              model::ValueKind::kInductanceH, "20uH");
 }
 
 double ParseVoltageArgument(const std::string& text, const std::string& option_name) {
-  return model::ParseArgument(text, option_name, model::VoltageQuantity(), "500V or 2kV");
+  return model::ParseArgument(text, option_name, model::VoltageQuantity(),
+                              model::ValueKind::kVoltageV, "500V or 2kV");
 }
 
 }  // namespace wirefield

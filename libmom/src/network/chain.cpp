@@ -94,10 +94,15 @@ ChainResult EvaluateChain(const TransformerSpec* transformer, const FeedLineSpec
                          r.swr, r.return_loss_db, r.mismatch_loss_db, r.line_loss_fraction,
                          r.transformer_loss_fraction, r.antenna_power_fraction}) {
     if (!std::isfinite(v)) {
-      throw ComputationError(
-          fmt::format("feed chain at {} Hz: a non-finite result for the antenna "
-                      "impedance {}{:+}j ohm",
-                      frequency_hz, z_antenna_ohm.real(), z_antenna_ohm.imag()));
+      // The antenna impedance is finite (checked above): the overflow is in the chain.
+      throw ComputationError(fmt::format(
+          "feed chain at {} Hz: the figures at the transmitter overflow double precision "
+          "(for an antenna impedance of {}{:+}j ohm){}",
+          frequency_hz, z_antenna_ohm.real(), z_antenna_ohm.imag(),
+          line ? fmt::format("; feed line '{}' has a total loss too large to carry through "
+                             "(thousands of dB): shorten it or lower its loss",
+                             line->name)
+               : ""));
     }
   }
   return r;

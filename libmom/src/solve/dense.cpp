@@ -207,8 +207,16 @@ DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v) {
                                        z.rows(), z.cols(), v.size()));
   }
   const MatrixSurvey survey = Survey(z);
-  if (!survey.finite || !v.allFinite()) {
-    throw ComputationError("the impedance matrix has non-finite entries (coincident segments?)");
+  if (!v.allFinite()) {
+    throw ComputationError(
+        "the excitation overflows double precision (a feed voltage past 1e308 V?); the allowed "
+        "voltages are 1 uV to 1 MV");
+  }
+  if (!survey.finite) {
+    throw ComputationError(
+        "the impedance matrix overflows double precision (its entries are not finite numbers): "
+        "a ground, a load or a wire constant too large for the fill, or two segments at the same "
+        "place");
   }
   DenseSolution out;
   const double vnorm = v.norm();
@@ -231,7 +239,13 @@ DenseSolution SolveDense(Eigen::MatrixXcd z, const Eigen::VectorXcd& v) {
   out.currents = SolveLu(z, v, OneNorm(z), &out.reciprocal_condition);
   out.relative_residual = vnorm > 0.0 ? (z * out.currents - v).norm() / vnorm : 0.0;
 #endif
-  if (!out.currents.allFinite() || !(out.relative_residual <= kMaxRelativeResidual)) {
+  if (!out.currents.allFinite() || !std::isfinite(out.relative_residual)) {
+    // Finite matrix and excitation, non-finite currents: the solve itself overflowed.
+    throw ComputationError(
+        "the currents overflow double precision (the matrix is singular or its scale is "
+        "extreme); check for wires that overlap or segments far shorter than their radius");
+  }
+  if (!(out.relative_residual <= kMaxRelativeResidual)) {
     throw ComputationError(fmt::format(
         "the moment-method matrix is singular (relative residual {:.3g}); check for wires "
         "that overlap or segments far shorter than their radius",

@@ -17,6 +17,7 @@
 #include <vector>
 
 #include "core/read_file.hpp"
+#include "model/ranges.hpp"
 
 namespace wirefield {
 namespace {
@@ -49,17 +50,12 @@ std::string Upper(const std::string& text) {
   return out;
 }
 
-// Control bytes and long tokens are shown shortened and escaped, so a binary file gives a
-// readable message.
+// Control bytes and long tokens are shown shortened and escaped (Printable), so a binary
+// file gives a readable message.
 std::string Shown(const std::string& text) {
   constexpr std::size_t kMaxShown = 24;
-  std::string out;
-  for (std::size_t i = 0; i < text.size() && i < kMaxShown; ++i) {
-    const auto c = static_cast<unsigned char>(text[i]);
-    out += (c < 0x20 || c >= 0x7f) ? '?' : static_cast<char>(c);
-  }
-  if (text.size() > kMaxShown) out += "...";
-  return out;
+  if (text.size() <= kMaxShown) return Printable(text);
+  return Printable(std::string_view(text).substr(0, kMaxShown)) + "...";
 }
 
 // A finite decimal number of the whole token ("1.5", "-2e-3", "+7"), else nothing.
@@ -126,8 +122,23 @@ class Reader {
     const std::vector<Token> tokens = Tokens(line);
     if (tokens.empty()) return;
     if (tokens.front().text[0] == '#') {
-      if (!options_seen_) ReadOptions(line, line_number);
-      options_seen_ = true;  // the standard ignores option lines after the first
+      // Touchstone 1.1 has one option line, before the data; a second one would change the
+      // meaning of the numbers if it were read, so it is refused rather than ignored.
+      const int column = static_cast<int>(line.find('#')) + 1;
+      if (options_line_ > 0) {
+        Fail(line_number, column,
+             fmt::format("a second option line (the first is line {}); a Touchstone file has "
+                         "one option line: delete this one or merge the two",
+                         options_line_));
+      }
+      if (data_line_ > 0) {
+        Fail(line_number, column,
+             fmt::format("an option line after the data (which starts at line {}); move it "
+                         "above the first data line",
+                         data_line_));
+      }
+      ReadOptions(line, line_number);
+      options_line_ = line_number;
       return;
     }
     if (tokens.front().text[0] == '[') {
@@ -136,7 +147,7 @@ class Reader {
                        "1.1 one-port files: save the file as a version 1 .s1p file",
                        Shown(tokens.front().text)));
     }
-    options_seen_ = true;  // an option line after the first data line would be ignored too
+    if (data_line_ == 0) data_line_ = line_number;
     ReadData(tokens, line_number, static_cast<int>(line.size()));
   }
 
@@ -173,11 +184,15 @@ class Reader {
                "R needs the reference resistance in ohm after it, e.g. `R 50`");
         }
         const std::optional<double> r = Number(tokens[i + 1].text);
-        if (!r || *r <= 0.0) {
+        if (!r) {
           Fail(line_number, tokens[i + 1].column,
-               fmt::format("the reference resistance after R must be a number of ohm greater "
-                           "than 0, e.g. `R 50`; got '{}'",
+               fmt::format("the reference resistance after R must be a number of ohm, e.g. "
+                           "`R 50`; got '{}'",
                            Shown(tokens[i + 1].text)));
+        }
+        if (auto message = model::OutOfRange(model::ValueKind::kImpedanceOhm, *r,
+                                             "the reference resistance after R")) {
+          Fail(line_number, tokens[i + 1].column, *message);
         }
         data_.reference_ohm = *r;
         ++i;
@@ -250,7 +265,8 @@ class Reader {
 
   const std::string& text_;
   TouchstoneData data_;
-  bool options_seen_ = false;
+  int options_line_ = 0;  // the line of the option line; 0 before it
+  int data_line_ = 0;     // the first data line; 0 before it
   std::string previous_frequency_text_;
 };
 

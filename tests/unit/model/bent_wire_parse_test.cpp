@@ -252,12 +252,14 @@ TEST(ParseShapeError, TowardTakesAnAngleInDegreesWithDeg) {
 
 TEST(ParseShapeError, NumbersTooLargeForDoublePrecisionAreRefused) {
   // 1e308 m + 1e308 m overflows double precision (about 1.8e308): no corner may become inf.
-  EXPECT_EQ(ErrorOf("shape kit horizontal top=1 length=1e308 at (1e308, 0) radius 1mm\n" + kFeed),
-            "kit.wire:1:35: error: shape 'kit': the corners of the wire are not finite numbers; "
-            "give top=, length=, low= and at in metres of a real support");
+  // The allowed range of a coordinate or shape size (model/ranges.cpp) stops each at its token.
+  EXPECT_EQ(
+      ErrorOf("shape kit horizontal top=1 length=1e308 at (1e308, 0) radius 1mm\n" + kFeed),
+      "kit.wire:1:35: error: shape 'kit': length must be -100000 m to 100000 m; got 1e+308 m");
   EXPECT_EQ(
       ErrorOf("wire kit through (-1e308, 0, 1), (1e308, 0, 1), (1e308, 1, 1) radius 1mm\n" + kFeed),
-      "kit.wire:1:34: error: wire 'kit': the leg to the 2nd point is not a finite length");
+      "kit.wire:1:19: error: wire 'kit': the X coordinate must be -100000 m to 100000 m; got "
+      "-1e+308 m");
 }
 
 TEST(ParseShapeError, ClausesAreCheckedLikeAWiresClauses) {

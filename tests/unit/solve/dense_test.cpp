@@ -68,13 +68,18 @@ TEST(SolveDense, UnsymmetricMatrixIsDetectedAndSolvedByLu) {
 
 // A NaN or an infinity anywhere in the matrix (here in either triangle or on the diagonal of a
 // symmetric matrix) is refused before any factorization, and so is one in the excitation.
-TEST(SolveDense, NonFiniteEntriesAreRefused) {
-  const Model m = testing::Dipole(0.5, 1e-3, 31);
+// The matrix and excitation of a half-wave dipole of `segments` segments at one wavelength.
+std::pair<Eigen::MatrixXcd, Eigen::VectorXcd> DipoleSystem(int segments) {
+  const Model m = testing::Dipole(0.5, 1e-3, segments);
   geometry::MeshOptions o;
   o.max_frequency_hz = testing::kUnitWavelengthHz;
   const geometry::Mesh mesh = geometry::BuildMesh(m, o);
-  const Eigen::MatrixXcd z = fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz);
-  const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, m);
+  return {fill::AssembleImpedance(mesh, testing::kUnitWavelengthHz),
+          fill::AssembleExcitation(mesh, m)};
+}
+
+TEST(SolveDense, NonFiniteEntriesAreRefused) {
+  const auto [z, v] = DipoleSystem(31);
   const double nan = std::numeric_limits<double>::quiet_NaN();
   const double inf = std::numeric_limits<double>::infinity();
   for (const auto& [r, c, value] : {std::tuple{3, 17, std::complex<double>(nan, 0.0)},
@@ -87,6 +92,31 @@ TEST(SolveDense, NonFiniteEntriesAreRefused) {
   Eigen::VectorXcd bad_v = v;
   bad_v(0) = {nan, nan};
   EXPECT_THROW((void)SolveDense(z, bad_v), ComputationError);
+}
+
+// The message names what overflowed: the excitation or the matrix, never a guess at a cause
+// the input does not have.
+std::string SolveMessage(const Eigen::MatrixXcd& z, const Eigen::VectorXcd& v) {
+  try {
+    (void)SolveDense(z, v);
+  } catch (const ComputationError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+TEST(SolveDense, AnOverflowIsCalledAnOverflowAndSaysWhere) {
+  const auto [z, v] = DipoleSystem(11);
+  const double inf = std::numeric_limits<double>::infinity();
+  Eigen::VectorXcd bad_v = v;
+  bad_v(2) = {inf, 0.0};
+  EXPECT_NE(SolveMessage(z, bad_v).find("the excitation overflows double precision"),
+            std::string::npos);
+  Eigen::MatrixXcd bad_z = z;
+  bad_z(1, 1) = {inf, 0.0};
+  const std::string matrix = SolveMessage(bad_z, v);
+  EXPECT_NE(matrix.find("the impedance matrix overflows double precision"), std::string::npos)
+      << matrix;
 }
 
 int ThreadsOfThisProcess() {

@@ -95,11 +95,18 @@ TEST(Touchstone, ReadsGigahertzMagnitudeAngleAndFiftyOhmWithoutAnOptionLine) {
   EXPECT_NEAR(data.points[0].s11.real(), 0.25, kTight);
 }
 
-TEST(Touchstone, OptionLinesAfterTheFirstAreIgnored) {
-  // Touchstone 1.1: only the first option line counts.
-  const TouchstoneData data = ParseTouchstone("# MHZ S RI R 50\n# KHZ S MA R 75\n1 0.1 0\n", "m");
-  EXPECT_EQ(data.points[0].frequency_hz, 1e6);
-  EXPECT_EQ(data.reference_ohm, 50.0);
+TEST(TouchstoneErrors, ASecondOptionLineIsRefusedAtItsHash) {
+  // Touchstone 1.1 (EIA/IBIS, 2002): a file has one option line, before the data (from
+  // memory); a second one that changed the unit would change every frequency if it were read.
+  EXPECT_EQ(ErrorOf("# MHZ S RI R 50\n  # KHZ S MA R 75\n1 0.1 0\n"),
+            "m.s1p:2:3: error: a second option line (the first is line 1); a Touchstone file has "
+            "one option line: delete this one or merge the two");
+  EXPECT_EQ(ErrorOf("# MHZ S RI R 50\n1 0.1 0\n# KHZ\n"),
+            "m.s1p:3:1: error: a second option line (the first is line 1); a Touchstone file has "
+            "one option line: delete this one or merge the two");
+  EXPECT_EQ(ErrorOf("1 0.1 0\n# MHZ S RI R 50\n"),
+            "m.s1p:2:1: error: an option line after the data (which starts at line 1); move it "
+            "above the first data line");
 }
 
 TEST(TouchstoneErrors, TwoNumbersOnADataLine) {
@@ -155,8 +162,12 @@ TEST(TouchstoneErrors, UnknownOptionWord) {
 
 TEST(TouchstoneErrors, ReferenceResistanceMustBePositive) {
   EXPECT_EQ(ErrorOf("# MHZ S RI R 0\n"),
-            "m.s1p:1:14: error: the reference resistance after R must be a number of ohm "
-            "greater than 0, e.g. `R 50`; got '0'");
+            "m.s1p:1:14: error: the reference resistance after R must be 0.001 ohm to 1e+06 ohm; "
+            "got 0 ohm");
+  // A reference of 1e-300 ohm is positive but outside the range (model/ranges.cpp).
+  EXPECT_EQ(ErrorOf("# MHZ S RI R 1e-300\n"),
+            "m.s1p:1:14: error: the reference resistance after R must be 0.001 ohm to 1e+06 ohm; "
+            "got 1e-300 ohm");
   EXPECT_EQ(ErrorOf("# MHZ S RI R\n"),
             "m.s1p:1:12: error: R needs the reference resistance in ohm after it, e.g. `R 50`");
 }
