@@ -48,7 +48,7 @@ ProgressSettings ProgressFromEnvironment() {
 int CoreCount() { return static_cast<int>(std::max(1u, std::thread::hardware_concurrency())); }
 
 Progress::Progress(std::string stage, double total_units, double expected_s,
-                   ProgressSettings settings)
+                   const ProgressSettings& settings)
     : stage_(std::move(stage)),
       total_units_(total_units),
       expected_s_(expected_s),

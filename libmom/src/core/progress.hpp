@@ -40,7 +40,7 @@ class Progress {
   // the units Advance counts (0: it does not count); expected_s: an estimate of its length
   // (0: none).
   Progress(std::string stage, double total_units, double expected_s = 0.0,
-           ProgressSettings settings = ProgressFromEnvironment());
+           const ProgressSettings& settings = ProgressFromEnvironment());
   ~Progress();
   Progress(const Progress&) = delete;
   Progress& operator=(const Progress&) = delete;
