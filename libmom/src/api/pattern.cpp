@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "core/constants.hpp"
+#include "core/parallel.hpp"
 #include "core/progress.hpp"
 #include "post/far_field.hpp"
 
@@ -91,7 +92,8 @@ struct Evaluator {
     std::vector<FarFieldPoint> points(directions.size());
     constexpr int kChunk = 64;  // directions per task and per progress count
     const int n = static_cast<int>(directions.size());
-    core::ParallelFor((n + kChunk - 1) / kChunk, threads, [&](int c) {
+    core::ParallelFor(threads, static_cast<size_t>((n + kChunk - 1) / kChunk), [&](size_t chunk) {
+      const int c = static_cast<int>(chunk);
       const int end = std::min(n, (c + 1) * kChunk);
       for (int i = c * kChunk; i < end; ++i) {
         points[i] = At(directions[i].first, directions[i].second);

@@ -7,13 +7,12 @@
 
 #include <chrono>
 #include <cmath>
-#include <cstdlib>
 #include <fstream>
 #include <sstream>
-#include <thread>
 
 #include "api/simulation_access.hpp"
 #include "core/constants.hpp"
+#include "core/parallel.hpp"
 #include "core/progress.hpp"
 #include "fill/assemble.hpp"
 #include "fill/conductor.hpp"
@@ -85,9 +84,7 @@ Simulation::Simulation(Model model, SimulationOptions options) : impl_(std::make
       options.max_matrix_bytes ? *options.max_matrix_bytes : DefaultMatrixBudgetBytes();
   impl_->mesh = geometry::BuildMesh(m, mo);
   impl_->near_field = fill::BuildNearFieldCache(
-      impl_->mesh, options.fill_threads > 0
-                       ? options.fill_threads
-                       : static_cast<int>(std::max(1u, std::thread::hardware_concurrency())));
+      impl_->mesh, options.fill_threads > 0 ? options.fill_threads : core::CoreCount());
   impl_->warnings = m.warnings;
   impl_->warnings.insert(impl_->warnings.end(), impl_->mesh.warnings.begin(),
                          impl_->mesh.warnings.end());
@@ -122,9 +119,7 @@ void CheckFrequency(const Model& model, double frequency_hz) {
 }
 
 // A fill-thread count with 0 (or less) meaning one per core.
-int ResolveFillThreads(int asked) {
-  return asked > 0 ? asked : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-}
+int ResolveFillThreads(int asked) { return asked > 0 ? asked : core::CoreCount(); }
 
 // Factors of the solve-cost estimate, measured on the project's 2-core machine (quiet, load
 // below 1; docs/performance.md, "Cost of a large solve"): `solve --no-mesh-estimate` of a
@@ -150,10 +145,10 @@ SolveCostEstimate EstimateSolveCost(int unknowns, int threads) {
 }
 
 std::string LongSolveNotice(int unknowns, int threads) {
-  const char* off = std::getenv("WIREFIELD_PROGRESS");
-  if (off && std::string(off) == "0") return {};
+  const core::ProgressSettings settings = core::ProgressFromEnvironment();
+  if (!settings.estimates) return {};
   const SolveCostEstimate e = EstimateSolveCost(unknowns, threads);
-  if (e.total_s() < core::ProgressFromEnvironment().after_s) return {};
+  if (e.total_s() < settings.after_s) return {};
   return fmt::format(
       "wirefield: {} unknowns: the matrix takes {:.3g} GB of memory; expect about {} for the "
       "fill and {} for the factorisation on {} cores (an estimate: n^2 and n^3 scaling "

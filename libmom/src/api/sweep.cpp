@@ -12,10 +12,9 @@
 #include <cmath>
 #include <exception>
 #include <functional>
-#include <mutex>
-#include <thread>
 
 #include "api/simulation_access.hpp"
+#include "core/parallel.hpp"
 #include "fill/interpolate.hpp"
 #include "solve/blas_threads.hpp"
 
@@ -76,34 +75,6 @@ constexpr size_t kMinPointsPerWindow = 8;
 // The anchors of a window (3 matrices, 6 over a ground) may take at most this much memory;
 // beyond it the sweep fills exactly at every point.
 constexpr double kMaxAnchorBytes = 1024.0 * 1024.0 * 1024.0;
-
-// Runs task(0..count-1) on `threads` workers taking the next index from a shared counter; the
-// first error stops them all and is rethrown.
-void ParallelFor(int threads, size_t count, const std::function<void(size_t)>& task) {
-  std::atomic<size_t> next{0};
-  std::atomic<bool> failed{false};
-  std::exception_ptr error;
-  std::mutex error_mutex;
-  auto work = [&] {
-    while (!failed) {
-      const size_t i = next++;
-      if (i >= count) return;
-      try {
-        task(i);
-      } catch (...) {
-        std::lock_guard<std::mutex> lock(error_mutex);
-        if (!error) error = std::current_exception();
-        failed = true;
-      }
-    }
-  };
-  const int workers = static_cast<int>(std::min<size_t>(static_cast<size_t>(threads), count));
-  std::vector<std::thread> pool;
-  for (int t = 1; t < workers; ++t) pool.emplace_back(work);
-  work();
-  for (std::thread& t : pool) t.join();
-  if (error) std::rethrow_exception(error);
-}
 
 // The sweep's points split into interpolation windows (indices into the frequencies, sorted
 // by frequency) and points solved exactly.
@@ -177,8 +148,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
   SweepResult out;
   out.unknowns = simulation.unknowns();
   out.points.resize(frequencies_hz.size());
-  const int hardware = std::max(1u, std::thread::hardware_concurrency());
-  const int threads = std::clamp(options.threads > 0 ? options.threads : hardware, 1,
+  const int threads = std::clamp(options.threads > 0 ? options.threads : core::CoreCount(), 1,
                                  static_cast<int>(frequencies_hz.size()));
   out.threads_used = threads;
 
@@ -235,7 +205,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
     }
     std::vector<Eigen::VectorXcd> snapshot_currents(snapshots);
     std::vector<double> snapshot_condition(snapshots, 0.0);
-    ParallelFor(threads, snapshots, [&](size_t s) {
+    core::ParallelFor(threads, snapshots, [&](size_t s) {
       const SolveResult r = solve_point(snapshot_at[s], nullptr, &snapshot_currents[s], nullptr);
       snapshot_condition[s] = r.condition_number;
       record(window[snapshot_at[s]], r);
@@ -256,7 +226,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       if (!is_snapshot[w]) rest.push_back(w);
     }
     std::atomic<int> projected_count{0};
-    ParallelFor(threads, rest.size(), [&](size_t e) {
+    core::ParallelFor(threads, rest.size(), [&](size_t e) {
       bool projected = false;
       record(window[rest[e]],
              solve_point(rest[e], snapshots > 0 ? &reduced : nullptr, nullptr, &projected));
@@ -265,7 +235,7 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
     out.projected_points += projected_count;
     out.interpolated_points += static_cast<int>(window.size());
   }
-  ParallelFor(threads, plan.exact.size(), [&](size_t e) {
+  core::ParallelFor(threads, plan.exact.size(), [&](size_t e) {
     const size_t i = plan.exact[e];
     record(i, threads > 1 ? simulation.Solve(frequencies_hz[i], 1)
                           : simulation.Solve(frequencies_hz[i]));

@@ -38,14 +38,13 @@ ProgressSettings ProgressFromEnvironment() {
     s.enabled = true;
   } else if (forced && std::string_view(forced) == "0") {
     s.enabled = false;
+    s.estimates = false;
   } else {
     s.enabled = ::isatty(STDERR_FILENO) == 1;
   }
   s.after_s = SecondsFromEnvironment("WIREFIELD_PROGRESS_AFTER", s.after_s);
   return s;
 }
-
-int CoreCount() { return static_cast<int>(std::max(1u, std::thread::hardware_concurrency())); }
 
 Progress::Progress(std::string stage, double total_units, double expected_s,
                    const ProgressSettings& settings)

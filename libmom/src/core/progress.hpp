@@ -1,5 +1,4 @@
-// Core: progress of a long stage on stderr (the matrix fill, the factorisation, a pattern),
-// and the parallel loop the far field shares out its directions with.
+// Core: progress of a long stage on stderr (the matrix fill, the factorisation, a pattern).
 //
 // Lines read "wirefield: fill 45% (12 s, about 15 s left)". None appears before a stage has
 // run for the delay (3 s), then one every 2 s, and one "done" line at its end if any was
@@ -26,6 +25,8 @@ struct ProgressSettings {
   bool enabled = false;  // lines are printed at all
   double after_s = 3.0;  // silent for this long
   double every_s = 2.0;  // then a line this often
+  // The memory and time estimate before a long solve (off only with WIREFIELD_PROGRESS=0).
+  bool estimates = true;
 };
 
 // The settings the environment and stderr give (see the header comment).
@@ -69,29 +70,7 @@ class Progress {
   std::thread ticker_;
 };
 
-// Calls f(i) for i in [0, count) on `threads` threads (i strided over them, the calling
-// thread one of them). Each f(i) must write only its own results, so that any thread count
-// gives the same answers to the bit.
-template <typename F>
-void ParallelFor(int count, int threads, F f) {
-  threads = std::max(1, std::min(threads, count));
-  auto run = [&](int t) {
-    for (int i = t; i < count; i += threads) f(i);
-  };
-  if (threads == 1) {
-    run(0);
-    return;
-  }
-  std::vector<std::thread> pool;
-  for (int t = 1; t < threads; ++t) pool.emplace_back(run, t);
-  run(0);
-  for (std::thread& th : pool) th.join();
-}
-
 // A duration for a reader: "42 s", "7 min", "2.5 h".
 std::string FormatDuration(double seconds);
-
-// One thread per core (at least one).
-int CoreCount();
 
 }  // namespace wirefield::core

@@ -10,7 +10,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
-#include "core/progress.hpp"
+#include "core/parallel.hpp"
 
 namespace wirefield::post {
 namespace {
@@ -189,7 +189,8 @@ double FarFieldSource::RadiatedPower(int threads, const std::function<void(int)>
   // Each elevation's weighted ring sum on its own, then added in order: the same to the bit
   // for any thread count.
   std::vector<double> rings(static_cast<size_t>(grid.rings()));
-  core::ParallelFor(grid.rings(), threads, [&](int r) {
+  core::ParallelFor(threads, static_cast<size_t>(grid.rings()), [&](size_t ring_index) {
+    const int r = static_cast<int>(ring_index);
     const int p = r / 8, i = (r % 8) / 2, sign = r % 2 == 0 ? -1 : 1;
     const double mid = u_lo + (p + 0.5) * panel;
     const double u = mid + sign * 0.5 * panel * G::abscissa()[i];
