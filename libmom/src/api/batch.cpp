@@ -20,6 +20,7 @@
 #include <set>
 #include <thread>
 
+#include "core/parallel.hpp"
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
 #include "model/units.hpp"
@@ -549,8 +550,7 @@ BatchResult RunGrid(const std::vector<std::string>& texts, const std::vector<std
   }
   for (double f_hz : options.at_hz) mesh_frequency_hz = std::max(mesh_frequency_hz, f_hz);
 
-  const int hardware = std::max(1u, std::thread::hardware_concurrency());
-  const int threads = options.threads > 0 ? options.threads : hardware;
+  const int threads = options.threads > 0 ? options.threads : core::CoreCount();
   const int workers = std::clamp(threads, 1, total);
   const int sweep_threads = std::max(1, threads / workers);
   // Rows in parallel share the cores: each fills its matrices on one thread. A lone row fills
