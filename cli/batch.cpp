@@ -2,7 +2,8 @@
 // `let` values (--vary) and a sweep's frequencies (--band or --from/--to), one row per grid
 // point: resonances, lowest SWR, SWR at --at, gain and take-off, low-angle gain, efficiency.
 // Flags -> BatchOptions -> RunBatchFiles -> FormatBatch* -> stdout and --csv; a grid past
-// 100000 rows (--yes-large) streams its rows into the CSV and gets a short account on stdout.
+// 100000 rows (--yes-large) streams its rows into the CSV's temporary as they finish
+// (StreamedOutput) and gets a short account on stdout.
 // Ctrl-C (SIGINT), SIGTERM or SIGHUP stops the grid after the rows in flight: their rows go
 // to CSV.partial, the CSV itself is left as it was, and the exit code is 128 + signal.
 #include "wirefield/batch.hpp"
@@ -14,6 +15,7 @@
 #include <atomic>
 #include <cstdio>
 #include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -52,19 +54,21 @@ extern "C" void OnInterrupt(int signal) {
   static constexpr char kNote[] =
       "\nbatch: interrupted; finishing the rows in flight (the same signal again stops at "
       "once)\n";
-  // write() and sigaction() are async-signal-safe; the same signal again gets the default
-  // action.
+  // write() and sigaction() are async-signal-safe; the same signal again removes the
+  // temporaries of the outputs being written (a streamed CSV's) and gets the default action.
   [[maybe_unused]] const ssize_t ignored = ::write(STDERR_FILENO, kNote, sizeof kNote - 1);
   struct sigaction action {};
-  action.sa_handler = SIG_DFL;
+  action.sa_handler = RemoveTemporariesAndStop;
   sigemptyset(&action.sa_mask);
   ::sigaction(signal, &action, nullptr);
 }
 
-// After a stop signal: the finished rows (csv_text) to CSV.partial (when --csv), a note on
-// stderr, exit 128 + signal (130 for Ctrl-C), as a shell reports it.
+// After a stop signal: the finished rows (csv_text, or the streamed CSV's when `streamed` is
+// given) to CSV.partial (when --csv), a note on stderr, exit 128 + signal (130 for Ctrl-C), as
+// a shell reports it.
 int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inputs,
-                      const BatchResult& result, int finished, const std::string& csv_text) {
+                      const BatchResult& result, int finished, const std::string& csv_text,
+                      StreamedOutput* streamed) {
   const int exit_code = 128 + interrupt_signal.load();
   if (!Given(flags.csv_option)) {
     fmt::print(stderr,
@@ -74,7 +78,11 @@ int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inp
     return exit_code;
   }
   const std::string partial_path = flags.csv_path + ".partial";
-  WriteOutputFiles({OutputFile{partial_path, csv_text, "partial CSV"}}, inputs);
+  if (streamed != nullptr) {
+    streamed->CommitTo({partial_path, "partial CSV"});
+  } else {
+    WriteOutputFiles({OutputFile{partial_path, csv_text, "partial CSV"}}, inputs);
+  }
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
@@ -159,17 +167,20 @@ int RunBatchCommand(const BatchFlags& flags) {
                      inputs);
   }
 
-  // A grid past kMaxRowsInReport streams: each row goes to the CSV text as it finishes and is
-  // dropped, and stdout gets a short account instead of the table and summary.
+  // A grid past kMaxRowsInReport streams: each row goes to the CSV's temporary as it finishes
+  // (in grid order) and is dropped, and stdout gets a short account instead of the table and
+  // summary.
   const double rows = BatchRowCount(options) * static_cast<double>(paths.size());
   const bool stream = options.allow_large && rows > kMaxRowsInReport && rows <= kMaxBatchRowsEver;
   if (stream) RequireCsvForStreaming(flags, rows);
   std::string csv_text;
+  std::optional<StreamedOutput> csv_stream;
   int streamed = 0;
   if (stream) {
-    options.row_sink = [&csv_text, &streamed](const BatchResult& run, const BatchRow& row) {
-      if (streamed++ == 0) csv_text = FormatBatchCsvHeader(run);
-      csv_text += FormatBatchCsvRow(run, row);
+    csv_stream.emplace(OutputPath{flags.csv_path, "CSV"}, inputs);
+    options.row_sink = [&csv_stream, &streamed](const BatchResult& run, const BatchRow& row) {
+      if (streamed++ == 0) csv_stream->Append(FormatBatchCsvHeader(run));
+      csv_stream->Append(FormatBatchCsvRow(run, row));
     };
   }
 
@@ -181,18 +192,21 @@ int RunBatchCommand(const BatchFlags& flags) {
   });
   PrintWarnings(result.warnings);
   if (!stream && Given(flags.csv_option)) csv_text = FormatBatchCsv(result);
-  if (stream && streamed == 0) csv_text = FormatBatchCsvHeader(result);
+  if (stream && streamed == 0) csv_stream->Append(FormatBatchCsvHeader(result));
   if (result.interrupted) {
     return ReportInterrupted(flags, inputs, result,
-                             stream ? streamed : static_cast<int>(result.rows.size()), csv_text);
+                             stream ? streamed : static_cast<int>(result.rows.size()), csv_text,
+                             stream ? &*csv_stream : nullptr);
+  }
+  if (stream) {
+    CommitThenReport(*csv_stream, FormatBatchStreamedText(result, flags.csv_path), false);
+    return 0;
   }
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
   if (Given(flags.csv_option)) files.push_back({flags.csv_path, std::move(csv_text), "CSV"});
-  std::string output = stream             ? FormatBatchStreamedText(result, flags.csv_path)
-                       : flags.model.json ? FormatBatchJson(result)
-                                          : FormatBatchText(result);
+  std::string output = flags.model.json ? FormatBatchJson(result) : FormatBatchText(result);
   WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }

@@ -17,10 +17,13 @@
 #include <atomic>
 #include <cerrno>
 #include <climits>
+#include <cstdlib>
 #include <cstring>
 #include <filesystem>
 #include <initializer_list>
+#include <string_view>
 #include <system_error>
+#include <tuple>
 
 #include "command.hpp"
 #include "wirefield/wirefield.hpp"
@@ -42,8 +45,7 @@ struct TemporarySlot {
 static_assert(std::atomic<bool>::is_always_lock_free);
 std::array<TemporarySlot, 16> temporary_slots;
 
-// The signals that stop a run from a terminal or a service manager.
-constexpr std::initializer_list<int> kStoppingSignals{SIGINT, SIGTERM, SIGHUP, SIGQUIT};
+}  // namespace
 
 extern "C" void RemoveTemporariesAndStop(int signal) {
   for (TemporarySlot& slot : temporary_slots) {
@@ -57,6 +59,11 @@ extern "C" void RemoveTemporariesAndStop(int signal) {
   ::sigaction(signal, &action, nullptr);
   ::raise(signal);
 }
+
+namespace {
+
+// The signals that stop a run from a terminal or a service manager.
+constexpr std::initializer_list<int> kStoppingSignals{SIGINT, SIGTERM, SIGHUP, SIGQUIT};
 
 sigset_t StoppingSignals() {
   sigset_t set;
@@ -210,7 +217,7 @@ std::vector<Target> CheckTargets(const std::vector<OutputPath>& outputs,
 // ---- writing ------------------------------------------------------------------------------
 
 // Writes the whole text to `fd`; errno is set on failure.
-bool WriteAll(int fd, const std::string& text) {
+bool WriteAll(int fd, std::string_view text) {
   std::size_t done = 0;
   while (done < text.size()) {
     const ssize_t n = ::write(fd, text.data() + done, text.size() - done);
@@ -219,6 +226,27 @@ bool WriteAll(int fd, const std::string& text) {
     done += static_cast<std::size_t>(n);
   }
   return true;
+}
+
+// The text of an output: a string, or the whole of an open file (a StreamedOutput's
+// temporary), read in pieces.
+struct Source {
+  const std::string* text = nullptr;
+  int fd = -1;
+};
+
+// Writes the source to `fd`; errno is set on failure.
+bool WriteSource(int fd, const Source& source) {
+  if (source.text != nullptr) return WriteAll(fd, *source.text);
+  std::string piece(StreamedOutput::kBufferBytes, '\0');
+  for (off_t offset = 0;;) {
+    const ssize_t n = ::pread(source.fd, piece.data(), piece.size(), offset);
+    if (n < 0 && errno == EINTR) continue;
+    if (n < 0) return false;
+    if (n == 0) return true;
+    if (!WriteAll(fd, std::string_view(piece.data(), static_cast<std::size_t>(n)))) return false;
+    offset += n;
+  }
 }
 
 // What a write has made so far; the destructor undoes whatever was not finished.
@@ -282,6 +310,19 @@ mode_t NewFileMode() {
   return static_cast<mode_t>(0666 & ~mask);
 }
 
+// The temporary `fd` of `target` gets the existing file's owner where the system allows it
+// (root, or a group of ours) and its permission bits; a new file gets `new_mode`.
+void KeepOwnerAndMode(int fd, const Target& target, mode_t new_mode) {
+  if (target.kind != Kind::kRegular) {
+    ::fchmod(fd, new_mode);
+    return;
+  }
+  if (target.status.st_uid != ::geteuid() || target.status.st_gid != ::getegid()) {
+    [[maybe_unused]] const int ignored = ::fchown(fd, target.status.st_uid, target.status.st_gid);
+  }
+  ::fchmod(fd, target.status.st_mode & 07777);
+}
+
 // Exclusive flock(2) of each folder while alive (a folder that cannot be opened is not
 // locked: its renames are still each atomic). Folders are locked in sorted order, so two runs
 // never wait for each other crosswise.
@@ -330,10 +371,11 @@ void CheckOutputPaths(const std::vector<OutputPath>& outputs,
   (void)CheckTargets(outputs, inputs);
 }
 
-void WriteOutputFiles(const std::vector<OutputFile>& files, const std::vector<InputPath>& inputs) {
-  std::vector<OutputPath> outputs;
-  outputs.reserve(files.size());
-  for (const OutputFile& file : files) outputs.push_back({file.path, file.what});
+namespace {
+
+// WriteOutputFiles with each output's text from `sources`.
+void WriteSources(const std::vector<OutputPath>& outputs, const std::vector<Source>& sources,
+                  const std::vector<InputPath>& inputs) {
   const std::vector<Target> targets = CheckTargets(outputs, inputs);
 
   const ScopedSignalHandlers on_signal(RemoveTemporariesAndStop, kStoppingSignals);
@@ -365,25 +407,15 @@ void WriteOutputFiles(const std::vector<OutputFile>& files, const std::vector<In
     const auto [fd, slot] = progress.CreateTemporary(target);
     slots[i] = slot;
     folders.push_back(fs::path(target.file).parent_path().string());
-    if (target.kind == Kind::kRegular) {
-      // The existing file's owner where the system allows it (root, or a group of ours), and
-      // its permission bits.
-      if (target.status.st_uid != ::geteuid() || target.status.st_gid != ::getegid()) {
-        [[maybe_unused]] const int ignored =
-            ::fchown(fd, target.status.st_uid, target.status.st_gid);
-      }
-      ::fchmod(fd, target.status.st_mode & 07777);
-    } else {
-      ::fchmod(fd, new_mode);
-    }
-    if (!WriteAll(fd, files[i].text) || ::fsync(fd) != 0) {
+    KeepOwnerAndMode(fd, target, new_mode);
+    if (!WriteSource(fd, sources[i]) || ::fsync(fd) != 0) {
       FailToWrite(target.path, target.what, std::strerror(errno));
     }
   }
   // Write-through outputs.
   for (std::size_t i = 0; i < targets.size(); ++i) {
     if (through_fds[i] < 0) continue;
-    if (!WriteAll(through_fds[i], files[i].text)) {
+    if (!WriteSource(through_fds[i], sources[i])) {
       FailToWrite(targets[i].path, targets[i].what, std::strerror(errno));
     }
   }
@@ -400,14 +432,144 @@ void WriteOutputFiles(const std::vector<OutputFile>& files, const std::vector<In
   }
 }
 
+std::string WroteLine(const std::string& what, const std::string& path) {
+  return fmt::format("Wrote the {} file {}\n", what, Printable(path));
+}
+
+}  // namespace
+
+void WriteOutputFiles(const std::vector<OutputFile>& files, const std::vector<InputPath>& inputs) {
+  std::vector<OutputPath> outputs;
+  std::vector<Source> sources;
+  outputs.reserve(files.size());
+  sources.reserve(files.size());
+  for (const OutputFile& file : files) {
+    outputs.push_back({file.path, file.what});
+    sources.push_back({&file.text, -1});
+  }
+  WriteSources(outputs, sources, inputs);
+}
+
 void WriteFilesThenReport(const std::vector<OutputFile>& files,
                           const std::vector<InputPath>& inputs, std::string report, bool json) {
   WriteOutputFiles(files, inputs);
   if (!json) {
-    for (const OutputFile& file : files) {
-      report += fmt::format("Wrote the {} file {}\n", file.what, Printable(file.path));
+    for (const OutputFile& file : files) report += WroteLine(file.what, file.path);
+  }
+  WriteStdout(report);
+}
+
+// ---- streamed outputs ---------------------------------------------------------------------
+
+struct StreamedOutput::State {
+  State(OutputPath output_path, std::vector<InputPath> input_paths, std::size_t limit)
+      : output(std::move(output_path)), inputs(std::move(input_paths)), buffer_bytes(limit) {}
+
+  OutputPath output;
+  std::vector<InputPath> inputs;
+  std::size_t buffer_bytes;
+  // The handler first, so that it is in place before the temporary exists and until after
+  // `progress` has removed it.
+  ScopedSignalHandlers on_signal{RemoveTemporariesAndStop, kStoppingSignals};
+  WriteInProgress progress;
+  Target target;
+  int fd = -1;
+  std::size_t slot = 0;
+  bool beside = false;  // the temporary is PATH.wirefield-XXXXXX, renamed by Commit
+  bool committed = false;
+  std::string buffer;
+  std::size_t most_buffered = 0;
+  std::uintmax_t appended = 0;
+
+  void Flush() {
+    if (!WriteAll(fd, buffer)) FailToWrite(target.path, target.what, std::strerror(errno));
+    buffer.clear();
+  }
+
+  void CheckOpen() const {
+    if (committed) {
+      throw ComputationError(
+          fmt::format("the {} file {} was already written", target.what, Printable(target.path)));
     }
   }
+};
+
+StreamedOutput::StreamedOutput(OutputPath output, std::vector<InputPath> inputs,
+                               std::size_t buffer_bytes)
+    : state_(std::make_unique<State>(std::move(output), std::move(inputs), buffer_bytes)) {
+  State& s = *state_;
+  s.target = CheckTargets({s.output}, s.inputs).front();
+  if (s.target.kind == Kind::kWriteThrough) {
+    // A spool without a name: nothing to remove, whatever ends the run.
+    const char* folder = std::getenv("TMPDIR");
+    std::string name = std::string(folder != nullptr && *folder != '\0' ? folder : "/tmp") +
+                       "/wirefield-spool-XXXXXX";
+    const SignalsHeld held;
+    s.fd = ::mkstemp(name.data());
+    if (s.fd < 0) {
+      FailToWrite(
+          s.target.path, s.target.what,
+          fmt::format("cannot make a spool file in {}: {}",
+                      Printable(fs::path(name).parent_path().string()), std::strerror(errno)));
+    }
+    ::unlink(name.c_str());
+    s.progress.KeepOpen(s.fd);
+  } else {
+    std::tie(s.fd, s.slot) = s.progress.CreateTemporary(s.target);
+    s.beside = true;
+  }
+  s.buffer.reserve(buffer_bytes);
+}
+
+StreamedOutput::~StreamedOutput() = default;
+
+void StreamedOutput::Append(std::string_view text) {
+  State& s = *state_;
+  s.CheckOpen();
+  s.buffer += text;
+  s.appended += text.size();
+  s.most_buffered = std::max(s.most_buffered, s.buffer.size());
+  if (s.buffer.size() >= s.buffer_bytes) s.Flush();
+}
+
+void StreamedOutput::Commit() {
+  State& s = *state_;
+  s.CheckOpen();
+  s.Flush();
+  const Target now = CheckTargets({s.output}, s.inputs).front();
+  if (!s.beside || now.kind == Kind::kWriteThrough || now.file != s.target.file) {
+    // A device or FIFO, or a path that leads elsewhere since the start: written from the
+    // temporary as WriteOutputFiles writes a text.
+    WriteSources({s.output}, {Source{nullptr, s.fd}}, s.inputs);
+  } else {
+    KeepOwnerAndMode(s.fd, now, NewFileMode());
+    if (::fsync(s.fd) != 0) FailToWrite(now.path, now.what, std::strerror(errno));
+    s.progress.CloseAll();
+    const FolderLocks locks({fs::path(now.file).parent_path().string()});
+    const SignalsHeld held;
+    if (!s.progress.Rename(s.slot, now.file)) {
+      FailToWrite(now.path, now.what, std::strerror(errno));
+    }
+  }
+  s.committed = true;
+}
+
+void StreamedOutput::CommitTo(const OutputPath& other) {
+  State& s = *state_;
+  s.CheckOpen();
+  s.Flush();
+  WriteSources({other}, {Source{nullptr, s.fd}}, s.inputs);
+  s.committed = true;
+}
+
+const OutputPath& StreamedOutput::output() const { return state_->output; }
+std::size_t StreamedOutput::buffered_bytes() const { return state_->buffer.size(); }
+std::size_t StreamedOutput::most_buffered_bytes() const { return state_->most_buffered; }
+std::uintmax_t StreamedOutput::appended_bytes() const { return state_->appended; }
+
+void CommitThenReport(StreamedOutput& output, std::string report, bool json) {
+  output.Commit();
+  if (!json) report += WroteLine(output.output().what, output.output().path);
   WriteStdout(report);
 }
 

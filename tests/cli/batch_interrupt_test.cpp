@@ -125,5 +125,97 @@ TEST(BatchInterrupt, CtrlCWithoutCsvSaysNothingWasWritten) {
   EXPECT_NE(run.err.find("of 200 rows; nothing was written"), std::string::npos) << run.err;
 }
 
+// The flags of a fast streamed grid: 2 sweep points, one coarse pattern, no mesh estimate.
+std::vector<std::string> FastBatch(const std::vector<std::string>& extra) {
+  std::vector<std::string> args{"batch",
+                                ModelsDir() + "/hiking_club_dipole.wire",
+                                "--from",
+                                "13.8MHz",
+                                "--to",
+                                "14.6MHz",
+                                "--points",
+                                "2",
+                                "--pattern-freq",
+                                "14.2MHz",
+                                "--pattern-step",
+                                "10",
+                                "--no-mesh-estimate",
+                                "--threads",
+                                "2"};
+  args.insert(args.end(), extra.begin(), extra.end());
+  return args;
+}
+
+// 502 heights x 200 lengths = 100400 rows, past the 100000 that the reports hold: the rows
+// stream into the CSV's temporary as they finish. Its first 200 rows are the grid at 1 m.
+const std::vector<std::string> kStreamedGrid{"--vary", "height=1m:502m:1m", "--vary",
+                                             "total=9m:10.99m:0.01m", "--yes-large"};
+
+// A streamed grid, stopped, keeps its finished rows in CSV.partial as a smaller grid does, and
+// each is byte for byte the row of the same index of the grid written whole.
+TEST(BatchInterrupt, StreamedGridKeepsRowsIdenticalToTheGridWrittenWhole) {
+  const std::string csv = WriteScratchFile("streamed_interrupted.csv", "old results\n");
+  const std::string partial = csv + ".partial";
+  std::filesystem::remove(partial);
+  std::vector<std::string> grid = kStreamedGrid;
+  grid.insert(grid.end(), {"--csv", csv});
+  const SpawnedRun child = SpawnWirefield(FastBatch(grid), "streamed_interrupted");
+  ASSERT_GT(child.pid, 0);
+  EXPECT_TRUE(WaitUntilCatching(child.pid, SIGINT, std::chrono::seconds(30)));
+  std::this_thread::sleep_for(std::chrono::milliseconds(1500));  // some rows finish
+  EXPECT_TRUE(TemporaryLeftBeside(csv)) << "the rows go to the CSV's temporary as they finish";
+  EXPECT_EQ(::kill(child.pid, SIGINT), 0);
+  const int status = WaitForRun(child.pid, 60);
+  const std::string err = ReadFile(child.err_path);
+  ASSERT_TRUE(WIFEXITED(status)) << err;
+  EXPECT_EQ(WEXITSTATUS(status), 130) << err;
+  EXPECT_EQ(ReadFile(csv), "old results\n") << "the final CSV must be left as it was";
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
+  EXPECT_FALSE(TemporaryLeftBeside(partial));
+  const std::vector<std::string> rows = Lines(ReadFile(partial));
+  ASSERT_GE(rows.size(), 2u) << "no row finished in 1.5 s: " << err;
+  EXPECT_NE(err.find("interrupted after " + std::to_string(rows.size() - 1) + " of 100400 rows"),
+            std::string::npos)
+      << err;
+
+  const std::string whole_csv = WriteScratchFile("streamed_reference.csv", "");
+  const ProgramRun whole = RunWirefield(
+      FastBatch({"--vary", "height=1m", "--vary", "total=9m:10.99m:0.01m", "--csv", whole_csv}));
+  ASSERT_TRUE(whole.exited && whole.exit_code == 0) << Describe(whole) << whole.err;
+  const std::vector<std::string> expected = Lines(ReadFile(whole_csv));
+  ASSERT_EQ(expected.size(), 201u);
+  EXPECT_EQ(rows[0], expected[0]) << "the same header";
+  int compared = 0;
+  for (size_t i = 1; i < rows.size(); ++i) {
+    const int index = std::stoi(rows[i].substr(0, rows[i].find(',')));
+    if (index >= 200) continue;
+    EXPECT_EQ(rows[i], expected[static_cast<size_t>(index) + 1]) << "row " << index;
+    ++compared;
+  }
+  EXPECT_GE(compared, 1);
+}
+
+// The same signal a second time stops a streamed grid at once, and still leaves the CSV as it
+// was and no temporary beside it (the handler removes the streamed CSV's temporary).
+TEST(BatchInterrupt, SecondSignalStopsAStreamedGridWithoutATemporary) {
+  const std::string csv = WriteScratchFile("streamed_twice.csv", "old results\n");
+  std::vector<std::string> grid = kStreamedGrid;
+  grid.insert(grid.end(), {"--csv", csv});
+  const SpawnedRun child = SpawnWirefield(FastBatch(grid), "streamed_twice");
+  ASSERT_GT(child.pid, 0);
+  EXPECT_TRUE(WaitUntilCatching(child.pid, SIGTERM, std::chrono::seconds(30)));
+  std::this_thread::sleep_for(std::chrono::milliseconds(500));
+  EXPECT_TRUE(TemporaryLeftBeside(csv));
+  EXPECT_EQ(::kill(child.pid, SIGTERM), 0);
+  EXPECT_EQ(::kill(child.pid, SIGTERM), 0);
+  const int status = WaitForRun(child.pid, 60);
+  // Ended by the signal, or (had the rows in flight finished between the two) exit 143.
+  EXPECT_TRUE((WIFSIGNALED(status) && WTERMSIG(status) == SIGTERM) ||
+              (WIFEXITED(status) && WEXITSTATUS(status) == 143))
+      << ReadFile(child.err_path);
+  EXPECT_EQ(ReadFile(csv), "old results\n");
+  EXPECT_FALSE(TemporaryLeftBeside(csv));
+}
+
 }  // namespace
 }  // namespace wirefield::cli_test
