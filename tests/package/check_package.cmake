@@ -37,6 +37,7 @@ set(x ${CMAKE_MATCH_2})
 # Balanis, Antenna Theory, 3rd ed., eqs. 4-70/4-71). Tolerance: R within 6% (68.7 to 77.5 ohm)
 # and X within 5 ohm (37.5 to 47.5 ohm), those of the validation suite's thin-dipole test at this
 # radius (Omega = 2 ln(l/a) = 26: the induced-EMF method's sinusoidal current errs by O(1/Omega)).
+# Measured: 76.87 + j43.86 ohm (81 segments, a = 1e-6 wavelength).
 if(NOT (r GREATER 68.7 AND r LESS 77.5))
   message(FATAL_ERROR "feed resistance ${r} ohm is not within 6% of 73.1 ohm")
 endif()
