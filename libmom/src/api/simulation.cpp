@@ -23,6 +23,7 @@
 #include "solve/blas_threads.hpp"
 #include "solve/dense.hpp"
 #include "wirefield/network.hpp"
+#include "wirefield/version.hpp"
 
 namespace wirefield {
 namespace {
@@ -325,7 +326,7 @@ int Simulation::segments() const { return static_cast<int>(impl_->mesh.segments.
 const std::vector<WireMeshInfo>& Simulation::wire_mesh() const { return impl_->mesh.wires; }
 const std::vector<Warning>& Simulation::warnings() const { return impl_->warnings; }
 
-std::string Version() { return WIREFIELD_VERSION; }
+std::string Version() { return WIREFIELD_VERSION_STRING; }
 
 bool ParkIdleBlasThreads() { return solve::ParkIdleBlasThreads(); }
 
