@@ -5,8 +5,8 @@
 
 #include <cmath>
 
+#include "conductor/wire_impedance.hpp"
 #include "core/constants.hpp"
-#include "fill/conductor.hpp"
 #include "validation/test_models.hpp"
 
 namespace wirefield {
@@ -28,7 +28,7 @@ TEST(CopperDipole, LosesTheShareOfPowerItsSkinResistancePredicts) {
   copper.wires[0].conductivity_s_per_m = sigma;
   copper.wires[0].material = "copper";
 
-  const double r_per_m = std::real(fill::WireImpedancePerMetre(radius, sigma, 1.0, f_hz));
+  const double r_per_m = std::real(conductor::WireImpedancePerMetre(radius, sigma, 1.0, f_hz));
   EXPECT_NEAR(r_per_m, 0.1378, 0.002);  // about 137 mOhm/m at 7 MHz (REFERENCES.md §3)
   const double predicted_loss_ohm = r_per_m * length / 2.0;
 

@@ -107,6 +107,14 @@ std::vector<Point> WirePath(const WireSpec& wire);
 // The length of a wire along its path, metres (the sum of its legs).
 double WireLength(const WireSpec& wire);
 
+// Segment counts per wire: what the model gave (0 = none) and what the mesher used
+// (Simulation::wire_mesh, wirefield/simulation.hpp).
+struct WireMeshInfo {
+  std::string name;
+  int segments_given = 0;
+  int segments_used = 0;
+};
+
 struct FeedSpec {
   std::string name;
   WirePointSpec at;

@@ -131,13 +131,6 @@ struct SolveResult {
   std::optional<MeshEstimate> mesh_estimate;  // set by EstimateMeshError
 };
 
-// Segment counts per wire: what the model gave (0 = none) and what the mesher used.
-struct WireMeshInfo {
-  std::string name;
-  int segments_given = 0;
-  int segments_used = 0;
-};
-
 class Simulation {
  public:
   // Meshes the model and checks it. Throws InputError when the geometry is inconsistent

@@ -3,7 +3,7 @@
 // voltages, currents and dissipation at every load, both sides of each feed's transformer,
 // the compensation capacitor, and the free wire ends (from the segment charges); and a
 // far-field estimate of the distance beyond which RF exposure falls below general-public
-// limits. Implemented in libmom/src/api/stress.cpp; the method is in docs/numerics.md §7c.
+// limits. Implemented in libmom/src/post/stress.cpp; the method is in docs/numerics.md §7c.
 #pragma once
 
 #include <optional>

@@ -1,7 +1,7 @@
 // Coil stage: a single-layer solenoid (wirefield/coil.hpp) analysed at one frequency, and the
 // turns for a target inductance. Combines the formulas of coil/formulas.hpp with the round-
-// wire skin-effect impedance of fill/conductor.hpp. Inputs: CoilSpec (SI) and a frequency;
-// outputs: CoilAnalysis, an impedance, or a designed CoilSpec. Method: docs/numerics.md.
+// wire skin-effect impedance of conductor/wire_impedance.hpp. Inputs: CoilSpec (SI) and a
+// frequency; outputs: CoilAnalysis, an impedance, or a designed CoilSpec. Method: docs/numerics.md.
 #include "wirefield/coil.hpp"
 
 #include <fmt/format.h>
@@ -11,9 +11,9 @@
 #include <cstdint>
 
 #include "coil/formulas.hpp"
+#include "conductor/wire_impedance.hpp"
 #include "core/constants.hpp"
 #include "core/materials.hpp"
-#include "fill/conductor.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -134,11 +134,12 @@ CoilAnalysis AnalyzeCoil(const CoilSpec& c, double frequency_hz) {
   a.frequency_hz = frequency_hz;
   const double radius_m = 0.5 * c.wire_diameter_m;
   a.dc_resistance_ohm =
-      fill::DcResistancePerMetre(radius_m, c.conductivity_s_per_m) * a.wire_length_m;
-  a.skin_depth_m = fill::SkinDepth_m(c.conductivity_s_per_m, c.relative_permeability, frequency_hz);
+      conductor::DcResistancePerMetre(radius_m, c.conductivity_s_per_m) * a.wire_length_m;
+  a.skin_depth_m =
+      conductor::SkinDepth_m(c.conductivity_s_per_m, c.relative_permeability, frequency_hz);
   a.straight_wire_resistance_ohm =
-      fill::WireImpedancePerMetre(radius_m, c.conductivity_s_per_m, c.relative_permeability,
-                                  frequency_hz)
+      conductor::WireImpedancePerMetre(radius_m, c.conductivity_s_per_m, c.relative_permeability,
+                                       frequency_hz)
           .real() *
       a.wire_length_m;
   a.proximity_factor = coil::MedhurstProximityFactor(a.length_m / d, c.wire_diameter_m / a.pitch_m);

@@ -1,7 +1,7 @@
 // Core: the table of wire conductor materials the model language names (`material copper`).
 // Each entry gives the conductivity (S/m) and relative permeability that the skin-effect
-// impedance (fill/conductor.hpp) uses at HF, with its source. Input: a name as written in a
-// model; output: the entry, or nullptr. The table and its sources are in docs/model-language.md.
+// impedance (conductor/wire_impedance.hpp) uses at HF, with its source. Input: a name as written in
+// a model; output: the entry, or nullptr. The table and its sources are in docs/model-language.md.
 #pragma once
 
 #include <string>

@@ -14,9 +14,9 @@
 #include <optional>
 #include <thread>
 
+#include "conductor/wire_impedance.hpp"
 #include "core/constants.hpp"
 #include "core/fresh_memory.hpp"
-#include "fill/conductor.hpp"
 #include "fill/half_space.hpp"
 #include "ground/reflection.hpp"
 
@@ -462,8 +462,8 @@ void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double fre
     const geometry::Segment& seg = mesh.segments[s];
     const WireSpec& wire = model.wires[seg.wire];
     if (!wire.conductivity_s_per_m) continue;
-    const Complex per_metre = WireImpedancePerMetre(seg.radius_m, *wire.conductivity_s_per_m,
-                                                    wire.relative_permeability, frequency_hz);
+    const Complex per_metre = conductor::WireImpedancePerMetre(
+        seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz);
     const Complex zs = per_metre * seg.length_m();
     // int_0^1 (a_m + b_m t)(a_n + b_n t) dt for the two pieces' linear currents.
     for (const PieceRef& pm : on_segment[s]) {

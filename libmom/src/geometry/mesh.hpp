@@ -9,7 +9,6 @@
 #include <vector>
 
 #include "wirefield/model.hpp"
-#include "wirefield/simulation.hpp"
 
 namespace wirefield::geometry {
 

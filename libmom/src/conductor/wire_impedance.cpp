@@ -1,8 +1,8 @@
-// Fill stage: skin-effect impedance of a round wire from the ratio of Bessel functions of a
-// complex argument. Boost.Math has no complex-argument Bessel functions, so the ratio comes
+// Conductor physics: skin-effect impedance of a round wire from the ratio of Bessel functions
+// of a complex argument. Boost.Math has no complex-argument Bessel functions, so the ratio comes
 // from its continued fraction (modified Lentz) and, for very thick wires, from the Hankel
-// asymptotic expansion. Inputs and outputs in SI; see conductor.hpp and docs/numerics.md.
-#include "fill/conductor.hpp"
+// asymptotic expansion. Inputs and outputs in SI; see wire_impedance.hpp and docs/numerics.md.
+#include "conductor/wire_impedance.hpp"
 
 #include <fmt/format.h>
 
@@ -13,7 +13,7 @@
 #include "core/constants.hpp"
 #include "wirefield/model.hpp"
 
-namespace wirefield::fill {
+namespace wirefield::conductor {
 namespace {
 
 using Complex = std::complex<double>;
@@ -115,4 +115,4 @@ std::complex<double> WireImpedancePerMetre(double radius_m, double conductivity_
   return r_dc_ohm_per_m * t / 2.0;
 }
 
-}  // namespace wirefield::fill
+}  // namespace wirefield::conductor

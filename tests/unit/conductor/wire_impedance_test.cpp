@@ -1,8 +1,8 @@
-// Tests of the fill stage's conductor impedance (libmom/src/fill/conductor.cpp): skin depth,
+// Tests of the conductor impedance (libmom/src/conductor/wire_impedance.cpp): skin depth,
 // DC resistance and the exact Bessel-function internal impedance of a round wire, against
 // handbook values, the textbook thick-wire and low-frequency limits, the power series of
 // J0 and J1, and the Hankel asymptotic form it switches to for very thick wires.
-#include "fill/conductor.hpp"
+#include "conductor/wire_impedance.hpp"
 
 #include <gtest/gtest.h>
 
@@ -13,7 +13,7 @@
 
 #include "wirefield/model.hpp"
 
-namespace wirefield::fill {
+namespace wirefield::conductor {
 namespace {
 
 using Complex = std::complex<double>;
@@ -236,4 +236,4 @@ TEST(WireImpedance, NonPositiveOrNonFiniteInputsAreAComputationError) {
 }
 
 }  // namespace
-}  // namespace wirefield::fill
+}  // namespace wirefield::conductor
