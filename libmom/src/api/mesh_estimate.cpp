@@ -15,7 +15,7 @@
 #include <utility>
 #include <vector>
 
-#include "api/simulation_access.hpp"
+#include "study/pipeline.hpp"
 #include "core/fresh_memory.hpp"
 #include "fill/assemble.hpp"
 #include "geometry/mesh.hpp"

@@ -13,7 +13,7 @@
 #include <exception>
 #include <functional>
 
-#include "api/simulation_access.hpp"
+#include "study/pipeline.hpp"
 #include "core/parallel.hpp"
 #include "fill/interpolate.hpp"
 #include "solve/blas_threads.hpp"

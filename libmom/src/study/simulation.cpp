@@ -10,7 +10,7 @@
 #include <fstream>
 #include <sstream>
 
-#include "api/simulation_access.hpp"
+#include "study/pipeline.hpp"
 #include "core/constants.hpp"
 #include "core/parallel.hpp"
 #include "core/progress.hpp"
