@@ -63,9 +63,9 @@ namespace {
 // impedance error of a 10% window was 5e-6 over the tested models, 400 times below 0.2%, and
 // it grows as the cube of the width.
 constexpr double kWindowFraction = 0.10;
-// Reduced solve (solve/reduced.hpp): a window of at least
-// kMinPointsForReducedSolve points solves kSnapshots of them densely and the others, where the
-// residual allows, in the span of those currents. The residual bound keeps the currents'
+// Reduced solve (solve/reduced.hpp): a window of at least kMinPointsForReducedSolve points
+// solves kSnapshots of them densely and the others, where the residual allows, in the span of
+// those currents. The residual bound keeps the currents'
 // error (at most the condition number times the residual) far below the interpolation's
 // own; measured against the exact sweep in tests/validation/interpolation_validation_test.cpp.
 constexpr size_t kSnapshots = 8;
@@ -183,8 +183,8 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
         mesh, pipeline.near_field(), {low_hz, 0.5 * (low_hz + high_hz), high_hz}, fill_threads);
     out.matrix_fills += 3;
     // Dense solves at kSnapshots points spread over the window; every other point then first
-    // tries the currents in the span of theirs (solve::SolveReduced), which costs
-    // a product of Z with kSnapshots vectors instead of a factorisation. The snapshots do not
+    // tries the currents in the span of theirs (solve::SolveReduced), which costs a product of
+    // Z with kSnapshots vectors instead of a factorisation. The snapshots do not
     // depend on the threads, so neither does any result.
     auto solve_point = [&](size_t w, const solve::ReducedSpace* reduced, Eigen::VectorXcd* currents,
                            bool* projected) {
