@@ -125,7 +125,7 @@ TEST(MatrixInterpolation, LowDipoleOverTheExactGroundStaysWithinBound) {
   // integrals) only at its three anchors and interpolates the matrix, half-space corrections
   // included, in between; 41 points over the band against a fill with its own table at each.
   // Measured: 8.6e-8 of |Z| at worst (the anchors span 2.8%; the error grows as the cube of
-  // the span, api/sweep.cpp), so reusing the anchors' tables costs nothing visible.
+  // the span, study/sweep.cpp), so reusing the anchors' tables costs nothing visible.
   const Comparison c = CompareSweeps(
       "wire dip from (-10.05, 0, 2.1) to (10.05, 0, 2.1) radius 1mm segments 21\n"
       "feed src at dip@50%\n"

@@ -1,6 +1,7 @@
 // wirefield public API, part 7: the amateur HF bands (160 m to 10 m) per ITU region, the
 // frequency plan of a sweep over bands or a range, and the per-band summary of a sweep
-// (minimum SWR, resonances, SWR bandwidths, coverage). Implemented in libmom/src/bands/.
+// (minimum SWR, resonances, SWR bandwidths, coverage). Implemented in libmom/src/bands/ (RunSpans
+// in libmom/src/study/sweep_spans.cpp).
 #pragma once
 
 #include <functional>

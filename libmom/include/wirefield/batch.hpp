@@ -1,8 +1,8 @@
 // wirefield public API, part 10: one model over a grid of grounds, `let` values and
 // frequencies (the `batch` command). Each grid point (row) re-parses the model with its
 // values as --set overrides, sweeps it and computes one pattern; rows run on worker threads
-// and come back in grid order. Implemented in libmom/src/api/batch.cpp (reports in
-// libmom/src/report/batch_report.cpp).
+// and come back in grid order. Implemented in libmom/src/study/batch_grid.cpp, batch_run.cpp
+// and batch_summary.cpp (reports in libmom/src/report/batch_report.cpp).
 #pragma once
 
 #include <atomic>

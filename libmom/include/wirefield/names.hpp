@@ -1,6 +1,6 @@
 // wirefield public API: the "did you mean" hint of the model language's diagnostics, for
 // front ends that check names of their own (the program's command names). Implemented in
-// libmom/src/api/names.cpp on the model stage's nearest-name rule.
+// libmom/src/study/names.cpp on the model stage's nearest-name rule.
 #pragma once
 
 #include <string>

@@ -16,7 +16,9 @@ namespace wirefield {
 
 using Complex = std::complex<double>;
 
-struct SimulationAccess;  // the library's own stages (libmom/src/api/simulation_access.hpp)
+namespace study {
+class Pipeline;  // the solve pipeline a Simulation holds (libmom/src/study/pipeline.hpp)
+}
 
 struct SimulationOptions {
   // Highest frequency the mesh must serve, Hz. Default: the model's frequency. The mesher
@@ -157,7 +159,7 @@ class Simulation {
   const std::vector<Warning>& warnings() const;
 
  private:
-  friend struct SimulationAccess;
+  friend class study::Pipeline;
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };

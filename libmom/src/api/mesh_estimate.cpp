@@ -15,11 +15,11 @@
 #include <utility>
 #include <vector>
 
-#include "api/simulation_access.hpp"
 #include "core/fresh_memory.hpp"
 #include "fill/assemble.hpp"
 #include "geometry/mesh.hpp"
 #include "solve/dense.hpp"
+#include "study/pipeline.hpp"
 #include "wirefield/simulation.hpp"
 
 namespace wirefield {
@@ -58,7 +58,7 @@ Level SolveCoarser(const Simulation& simulation, double frequency_hz, int halvin
   for (size_t w = 0; w < model.wires.size(); ++w) {
     model.wires[w].segments = CoarserCount(wires[w].segments_used, halvings);
   }
-  SimulationOptions options = SimulationAccess::Options(simulation);
+  SimulationOptions options = study::Pipeline::Of(simulation).options();
   options.fill_threads = fill_threads;
   const Simulation coarse(std::move(model), options);
   const SolveResult r = coarse.Solve(frequency_hz, fill_threads);
@@ -313,7 +313,7 @@ struct NestedSystems {
 NestedSystems RestrictNested(const Simulation& simulation, const Eigen::MatrixXcd& z,
                              double frequency_hz) {
   NestedSystems out;
-  const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
+  const geometry::Mesh& mesh = study::Pipeline::Of(simulation).mesh();
   const std::vector<WireNodes> wires = FineWires(mesh);
   if (wires.empty()) return out;
   out.nested = true;
@@ -351,7 +351,7 @@ NestedSystems RestrictNested(const Simulation& simulation, const Eigen::MatrixXc
 Levels SolveNested(const Simulation& simulation, NestedSystems* systems) {
   Levels out = std::move(systems->levels);
   if (!out.any_halved) return out;
-  const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
+  const geometry::Mesh& mesh = study::Pipeline::Of(simulation).mesh();
   const Model& model = simulation.model();
   const Eigen::VectorXcd v = fill::AssembleExcitation(mesh, model);
   out.half = SolveRestricted(mesh, model, std::move(systems->z_half), v, systems->p_half,
@@ -457,30 +457,24 @@ void EstimateMeshError(const Simulation& simulation, SolveResult* result, int fi
 
 SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency_hz,
                                   int fill_threads) {
-  const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
+  const geometry::Mesh& mesh = study::Pipeline::Of(simulation).mesh();
   if (!(frequency_hz > 0.0) || !std::isfinite(frequency_hz) ||
       geometry::MatrixBytes(static_cast<long long>(mesh.bases.size())) > kMaxKeptMatrixBytes) {
     SolveResult result = simulation.Solve(frequency_hz, fill_threads);  // throws for a bad one
     EstimateMeshError(simulation, &result, fill_threads);
     return result;
   }
-  const int threads = fill_threads > 0 ? fill_threads : SimulationAccess::FillThreads(simulation);
+  const study::Pipeline& pipeline = study::Pipeline::Of(simulation);
+  const int threads = fill_threads > 0 ? fill_threads : pipeline.FillThreads();
   const auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z;
-  {
-    const auto progress =
-        SolveStageProgress(static_cast<int>(mesh.bases.size()), "fill", /*counted=*/true);
-    z = fill::AssembleImpedance(mesh, frequency_hz, SimulationAccess::NearField(simulation),
-                                threads, progress.get());
-  }
+  Eigen::MatrixXcd z = pipeline.Fill(frequency_hz, threads);
   const double fill_time_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   const auto t1 = std::chrono::steady_clock::now();
   NestedSystems nested = RestrictNested(simulation, z, frequency_hz);
   const double restrict_s =
       std::chrono::duration<double>(std::chrono::steady_clock::now() - t1).count();
-  SolveResult result =
-      SimulationAccess::SolveFilled(simulation, frequency_hz, std::move(z), fill_time_s);
+  SolveResult result = pipeline.SolveFilled(frequency_hz, std::move(z), fill_time_s);
   Estimate(
       simulation, &result,
       [&] {

@@ -1,7 +1,7 @@
-// API: frequency sweeps. Solves one Simulation (one mesh) at many frequencies on worker
-// threads, then summarises the first feed: resonances (zero crossings of the reactance at its
-// terminals and at the transmitter, interpolated), the minimum SWR at the transmitter, and SWR
-// bandwidths.
+// Study layer: frequency sweeps. Solves one Simulation's pipeline (one mesh) at many
+// frequencies on worker threads, then summarises the first feed: resonances (zero crossings of
+// the reactance at its terminals and at the transmitter, interpolated), the minimum SWR at the
+// transmitter, and SWR bandwidths.
 #include "wirefield/sweep.hpp"
 
 #include <fmt/format.h>
@@ -13,10 +13,11 @@
 #include <exception>
 #include <functional>
 
-#include "api/simulation_access.hpp"
 #include "core/parallel.hpp"
 #include "fill/interpolate.hpp"
 #include "solve/blas_threads.hpp"
+#include "solve/reduced.hpp"
+#include "study/pipeline.hpp"
 
 namespace wirefield {
 
@@ -62,9 +63,9 @@ namespace {
 // impedance error of a 10% window was 5e-6 over the tested models, 400 times below 0.2%, and
 // it grows as the cube of the width.
 constexpr double kWindowFraction = 0.10;
-// Reduced solve (SimulationAccess::ReducedSpace): a window of at least
-// kMinPointsForReducedSolve points solves kSnapshots of them densely and the others, where the
-// residual allows, in the span of those currents. The residual bound keeps the currents'
+// Reduced solve (solve/reduced.hpp): a window of at least kMinPointsForReducedSolve points
+// solves kSnapshots of them densely and the others, where the residual allows, in the span of
+// those currents. The residual bound keeps the currents'
 // error (at most the condition number times the residual) far below the interpolation's
 // own; measured against the exact sweep in tests/validation/interpolation_validation_test.cpp.
 constexpr size_t kSnapshots = 8;
@@ -166,35 +167,35 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
     out.z0_ohm = feed.z0_ohm;
   };
 
-  const geometry::Mesh& mesh = SimulationAccess::Mesh(simulation);
+  const study::Pipeline& pipeline = study::Pipeline::Of(simulation);
+  const geometry::Mesh& mesh = pipeline.mesh();
   const bool may_interpolate =
       options.interpolate && fill::MatrixInterpolator::AnchorBytes(mesh) <= kMaxAnchorBytes;
   const SweepPlan plan = PlanSweep(frequencies_hz, may_interpolate);
   // A single worker fills as the Simulation's options say (a batch running rows in parallel
   // asks for one thread); several workers share the cores, one fill thread each.
-  const int fill_threads = threads > 1 ? threads : SimulationAccess::FillThreads(simulation);
+  const int fill_threads = threads > 1 ? threads : pipeline.FillThreads();
   const solve::SingleThreadedBlas blas_guard;
   for (const std::vector<size_t>& window : plan.windows) {
     const double low_hz = frequencies_hz[window.front()];
     const double high_hz = frequencies_hz[window.back()];
-    const fill::MatrixInterpolator interpolator(mesh, SimulationAccess::NearField(simulation),
-                                                {low_hz, 0.5 * (low_hz + high_hz), high_hz},
-                                                fill_threads);
+    const fill::MatrixInterpolator interpolator(
+        mesh, pipeline.near_field(), {low_hz, 0.5 * (low_hz + high_hz), high_hz}, fill_threads);
     out.matrix_fills += 3;
     // Dense solves at kSnapshots points spread over the window; every other point then first
-    // tries the currents in the span of theirs (SimulationAccess::ReducedSpace), which costs
-    // a product of Z with kSnapshots vectors instead of a factorisation. The snapshots do not
+    // tries the currents in the span of theirs (solve::SolveReduced), which costs a product of
+    // Z with kSnapshots vectors instead of a factorisation. The snapshots do not
     // depend on the threads, so neither does any result.
-    auto solve_point = [&](size_t w, const SimulationAccess::ReducedSpace* reduced,
-                           Eigen::VectorXcd* currents, bool* projected) {
+    auto solve_point = [&](size_t w, const solve::ReducedSpace* reduced, Eigen::VectorXcd* currents,
+                           bool* projected) {
       const size_t i = window[w];
       const auto t0 = std::chrono::steady_clock::now();
       Eigen::MatrixXcd z;
       interpolator.At(frequencies_hz[i], &z);
       const double fill_s =
           std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
-      return SimulationAccess::SolveFilled(simulation, frequencies_hz[i], std::move(z), fill_s,
-                                           reduced, currents, projected);
+      return pipeline.SolveFilled(frequencies_hz[i], std::move(z), fill_s, reduced, currents,
+                                  projected);
     };
     const size_t snapshots = window.size() >= kMinPointsForReducedSolve ? kSnapshots : 0;
     std::vector<bool> is_snapshot(window.size(), false);
@@ -210,16 +211,10 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       snapshot_condition[s] = r.condition_number;
       record(window[snapshot_at[s]], r);
     });
-    SimulationAccess::ReducedSpace reduced;
+    solve::ReducedSpace reduced;
     if (snapshots > 0) {
-      const Eigen::Index n = snapshot_currents[0].size();
-      const Eigen::Index m = static_cast<Eigen::Index>(snapshots);
-      Eigen::MatrixXcd columns(n, m);
-      for (Eigen::Index s = 0; s < m; ++s) columns.col(s) = snapshot_currents[s];
-      reduced.basis = columns.householderQr().householderQ() * Eigen::MatrixXcd::Identity(n, m);
-      reduced.max_relative_residual = kReducedMaxRelativeResidual;
-      reduced.condition_number =
-          *std::max_element(snapshot_condition.begin(), snapshot_condition.end());
+      reduced = solve::MakeReducedSpace(snapshot_currents, snapshot_condition,
+                                        kReducedMaxRelativeResidual);
     }
     std::vector<size_t> rest;
     for (size_t w = 0; w < window.size(); ++w) {

@@ -1,4 +1,4 @@
-// Bands stage: runs the spans of a sweep plan (bands, or one --from/--to range) through the
+// Study layer: runs the spans of a sweep plan (bands, or one --from/--to range) through the
 // library's RunSweep in chunks, so that a caller can show progress, and merges the results.
 // Input: a Simulation and its spans; output: one SweepResult in span order.
 #include <algorithm>

@@ -1,5 +1,5 @@
-// API: tuning a model variable to a frequency. Each trial value re-parses the model text with
-// the value as a --set override and re-meshes it (segment counts held, see HeldSegments), then
+// Study layer: tuning a model variable to a frequency. Each trial value re-parses the model text
+// with the value as a --set override and re-meshes it (segment counts held, see HeldSegments), then
 // solves at the target. Resonance: a coarse scan of the bounds for sign changes of the feed
 // reactance, each refined by TOMS748 (Boost.Math), poles rejected, series/parallel told apart
 // by dX/df. Min-swr: Brent's minimiser (Boost.Math) around the best scan sample. Two variables

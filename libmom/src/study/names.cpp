@@ -1,4 +1,4 @@
-// API: the model stage's "did you mean" rule (model/lexer.cpp) offered to front ends
+// Study layer: the model stage's "did you mean" rule (model/lexer.cpp) offered to front ends
 // (wirefield/names.hpp). Input: a word and the names it may be a slip of; output: a hint.
 #include "wirefield/names.hpp"
 
