@@ -49,12 +49,7 @@ TEST(EndFedHalfWave, MatchedTransformerRatioGivesTheLowestSwr) {
   const double matched_ratio = std::sqrt(bare.impedance_ohm.real() / 50.0);
   auto swr_for = [&](double ratio) {
     Model m = EndFed();
-    TransformerSpec t;
-    t.name = "t";
-    t.feed = "feed";
-    t.primary_turns = 1.0;
-    t.secondary_turns = ratio;
-    m.transformers.push_back(t);
+    m.transformers.push_back(testing::Transformer("t", "feed", 1.0, ratio));
     const FeedResult f = SolveWith(m);
     // The ideal transformer presents Z / ratio^2 exactly.
     EXPECT_LT(std::abs(f.transmitter_impedance_ohm - f.impedance_ohm / (ratio * ratio)),
@@ -74,17 +69,9 @@ TEST(EndFedHalfWave, LosslessLineKeepsTheSwrAndLossyLineLowersIt) {
   // A lossless line only rotates the reflection coefficient (REFERENCES.md §5), so the SWR
   // at the transmitter is unchanged; a lossy line lowers it and takes its share of power.
   Model m = EndFed();
-  TransformerSpec t;
-  t.name = "t";
-  t.feed = "feed";
-  t.primary_turns = 2.0;
-  t.secondary_turns = 14.0;
-  m.transformers.push_back(t);
+  m.transformers.push_back(testing::Transformer("t", "feed", 2.0, 14.0));
   const FeedResult no_line = SolveWith(m);
-  FeedLineSpec line;
-  line.name = "coax";
-  line.feed = "feed";
-  line.length_m = 11.3;
+  FeedLineSpec line = testing::FeedLine("coax", "feed", 11.3);
   line.z0_ohm = 50.0;
   line.velocity_factor = 0.66;
   m.feed_lines.push_back(line);

@@ -52,20 +52,26 @@ Comparison CompareSweeps(const std::string& text, double from_hz, double to_hz,
   return c;
 }
 
+// The bound of every sweep (kMaxRelativeError) and the count of the points it interpolated;
+// the worst error and the points served by the reduced solve go to the test's record.
+void ExpectWithinBound(const Comparison& c, int interpolated_points) {
+  EXPECT_LT(c.worst, kMaxRelativeError);
+  EXPECT_EQ(c.interpolated, interpolated_points);
+  ::testing::Test::RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
+  ::testing::Test::RecordProperty("projected_points", c.projected);
+}
+
 TEST(MatrixInterpolation, DipoleSweepStaysWithinTwoTenthsOfAPercentOfTheExactFill) {
   const Comparison c = CompareSweeps(
       "wire top from (-5.1, 0, 10) to (5.1, 0, 10) radius 1mm segments 41\n"
       "feed src at top@50%\n",
       14.0e6, 14.35e6);
-  EXPECT_LT(c.worst, kMaxRelativeError);
-  EXPECT_EQ(c.interpolated, 351);
+  ExpectWithinBound(c, 351);
   EXPECT_LE(c.fills, 6);  // one window of three anchors holds the whole 2.5% sweep
   // Eight points of the window are solved densely; the reduced solve must serve the others
   // (their currents lie in the span of those eight to a relative residual of 1e-8), within
   // the same 0.2% bound checked above.
   EXPECT_GE(c.projected, 351 - 2 * 8);
-  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
-  RecordProperty("projected_points", c.projected);
 }
 
 TEST(MatrixInterpolation, CoilLoadedEndFedWithTransformerStaysWithinBound) {
@@ -80,10 +86,7 @@ TEST(MatrixInterpolation, CoilLoadedEndFedWithTransformerStaysWithinBound) {
       "transformer unun at xfmr turns 3:21 al=1000 q=15\n"
       "ground free\n",
       7.0e6, 7.35e6);
-  EXPECT_LT(c.worst, kMaxRelativeError);
-  EXPECT_EQ(c.interpolated, 351);
-  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
-  RecordProperty("projected_points", c.projected);
+  ExpectWithinBound(c, 351);
 }
 
 // A quarter-wave vertical with its base on average ground (permittivity 13, 5 mS/m, common
@@ -100,10 +103,7 @@ TEST(MatrixInterpolation, VerticalOverRealGroundStaysWithinBound) {
       CompareSweeps(std::string(kVerticalAndDipole) +
                         "ground real permittivity=13 conductivity=0.005 method=reflection\n",
                     14.0e6, 14.35e6);
-  EXPECT_LT(c.worst, kMaxRelativeError);
-  EXPECT_EQ(c.interpolated, 351);
-  RecordProperty("worst_relative_error", fmt::format("{:.2e}", c.worst));
-  RecordProperty("projected_points", c.projected);
+  ExpectWithinBound(c, 351);
 }
 
 TEST(MatrixInterpolation, VerticalOverTheExactGroundStaysWithinBound) {

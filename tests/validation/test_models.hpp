@@ -30,6 +30,28 @@ inline FeedSpec Feed(const std::string& name, const std::string& wire, PointKind
   return f;
 }
 
+// An ideal transformer of `primary_turns`:`secondary_turns` at feed `feed` (no core, no
+// leakage: the tests add what they need).
+inline TransformerSpec Transformer(const std::string& name, const std::string& feed,
+                                   double primary_turns, double secondary_turns) {
+  TransformerSpec t;
+  t.name = name;
+  t.feed = feed;
+  t.primary_turns = primary_turns;
+  t.secondary_turns = secondary_turns;
+  return t;
+}
+
+// A feed line of length_m at feed `feed`, with the defaults of FeedLineSpec (50 ohm, velocity
+// factor 0.66, lossless): the tests add what they need.
+inline FeedLineSpec FeedLine(const std::string& name, const std::string& feed, double length_m) {
+  FeedLineSpec l;
+  l.name = name;
+  l.feed = feed;
+  l.length_m = length_m;
+  return l;
+}
+
 // A centre-fed dipole along z, centred at `centre`, of total length length_m.
 inline Model Dipole(double length_m, double radius_m, int segments,
                     Point centre = {0.0, 0.0, 0.0}) {

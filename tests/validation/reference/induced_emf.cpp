@@ -47,6 +47,15 @@ void RequirePositive(const char* function, const char* name, double value) {
   }
 }
 
+// The checks of a formula for a wire of one given dimension (a length, a spacing, a height):
+// that dimension, the wavelength and the wave impedance positive and finite, in that order.
+void RequireDimensionWavelengthAndEta(const char* function, const char* name, double value,
+                                      double wavelength_m, double eta_ohm) {
+  RequirePositive(function, name, value);
+  RequirePositive(function, "wavelength_m", wavelength_m);
+  RequirePositive(function, "eta_ohm", eta_ohm);
+}
+
 // integral_0^x sin(t)/t dt for 0 <= x <= kDirectIntegralLimit.
 double SineIntegralDirect(double x) {
   auto sinc = [](double t) { return t == 0.0 ? 1.0 : std::sin(t) / t; };
@@ -178,10 +187,8 @@ std::complex<double> DipoleInputImpedance_ohm(double length_m, double radius_m, 
 
 std::complex<double> MutualImpedanceParallelHalfWave_ohm(double spacing_m, double wavelength_m,
                                                          double eta_ohm) {
-  const char* function = "MutualImpedanceParallelHalfWave_ohm";
-  RequirePositive(function, "spacing_m", spacing_m);
-  RequirePositive(function, "wavelength_m", wavelength_m);
-  RequirePositive(function, "eta_ohm", eta_ohm);
+  RequireDimensionWavelengthAndEta("MutualImpedanceParallelHalfWave_ohm", "spacing_m", spacing_m,
+                                   wavelength_m, eta_ohm);
   const double k_per_m = 2.0 * kPi / wavelength_m;
   const double length_m = 0.5 * wavelength_m;
   const double hypotenuse_m = std::hypot(spacing_m, length_m);
@@ -199,10 +206,8 @@ std::complex<double> MutualImpedanceParallelHalfWave_ohm(double spacing_m, doubl
 
 std::complex<double> HalfWaveDipoleOverPerfectGround_ohm(double height_m, double wavelength_m,
                                                          double eta_ohm) {
-  const char* function = "HalfWaveDipoleOverPerfectGround_ohm";
-  RequirePositive(function, "height_m", height_m);
-  RequirePositive(function, "wavelength_m", wavelength_m);
-  RequirePositive(function, "eta_ohm", eta_ohm);
+  RequireDimensionWavelengthAndEta("HalfWaveDipoleOverPerfectGround_ohm", "height_m", height_m,
+                                   wavelength_m, eta_ohm);
   // At a half wave sin(k l) = 0, so any thin radius gives the same Z11; a / lambda = 1e-4 is used.
   const double radius_m = 1e-4 * wavelength_m;
   const std::complex<double> z11_ohm =
@@ -214,20 +219,16 @@ std::complex<double> HalfWaveDipoleOverPerfectGround_ohm(double height_m, double
 }
 
 double HertzianDipoleRadiationResistance_ohm(double length_m, double wavelength_m, double eta_ohm) {
-  const char* function = "HertzianDipoleRadiationResistance_ohm";
-  RequirePositive(function, "length_m", length_m);
-  RequirePositive(function, "wavelength_m", wavelength_m);
-  RequirePositive(function, "eta_ohm", eta_ohm);
+  RequireDimensionWavelengthAndEta("HertzianDipoleRadiationResistance_ohm", "length_m", length_m,
+                                   wavelength_m, eta_ohm);
   const double ratio = length_m / wavelength_m;
   // Balanis 3rd ed. eq. 4-19 (from memory): R_r = eta (2 pi / 3) (l / lambda)^2.
   return eta_ohm * (2.0 * kPi / 3.0) * ratio * ratio;
 }
 
 double ShortDipoleRadiationResistance_ohm(double length_m, double wavelength_m, double eta_ohm) {
-  const char* function = "ShortDipoleRadiationResistance_ohm";
-  RequirePositive(function, "length_m", length_m);
-  RequirePositive(function, "wavelength_m", wavelength_m);
-  RequirePositive(function, "eta_ohm", eta_ohm);
+  RequireDimensionWavelengthAndEta("ShortDipoleRadiationResistance_ohm", "length_m", length_m,
+                                   wavelength_m, eta_ohm);
   const double ratio = length_m / wavelength_m;
   // Balanis 3rd ed. eq. 4-37 (from memory): the triangular current radiates a quarter of the
   // power of a uniform one with the same peak, R_r = eta (pi / 6) (l / lambda)^2.
