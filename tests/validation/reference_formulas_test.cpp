@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "unit/error_text.hpp"
 #include "validation/reference/induced_emf.hpp"
 
 namespace wirefield::reference {
@@ -26,51 +27,39 @@ constexpr double kPi = 3.14159265358979323846;
 // 5.2.16; DLMF 6.6.5 and 6.6.6; equation numbers from memory). They converge for every x; in
 // 100-digit arithmetic the largest term at x = 100 (about 1e42) still leaves over 50 correct
 // digits, so the result rounded to double is exact for the comparison.
-double SineIntegralSeries(double x_double) {
-  const Big x = x_double;
+// The three series share one form: `sum` plus, for n = first_n .. 1999 until a term falls
+// below 1e-90, the terms p_n / m with m = 2n + odd, where p_first_n = `power` and each next p is
+// -p x^2 / ((m + 1) (m + 2)). In 100-digit arithmetic.
+double SeriesSum(const Big& x, Big sum, Big power, int first_n, int odd) {
   const Big x2 = x * x;
   const Big negligible = boost::multiprecision::pow(Big(10), -90);
-  Big power_over_factorial = x;  // x^(2n+1) / (2n+1)!
-  Big sum = 0;
-  for (int n = 0; n < 2000; ++n) {
-    const Big term = power_over_factorial / (2 * n + 1);
+  for (int n = first_n; n < 2000; ++n) {
+    const int m = 2 * n + odd;
+    const Big term = power / m;
     sum += term;
     if (abs(term) < negligible) break;
-    power_over_factorial *= -x2 / ((2 * n + 2) * (2 * n + 3));
+    power *= -x2 / ((m + 1) * (m + 2));
   }
   return static_cast<double>(sum);
 }
 
+// Si: p_0 = x^(2n+1) / (2n+1)! at n = 0, terms over 2n + 1.
+double SineIntegralSeries(double x_double) {
+  const Big x = x_double;
+  return SeriesSum(x, 0, x, 0, 1);
+}
+
+// Ci: p_1 = (-1)^n x^(2n) / (2n)! at n = 1, terms over 2n, after C_E + ln x.
 double CosineIntegralSeries(double x_double) {
   const Big x = x_double;
-  const Big x2 = x * x;
-  const Big negligible = boost::multiprecision::pow(Big(10), -90);
-  Big power_over_factorial = -x2 / 2;  // (-1)^n x^(2n) / (2n)!, starting at n = 1
-  Big sum = boost::math::constants::euler<Big>() + log(x);
-  for (int n = 1; n < 2000; ++n) {
-    const Big term = power_over_factorial / (2 * n);
-    sum += term;
-    if (abs(term) < negligible) break;
-    power_over_factorial *= -x2 / ((2 * n + 1) * (2 * n + 2));
-  }
-  return static_cast<double>(sum);
+  return SeriesSum(x, boost::math::constants::euler<Big>() + log(x), -x * x / 2, 1, 0);
 }
 
 // Cin(x) = sum_{n>=1} (-1)^(n+1) x^(2n) / (2n (2n)!) (A&S 5.2.16 rearranged, from memory), in
 // 100-digit arithmetic.
 double EntireCosineIntegralSeries(double x_double) {
   const Big x = x_double;
-  const Big x2 = x * x;
-  const Big negligible = boost::multiprecision::pow(Big(10), -90);
-  Big power_over_factorial = x2 / 2;  // (-1)^(n+1) x^(2n) / (2n)!, starting at n = 1
-  Big sum = 0;
-  for (int n = 1; n < 2000; ++n) {
-    const Big term = power_over_factorial / (2 * n);
-    sum += term;
-    if (abs(term) < negligible) break;
-    power_over_factorial *= -x2 / ((2 * n + 1) * (2 * n + 2));
-  }
-  return static_cast<double>(sum);
+  return SeriesSum(x, 0, x * x / 2, 1, 0);  // p_1 = (-1)^(n+1) x^(2n) / (2n)!
 }
 
 // Arguments from 1e-6 to 100, 30 per decade, plus the points where the implementation switches
@@ -182,23 +171,13 @@ TEST(EntireCosineIntegral, AgreesWithHundredDigitSeriesAndWithEulerPlusLogMinusC
 }
 
 TEST(CosineIntegral, RejectsZeroAndNegativeArgumentsWithAMessage) {
-  try {
-    CosineIntegral(0.0);
-    FAIL() << "CosineIntegral(0) did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "CosineIntegral: x must be positive and finite (got 0); pass a value above 0");
-  }
+  EXPECT_EQ(testing::ErrorText<std::invalid_argument>([] { CosineIntegral(0.0); }),
+            "CosineIntegral: x must be positive and finite (got 0); pass a value above 0");
   EXPECT_THROW(CosineIntegral(-1.0), std::invalid_argument);
   EXPECT_THROW(SineIntegral(std::nan("")), std::invalid_argument);
-  try {
-    EntireCosineIntegral(-2.0);
-    FAIL() << "EntireCosineIntegral(-2) did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "EntireCosineIntegral: x must be finite and not negative (got -2); pass a value "
-                 ">= 0");
-  }
+  EXPECT_EQ(testing::ErrorText<std::invalid_argument>([] { EntireCosineIntegral(-2.0); }),
+            "EntireCosineIntegral: x must be finite and not negative (got -2); pass a value "
+            ">= 0");
 }
 
 // Analytic comparisons against values printed to 0.01 ohm: half a unit of the last printed
@@ -281,32 +260,20 @@ TEST(DipoleInducedEmf, ShortDipoleTendsToTwentyPiSquaredLengthSquared) {
 }
 
 TEST(DipoleInducedEmf, RejectsImpossibleGeometryWithAMessage) {
-  try {
-    DipoleInputImpedance_ohm(1.0, 1e-3, 1.0);
-    FAIL() << "a full-wave gap impedance did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "DipoleInputImpedance_ohm: length_m / wavelength_m = 1 is a whole number of "
-                 "wavelengths, where the sinusoidal current vanishes at the gap and the gap "
-                 "impedance is infinite; use DipoleImpedanceAtCurrentMaximum_ohm or another "
-                 "length");
-  }
-  try {
-    DipoleImpedanceAtCurrentMaximum_ohm(0.5, 0.25, 1.0);
-    FAIL() << "a radius of half the length did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "DipoleImpedanceAtCurrentMaximum_ohm: radius_m (0.25) must be less than half of "
-                 "length_m (0.5); a thin-wire formula needs a wire much thinner than it is long");
-  }
-  try {
-    DipoleInputImpedance_ohm(0.5, 1e-3, -2.0);
-    FAIL() << "a negative wavelength did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "DipoleInputImpedance_ohm: wavelength_m must be positive and finite (got -2); "
-                 "pass a value above 0");
-  }
+  EXPECT_EQ(
+      testing::ErrorText<std::invalid_argument>([] { DipoleInputImpedance_ohm(1.0, 1e-3, 1.0); }),
+      "DipoleInputImpedance_ohm: length_m / wavelength_m = 1 is a whole number of "
+      "wavelengths, where the sinusoidal current vanishes at the gap and the gap "
+      "impedance is infinite; use DipoleImpedanceAtCurrentMaximum_ohm or another "
+      "length");
+  EXPECT_EQ(testing::ErrorText<std::invalid_argument>(
+                [] { DipoleImpedanceAtCurrentMaximum_ohm(0.5, 0.25, 1.0); }),
+            "DipoleImpedanceAtCurrentMaximum_ohm: radius_m (0.25) must be less than half of "
+            "length_m (0.5); a thin-wire formula needs a wire much thinner than it is long");
+  EXPECT_EQ(
+      testing::ErrorText<std::invalid_argument>([] { DipoleInputImpedance_ohm(0.5, 1e-3, -2.0); }),
+      "DipoleInputImpedance_ohm: wavelength_m must be positive and finite (got -2); "
+      "pass a value above 0");
 }
 
 TEST(MutualImpedance, ParallelHalfWavesMatchReferenceSheet) {
@@ -421,14 +388,9 @@ TEST(ResonantLength, ThickerWiresResonateShorter) {
 }
 
 TEST(ResonantLength, RejectsRadiusOutsideTheThinWireRangeWithAMessage) {
-  try {
-    ResonantLengthWavelengths(0.05);
-    FAIL() << "a 0.05 wavelength radius did not throw";
-  } catch (const std::invalid_argument& error) {
-    EXPECT_STREQ(error.what(),
-                 "ResonantLengthWavelengths: radius_wavelengths must be in (0, 0.01] (got 0.05); "
-                 "the thin-wire induced-EMF formula does not describe thicker wires");
-  }
+  EXPECT_EQ(testing::ErrorText<std::invalid_argument>([] { ResonantLengthWavelengths(0.05); }),
+            "ResonantLengthWavelengths: radius_wavelengths must be in (0, 0.01] (got 0.05); "
+            "the thin-wire induced-EMF formula does not describe thicker wires");
   EXPECT_THROW(ResonantLengthWavelengths(0.0), std::invalid_argument);
 }
 

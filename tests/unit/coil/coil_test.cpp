@@ -11,6 +11,7 @@
 
 #include "coil/formulas.hpp"
 #include "core/constants.hpp"
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -227,14 +228,9 @@ TEST(CoilDesign, SaysWhenOneTurnIsAlreadyTooMuch) {
   EXPECT_NEAR(AnalyzeCoil(one, 1e6).inductance_h /
                   (core::kMu0_h_per_m * r * (std::log(8.0 * r / 1e-3) - 2.0)),
               1.0, 0.06);
-  try {
-    DesignCoilTurns(c, 0.1e-6);
-    FAIL() << "no error";
-  } catch (const InputError& e) {
-    EXPECT_EQ(e.message(),
-              "0.1 uH is less than one turn gives on this former (1.01322 uH); use a smaller "
-              "former or a larger pitch");
-  }
+  EXPECT_EQ(testing::ErrorText([&] { DesignCoilTurns(c, 0.1e-6); }, &testing::MessageOf),
+            "0.1 uH is less than one turn gives on this former (1.01322 uH); use a smaller "
+            "former or a larger pitch");
 }
 
 TEST(CoilProblem, RejectsAPitchBelowTheWireDiameter) {

@@ -11,6 +11,7 @@
 #include <complex>
 #include <numbers>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield::conductor {
@@ -225,14 +226,9 @@ TEST(WireImpedance, NonPositiveOrNonFiniteInputsAreAComputationError) {
   EXPECT_THROW(WireImpedancePerMetre(1e-3, kCopper_s_per_m, 0.0, 7e6), ComputationError);
   EXPECT_THROW(WireImpedancePerMetre(1e-3, kCopper_s_per_m, 1.0, 0.0), ComputationError);
   EXPECT_THROW(WireImpedancePerMetre(1e-3, kCopper_s_per_m, 1.0, std::nan("")), ComputationError);
-  try {
-    SkinDepth_m(kCopper_s_per_m, 1.0, -5.0);
-    ADD_FAILURE() << "no error";
-  } catch (const ComputationError& e) {
-    EXPECT_STREQ(e.what(),
-                 "conductor impedance: the frequency must be finite and positive; "
-                 "got -5");
-  }
+  EXPECT_EQ(testing::ErrorText<ComputationError>([&] { SkinDepth_m(kCopper_s_per_m, 1.0, -5.0); }),
+            "conductor impedance: the frequency must be finite and positive; "
+            "got -5");
 }
 
 }  // namespace

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "geometry/mesh.hpp"
+#include "unit/error_text.hpp"
 
 namespace wirefield::geometry {
 namespace {
@@ -18,12 +19,7 @@ Mesh MeshOf(const std::string& text, double frequency_hz) {
 }
 
 std::string ErrorOf(const std::string& text, double frequency_hz) {
-  try {
-    MeshOf(text, frequency_hz);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { MeshOf(text, frequency_hz); });
 }
 
 // A 40 m wire: long enough that no radius below 4 m meets the bound against the length.

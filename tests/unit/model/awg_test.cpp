@@ -8,6 +8,7 @@
 
 #include "model/expression.hpp"
 #include "model/lexer.hpp"
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield::model {
@@ -22,12 +23,7 @@ Value Eval(const std::string& text) {
 }
 
 std::string ErrorOf(const std::string& text) {
-  try {
-    Eval(text);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Eval(text); });
 }
 
 TEST(Awg, DiametersMatchTheGaugeTableToAThousandthOfAMillimetre) {

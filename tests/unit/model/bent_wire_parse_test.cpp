@@ -8,6 +8,7 @@
 #include <cmath>
 #include <string>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -18,12 +19,7 @@ Model Parse(const std::string& text, const std::vector<Override>& overrides = {}
 }
 
 std::string ErrorOf(const std::string& text) {
-  try {
-    Parse(text);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Parse(text); });
 }
 
 // Corners from a square root and a few products: 1e-12 m leaves room for the roundings

@@ -6,6 +6,7 @@
 
 #include <string>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -16,12 +17,7 @@ const std::string kHead =
     "units mm\nwire mast from (0,0,0) to (10000,0,0) radius 1\nfeed f at mast@50%\n";
 
 std::string ErrorOf(const std::string& load) {
-  try {
-    ParseModelText(kHead + load + "\n", "mast.wire");
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { ParseModelText(kHead + load + "\n", "mast.wire"); });
 }
 
 TEST(CoilLoad, ResolvesItsSizesInTheUnitsLengthAndWithSuffixes) {

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "core/materials.hpp"
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -21,12 +22,7 @@ WireSpec ParseWire(const std::string& clauses) {
 }
 
 std::string ErrorOf(const std::string& clauses) {
-  try {
-    ParseModelText(kWire + clauses + kFeed, "kit.wire");
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { ParseModelText(kWire + clauses + kFeed, "kit.wire"); });
 }
 
 // Annealed copper, 100% IACS = 58.0 MS/m at 20 degC (IEC 60028, from memory; REFERENCES.md

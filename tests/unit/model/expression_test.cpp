@@ -9,6 +9,7 @@
 #include <numbers>
 
 #include "model/lexer.hpp"
+#include "unit/error_text.hpp"
 
 namespace wirefield::model {
 namespace {
@@ -32,12 +33,7 @@ Value Eval(const std::string& text, Scope* scope = nullptr) {
 double Number(const std::string& text) { return Eval(text).si; }
 
 std::string ErrorOf(const std::string& text) {
-  try {
-    Eval(text);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Eval(text); });
 }
 
 TEST(Expression, NumbersInEveryWrittenForm) {
@@ -227,12 +223,8 @@ TEST(ExpressionError, UnknownUnitSuggestsTheNearestAndListsAll) {
 TEST(ExpressionError, UnknownVariableSuggestsTheNearest) {
   Scope scope;
   scope.Define(Scope::Variable{"height", Value{10.0, kNone}, {}, false});
-  try {
-    Eval("hieght*2", &scope);
-    FAIL() << "no error";
-  } catch (const InputError& e) {
-    EXPECT_STREQ(e.what(), "calc:1:1: error: unknown variable 'hieght'; did you mean 'height'?");
-  }
+  EXPECT_EQ(testing::ErrorText([&] { Eval("hieght*2", &scope); }),
+            "calc:1:1: error: unknown variable 'hieght'; did you mean 'height'?");
   EXPECT_EQ(ErrorOf("span"),
             "calc:1:1: error: unknown variable 'span'; define it on an earlier line with 'let "
             "span = ...'");

@@ -5,6 +5,7 @@
 
 #include <string>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"
 
@@ -19,12 +20,7 @@ const std::string kKit =
 Model Parse(const std::string& text) { return ParseModelText(kKit + text, "kit.wire"); }
 
 std::string ErrorOf(const std::string& text) {
-  try {
-    Parse(text);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Parse(text); });
 }
 
 // Values through one unit factor and at most one product: relative 1e-12.

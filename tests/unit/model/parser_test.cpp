@@ -9,6 +9,7 @@
 #include <numbers>
 #include <string>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -24,12 +25,7 @@ Model Parse(const std::string& text, const std::vector<Override>& overrides = {}
 }
 
 std::string ErrorOf(const std::string& text, const std::vector<Override>& overrides = {}) {
-  try {
-    Parse(text, overrides);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Parse(text, overrides); });
 }
 
 // Unit conversions are one multiplication of an exact-decimal factor: 4 ulp (EXPECT_DOUBLE_EQ).
@@ -447,7 +443,7 @@ TEST(ParseError, UnreadableFileNamesTheFileAndTheSystemReason) {
 }
 
 TEST(ParseFile, AFileIsReadAndParsedWithItsPathInLocations) {
-  const std::string path = testing::TempDir() + "wirefield_parser_test_kit.wire";
+  const std::string path = ::testing::TempDir() + "wirefield_parser_test_kit.wire";
   {
     std::ofstream out(path, std::ios::binary);
     out << kKit;

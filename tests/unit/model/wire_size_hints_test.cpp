@@ -8,6 +8,7 @@
 #include <cmath>
 #include <string>
 
+#include "unit/error_text.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield {
@@ -18,12 +19,7 @@ Model Parse(const std::string& text, const std::vector<Override>& overrides = {}
 }
 
 std::string ErrorOf(const std::string& text, const std::vector<Override>& overrides = {}) {
-  try {
-    Parse(text, overrides);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { Parse(text, overrides); });
 }
 
 // The 1-based column of the first `needle` in the first line of `text` that holds it.

@@ -9,6 +9,7 @@
 #include <numbers>
 
 #include "network/line.hpp"
+#include "validation/test_models.hpp"
 #include "wirefield/model.hpp"
 
 namespace wirefield::network {
@@ -18,14 +19,7 @@ namespace {
 constexpr double kRelative = 1e-12;
 constexpr double kTwoPi = 2.0 * std::numbers::pi;
 
-TransformerSpec EndFed64() {
-  TransformerSpec t;
-  t.name = "ef";
-  t.feed = "src";
-  t.primary_turns = 2.0;
-  t.secondary_turns = 16.0;
-  return t;
-}
+TransformerSpec EndFed64() { return testing::Transformer("ef", "src", 2.0, 16.0); }
 
 TEST(Magnetizing, ALOfOneThousandWithTwoTurnsGivesFourMicrohenry) {
   // L = A_L N^2 with A_L in nH/turn^2 (REFERENCES §5; maker datasheets, from memory):
@@ -70,10 +64,7 @@ TEST(Magnetizing, QSetsTheCoreLossResistanceAtEachFrequency) {
 
 // A lossy feed line of the kit: 15 m of a 50 ohm line, 4.25 / 8.1 dB per 100 m.
 FeedLineSpec KitLine() {
-  FeedLineSpec l;
-  l.name = "coax";
-  l.feed = "src";
-  l.length_m = 15.0;
+  FeedLineSpec l = testing::FeedLine("coax", "src", 15.0);
   l.loss1_db_per_100m = 4.25;
   l.loss2_db_per_100m = 8.1;
   return l;

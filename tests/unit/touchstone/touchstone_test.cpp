@@ -12,6 +12,8 @@
 #include <string>
 #include <vector>
 
+#include "unit/error_text.hpp"
+
 namespace wirefield {
 namespace {
 
@@ -21,12 +23,7 @@ constexpr double kPi = 3.14159265358979323846;
 constexpr double kTight = 1e-12;
 
 std::string ErrorOf(const std::string& text) {
-  try {
-    ParseTouchstone(text, "m.s1p");
-  } catch (const InputError& error) {
-    return error.what();
-  }
-  return "no error";
+  return testing::ErrorText([&] { ParseTouchstone(text, "m.s1p"); });
 }
 
 TEST(Touchstone, WrittenFileReadsBackWithinOneInATrillion) {
@@ -193,14 +190,9 @@ TEST(TouchstoneErrors, BinaryGarbageGivesAReadableMessage) {
 }
 
 TEST(TouchstoneErrors, MissingFileIsNamed) {
-  try {
-    ReadTouchstone("/nonexistent/folder/m.s1p");
-    FAIL() << "no error";
-  } catch (const InputError& error) {
-    EXPECT_STREQ(error.what(),
-                 "/nonexistent/folder/m.s1p: error: cannot read the Touchstone file: No such "
-                 "file or directory");
-  }
+  EXPECT_EQ(testing::ErrorText([&] { ReadTouchstone("/nonexistent/folder/m.s1p"); }),
+            "/nonexistent/folder/m.s1p: error: cannot read the Touchstone file: No such "
+            "file or directory");
 }
 
 TEST(TouchstoneErrors, RandomTextEitherParsesOrGivesAnInputError) {
@@ -285,27 +277,21 @@ TEST(CompareMeasured, FileOfAnotherReferenceIsReReferencedToTheSweepsZ0) {
 
 TEST(CompareMeasured, TotalReflectionIsAnInputErrorAtItsLine) {
   const TouchstoneData data = ParseTouchstone("# MHZ S MA R 50\n7.1 0.5 0\n7.15 1.0 0\n", "m.s1p");
-  try {
-    CompareMeasured(ThreePointSweep(), data, {{7.0e6, 7.2e6}});
-    FAIL() << "no error";
-  } catch (const InputError& error) {
-    EXPECT_STREQ(error.what(),
-                 "m.s1p:3:1: error: |S11| is 1 here (against 50 ohm): an antenna reflects less "
-                 "than all the power, so this gives no SWR; check the format word of the "
-                 "option line (RI, MA or DB)");
-  }
+  EXPECT_EQ(testing::ErrorText([&] {
+              CompareMeasured(ThreePointSweep(), data, {{7.0e6, 7.2e6}});
+            }),
+            "m.s1p:3:1: error: |S11| is 1 here (against 50 ohm): an antenna reflects less "
+            "than all the power, so this gives no SWR; check the format word of the "
+            "option line (RI, MA or DB)");
 }
 
 TEST(CompareMeasured, NoMeasuredPointInsideTheSweepIsAnInputError) {
   const TouchstoneData data = ParseTouchstone("# MHZ S MA R 50\n14.1 0.5 0\n14.2 0.5 0\n", "m");
-  try {
-    CompareMeasured(ThreePointSweep(), data, {{7.0e6, 7.2e6}});
-    FAIL() << "no error";
-  } catch (const InputError& error) {
-    EXPECT_STREQ(error.what(),
-                 "m: error: none of its 2 measured frequencies lies inside the sweep; sweep "
-                 "over the measured range (its first point is 14.1 MHz, its last 14.2 MHz)");
-  }
+  EXPECT_EQ(testing::ErrorText([&] {
+              CompareMeasured(ThreePointSweep(), data, {{7.0e6, 7.2e6}});
+            }),
+            "m: error: none of its 2 measured frequencies lies inside the sweep; sweep "
+            "over the measured range (its first point is 14.1 MHz, its last 14.2 MHz)");
 }
 
 }  // namespace
