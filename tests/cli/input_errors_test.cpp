@@ -10,7 +10,9 @@
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
+#include <ostream>
 #include <string>
+#include <vector>
 
 #include "cli/program_runner.hpp"
 
@@ -23,6 +25,22 @@ const std::string kGoodModel =
     "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
     "feed src at dip@50%\n"
     "frequency 14.2MHz\n";
+
+// kGoodModel with its line `line` (from 1) replaced by `text`, or removed when `text` is empty.
+std::string GoodModelWith(std::size_t line, const std::string& text) {
+  std::string model;
+  std::size_t number = 0;
+  for (std::size_t start = 0; start < kGoodModel.size(); ++number) {
+    const std::size_t end = kGoodModel.find('\n', start) + 1;
+    if (number + 1 != line) {
+      model += kGoodModel.substr(start, end - start);
+    } else if (!text.empty()) {
+      model += text + "\n";
+    }
+    start = end;
+  }
+  return model;
+}
 
 void ExpectBadInput(const ProgramRun& run, const std::string& expected_err) {
   ASSERT_TRUE(run.exited) << Describe(run);
@@ -41,46 +59,30 @@ TEST(InputErrors, UnknownStatementNamesItsLineAndColumn) {
 
 TEST(InputErrors, MisspelledStatementSuggestsTheKeyword) {
   const std::string path = WriteScratchFile("misspelled.wire", kGoodModel + "grond free\n");
-  const ProgramRun run = RunWirefield({"solve", path});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err.rfind(path + ":5:1: error: unknown statement 'grond'", 0), 0u) << run.err;
-  EXPECT_NE(run.err.find("ground"), std::string::npos) << run.err;
+  const std::string err = RunBadInput({"solve", path});
+  EXPECT_EQ(err.rfind(path + ":5:1: error: unknown statement 'grond'", 0), 0u) << err;
+  EXPECT_NE(err.find("ground"), std::string::npos) << err;
 }
 
 TEST(InputErrors, UnitOfTheWrongQuantityIsAnErrorAtTheNumber) {
-  const std::string path = WriteScratchFile("bad_unit.wire",
-                                            "units m\n"
-                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1MHz\n"
-                                            "feed src at dip@50%\n"
-                                            "frequency 14.2MHz\n");
-  const ProgramRun run = RunWirefield({"solve", path});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.out, "");
-  EXPECT_EQ(run.err.rfind(path + ":2:48: error: ", 0), 0u) << run.err;
+  const std::string path = WriteScratchFile(
+      "bad_unit.wire", GoodModelWith(2, "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1MHz"));
+  const std::string err = RunBadInput({"solve", path});
+  EXPECT_EQ(err.rfind(path + ":2:48: error: ", 0), 0u) << err;
 }
 
 TEST(InputErrors, UnknownUnitIsAnError) {
-  const std::string path =
-      WriteScratchFile("unknown_unit.wire",
-                       "units m\n"
-                       "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1 furlong\n"
-                       "feed src at dip@50%\n"
-                       "frequency 14.2MHz\n");
-  const ProgramRun run = RunWirefield({"solve", path});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err.rfind(path + ":2:", 0), 0u) << run.err;
-  EXPECT_NE(run.err.find(": error: "), std::string::npos) << run.err;
+  const std::string path = WriteScratchFile(
+      "unknown_unit.wire",
+      GoodModelWith(2, "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1 furlong"));
+  const std::string err = RunBadInput({"solve", path});
+  EXPECT_EQ(err.rfind(path + ":2:", 0), 0u) << err;
+  EXPECT_NE(err.find(": error: "), std::string::npos) << err;
 }
 
 TEST(InputErrors, FeedOnAnUnknownWireNamesTheWire) {
-  const std::string path = WriteScratchFile("unknown_wire.wire",
-                                            "units m\n"
-                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
-                                            "feed src at dipole@50%\n"
-                                            "frequency 14.2MHz\n");
+  const std::string path =
+      WriteScratchFile("unknown_wire.wire", GoodModelWith(3, "feed src at dipole@50%"));
   ExpectBadInput(RunWirefield({"solve", path}),
                  path +
                      ":3:13: error: feed 'src': unknown wire 'dipole'; a wire must be "
@@ -149,51 +151,54 @@ TEST(InputErrors, ModelThatIsADirectoryOrADeviceIsRefused) {
 }
 
 TEST(InputErrors, ModelWithoutAFeedSaysWhatToAdd) {
-  const std::string path = WriteScratchFile("no_feed.wire",
-                                            "units m\n"
-                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
-                                            "frequency 14.2MHz\n");
+  const std::string path = WriteScratchFile("no_feed.wire", GoodModelWith(3, ""));
   ExpectBadInput(RunWirefield({"solve", path}),
                  path + ":4:1: error: the model has no feed; add 'feed NAME at WIRE@POS'\n");
 }
 
 TEST(InputErrors, ModelWithoutAFrequencyAsksForOne) {
-  const std::string path = WriteScratchFile("no_frequency.wire",
-                                            "units m\n"
-                                            "wire dip from (-5, 0, 10) to (5, 0, 10) radius 1mm\n"
-                                            "feed src at dip@50%\n");
-  const ProgramRun run = RunWirefield({"solve", path});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err.rfind(path + ": error: ", 0), 0u) << run.err;
-  EXPECT_NE(run.err.find("--freq"), std::string::npos) << run.err;
-  EXPECT_NE(run.err.find("frequency"), std::string::npos) << run.err;
+  const std::string path = WriteScratchFile("no_frequency.wire", GoodModelWith(4, ""));
+  const std::string err = RunBadInput({"solve", path});
+  EXPECT_EQ(err.rfind(path + ": error: ", 0), 0u) << err;
+  EXPECT_NE(err.find("--freq"), std::string::npos) << err;
+  EXPECT_NE(err.find("frequency"), std::string::npos) << err;
 }
 
-TEST(InputErrors, FrequencyOptionOfTheWrongQuantityIsAnError) {
-  const std::string path = WriteScratchFile("good_for_freq.wire", kGoodModel);
-  const ProgramRun run = RunWirefield({"solve", path, "--freq", "14.2mm"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.out, "");
-  EXPECT_EQ(run.err.rfind("--freq:1:1: error: --freq needs ", 0), 0u) << run.err;
+// A bad value of an option of the good model: exit code 2, nothing on stdout, and stderr
+// opening with the option's diagnostic.
+struct BadOption {
+  const char* claim;  // the test's name
+  std::vector<std::string> option;
+  const char* error_start;
+};
+
+// A case printed by its claim (gtest shows the parameter of a failing case).
+void PrintTo(const BadOption& bad, std::ostream* out) { *out << bad.claim; }
+
+// The name of a case's test: its claim.
+std::string ClaimOf(const ::testing::TestParamInfo<BadOption>& param) { return param.param.claim; }
+
+class OptionError : public ::testing::TestWithParam<BadOption> {};
+
+TEST_P(OptionError, IsRefusedWithItsDiagnostic) {
+  std::vector<std::string> args = {
+      "solve", WriteScratchFile(std::string(GetParam().claim) + ".wire", kGoodModel)};
+  args.insert(args.end(), GetParam().option.begin(), GetParam().option.end());
+  const std::string err = RunBadInput(args);
+  EXPECT_EQ(err.rfind(GetParam().error_start, 0), 0u) << err;
 }
 
-TEST(InputErrors, NegativeFrequencyOptionIsAnError) {
-  const std::string path = WriteScratchFile("good_for_negative.wire", kGoodModel);
-  const ProgramRun run = RunWirefield({"solve", path, "--freq=-14MHz"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err.rfind("--freq:1:1: error: --freq must be positive", 0), 0u) << run.err;
-}
-
-TEST(InputErrors, ResistanceOptionMustBeAResistance) {
-  const std::string path = WriteScratchFile("good_for_z0.wire", kGoodModel);
-  const ProgramRun run = RunWirefield({"solve", path, "--z0", "50uH"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err.rfind("--z0:1:1: error: --z0 needs ", 0), 0u) << run.err;
-}
+INSTANTIATE_TEST_SUITE_P(InputErrors, OptionError,
+                         ::testing::Values(BadOption{"FrequencyOptionOfTheWrongQuantityIsAnError",
+                                                     {"--freq", "14.2mm"},
+                                                     "--freq:1:1: error: --freq needs "},
+                                           BadOption{"NegativeFrequencyOptionIsAnError",
+                                                     {"--freq=-14MHz"},
+                                                     "--freq:1:1: error: --freq must be positive"},
+                                           BadOption{"ResistanceOptionMustBeAResistance",
+                                                     {"--z0", "50uH"},
+                                                     "--z0:1:1: error: --z0 needs "}),
+                         ClaimOf);
 
 TEST(InputErrors, SetWithoutEqualsSignShowsTheForm) {
   const std::string path = WriteScratchFile("good_for_set.wire", kGoodModel);
@@ -216,12 +221,9 @@ TEST(InputErrors, SetOfAnUnknownVariableListsTheModelsVariables) {
 
 TEST(InputErrors, UnknownOptionIsAnErrorWithExitTwo) {
   const std::string path = WriteScratchFile("good_for_option.wire", kGoodModel);
-  const ProgramRun run = RunWirefield({"solve", path, "--zo", "50"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.out, "");
-  EXPECT_EQ(run.err.rfind("wirefield: error: ", 0), 0u) << run.err;
-  EXPECT_NE(run.err.find("--zo"), std::string::npos) << run.err;
+  const std::string err = RunBadInput({"solve", path, "--zo", "50"});
+  EXPECT_EQ(err.rfind("wirefield: error: ", 0), 0u) << err;
+  EXPECT_NE(err.find("--zo"), std::string::npos) << err;
 }
 
 }  // namespace

@@ -7,6 +7,7 @@
 #include <cmath>
 #include <filesystem>
 #include <nlohmann/json.hpp>
+#include <ostream>
 #include <regex>
 #include <sstream>
 #include <string>
@@ -130,79 +131,61 @@ TEST(PatternCommand, MissingModelFileExitsTwoNamingThePath) {
   EXPECT_EQ(run.out, "");
 }
 
-TEST(PatternCommand, StepOfZeroIsRefusedWithItsBounds) {
-  const std::string path = WriteScratchFile("pat_step0.wire", DipoleModel("free", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--step", "0"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--step:1:1: error: --step must be greater than 0 and at most 10 degrees; got 0\n");
-  EXPECT_EQ(run.out, "");
+// A bad value of one option: exit code 2, nothing on stdout, and exactly this on stderr.
+struct BadOption {
+  const char* claim;   // the test's name
+  const char* ground;  // of the dipole: the elevation's bounds depend on it
+  const char* option;
+  const char* value;
+  const char* error;
+};
+
+// A case printed by its claim (gtest shows the parameter of a failing case).
+void PrintTo(const BadOption& bad, std::ostream* out) { *out << bad.claim; }
+
+// The name of a case's test: its claim.
+std::string ClaimOf(const ::testing::TestParamInfo<BadOption>& param) { return param.param.claim; }
+
+class PatternOptionError : public ::testing::TestWithParam<BadOption> {};
+
+TEST_P(PatternOptionError, ExitsTwoWithTheExactText) {
+  const BadOption& bad = GetParam();
+  const std::string path =
+      WriteScratchFile(std::string("pat_") + bad.claim + ".wire", DipoleModel(bad.ground, 10.0));
+  EXPECT_EQ(RunBadInput({"pattern", path, bad.option, bad.value}), bad.error);
 }
 
-TEST(PatternCommand, StepAboveTenDegreesIsRefused) {
-  const std::string path = WriteScratchFile("pat_step11.wire", DipoleModel("free", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--step", "11deg"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--step:1:1: error: --step must be greater than 0 and at most 10 degrees; got 11\n");
-}
-
-TEST(PatternCommand, StepThatIsNotANumberShowsAnExample) {
-  const std::string path = WriteScratchFile("pat_stepx.wire", DipoleModel("free", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--step", "fine"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--step:1:1: error: --step needs an angle in degrees such as 1 or 2.5deg; got "
-            "'fine'\n");
-}
-
-TEST(PatternCommand, ElevationBelowAGroundIsRefused) {
-  const std::string path = WriteScratchFile("pat_elneg.wire", DipoleModel("perfect", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--elevation", "-5"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--elevation:1:1: error: --elevation must lie between 0 and 90 degrees over a "
-            "ground (there is no far field below it); got -5\n");
-}
-
-TEST(PatternCommand, ElevationPastTheZenithIsRefusedInFreeSpace) {
-  const std::string path = WriteScratchFile("pat_el95.wire", DipoleModel("free", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--elevation", "95"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--elevation:1:1: error: --elevation must lie between -90 and 90 degrees; "
-            "got 95\n");
-}
+INSTANTIATE_TEST_SUITE_P(
+    PatternCommand, PatternOptionError,
+    ::testing::Values(
+        BadOption{"StepOfZeroIsRefusedWithItsBounds", "free", "--step", "0",
+                  "--step:1:1: error: --step must be greater than 0 and at most 10 degrees; got "
+                  "0\n"},
+        BadOption{"StepAboveTenDegreesIsRefused", "free", "--step", "11deg",
+                  "--step:1:1: error: --step must be greater than 0 and at most 10 degrees; got "
+                  "11\n"},
+        BadOption{"StepThatIsNotANumberShowsAnExample", "free", "--step", "fine",
+                  "--step:1:1: error: --step needs an angle in degrees such as 1 or 2.5deg; got "
+                  "'fine'\n"},
+        BadOption{"ElevationBelowAGroundIsRefused", "perfect", "--elevation", "-5",
+                  "--elevation:1:1: error: --elevation must lie between 0 and 90 degrees over a "
+                  "ground (there is no far field below it); got -5\n"},
+        BadOption{"ElevationPastTheZenithIsRefusedInFreeSpace", "free", "--elevation", "95",
+                  "--elevation:1:1: error: --elevation must lie between -90 and 90 degrees; "
+                  "got 95\n"},
+        BadOption{"AzimuthThatIsNotANumberShowsAnExample", "perfect", "--azimuth", "east",
+                  "--azimuth:1:1: error: --azimuth needs an angle in degrees such as 90 or 45deg; "
+                  "got 'east'\n"}),
+    ClaimOf);
 
 TEST(PatternCommand, AzimuthOutOfRangeIsRefused) {
   const std::string path = WriteScratchFile("pat_az400.wire", DipoleModel("perfect", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--azimuth", "400"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
+  EXPECT_EQ(RunBadInput({"pattern", path, "--azimuth", "400"}),
             "--azimuth:1:1: error: --azimuth must lie between 0 and 360 degrees (from +x toward "
             "+y); got 400\n");
-  EXPECT_EQ(run.out, "");
-  const ProgramRun negative = RunWirefield({"pattern", path, "--azimuth", "-10deg"});
-  EXPECT_EQ(negative.exit_code, 2);
-  EXPECT_EQ(negative.err.rfind("--azimuth:1:1: error: --azimuth must lie between 0 and 360", 0), 0u)
-      << negative.err;
-}
-
-TEST(PatternCommand, AzimuthThatIsNotANumberShowsAnExample) {
-  const std::string path = WriteScratchFile("pat_azx.wire", DipoleModel("perfect", 10.0));
-  const ProgramRun run = RunWirefield({"pattern", path, "--azimuth", "east"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
-            "--azimuth:1:1: error: --azimuth needs an angle in degrees such as 90 or 45deg; got "
-            "'east'\n");
-  EXPECT_EQ(run.out, "");
+  const std::string negative = RunBadInput({"pattern", path, "--azimuth", "-10deg"});
+  EXPECT_EQ(negative.rfind("--azimuth:1:1: error: --azimuth must lie between 0 and 360", 0), 0u)
+      << negative;
 }
 
 TEST(PatternCommand, UnknownOptionPointsToThePatternHelp) {

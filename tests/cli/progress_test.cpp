@@ -76,24 +76,30 @@ TEST(Progress, NoEstimateLineForAShortSolveAtTheDefaultDelay) {
   EXPECT_FALSE(Contains(run.err, "wirefield: fill")) << run.err;  // done before 3 s
 }
 
-TEST(Progress, ForcedLinesGoToStderrOnlyAndLeaveTheJsonAlone) {
-  std::string plain_solve, plain_pattern;
-  {
-    const ScopedEnvironment forced("WIREFIELD_PROGRESS", "0");
-    const ScopedEnvironment after("WIREFIELD_PROGRESS_AFTER", "0");
-    const ProgramRun solve = RunWirefield({"solve", Model(), "--json"});
-    const ProgramRun pattern = RunWirefield({"pattern", Model(), "--json", "--step", "5"});
-    ASSERT_EQ(solve.exit_code, 0) << Describe(solve);
-    ASSERT_EQ(pattern.exit_code, 0) << Describe(pattern);
-    // WIREFIELD_PROGRESS=0: neither lines nor the estimate, whatever the delay.
-    EXPECT_FALSE(Contains(solve.err + pattern.err, "wirefield: ")) << solve.err << pattern.err;
-    plain_solve = solve.out;
-    plain_pattern = pattern.out;
-  }
-  const ScopedEnvironment forced("WIREFIELD_PROGRESS", "1");
+// `solve --json` and `pattern --json --step 5` of the model, with WIREFIELD_PROGRESS set to
+// `progress` and no delay before the lines.
+struct SolveAndPattern {
+  ProgramRun solve;
+  ProgramRun pattern;
+};
+
+SolveAndPattern RunWithProgress(const char* progress) {
+  const ScopedEnvironment forced("WIREFIELD_PROGRESS", progress);
   const ScopedEnvironment after("WIREFIELD_PROGRESS_AFTER", "0");
-  const ProgramRun solve = RunWirefield({"solve", Model(), "--json"});
-  const ProgramRun pattern = RunWirefield({"pattern", Model(), "--json", "--step", "5"});
+  return {RunWirefield({"solve", Model(), "--json"}),
+          RunWirefield({"pattern", Model(), "--json", "--step", "5"})};
+}
+
+TEST(Progress, ForcedLinesGoToStderrOnlyAndLeaveTheJsonAlone) {
+  const SolveAndPattern plain = RunWithProgress("0");
+  ASSERT_EQ(plain.solve.exit_code, 0) << Describe(plain.solve);
+  ASSERT_EQ(plain.pattern.exit_code, 0) << Describe(plain.pattern);
+  // WIREFIELD_PROGRESS=0: neither lines nor the estimate, whatever the delay.
+  EXPECT_FALSE(Contains(plain.solve.err + plain.pattern.err, "wirefield: "))
+      << plain.solve.err << plain.pattern.err;
+  const std::string& plain_solve = plain.solve.out;
+  const std::string& plain_pattern = plain.pattern.out;
+  const auto [solve, pattern] = RunWithProgress("1");
   ASSERT_EQ(solve.exit_code, 0) << Describe(solve);
   ASSERT_EQ(pattern.exit_code, 0) << Describe(pattern);
   // A line at once (delay 0) for each stage, and its end.

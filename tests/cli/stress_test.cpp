@@ -103,49 +103,31 @@ TEST(PowerFlag, PatternTextPrintsBothDistancesAndTheCautions) {
 }
 
 TEST(PowerFlag, PowerWithoutAUnitIsRefused) {
-  const ProgramRun run = RunWirefield({"solve", EndFedPath(), "--power", "100"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
+  EXPECT_EQ(RunBadInput({"solve", EndFedPath(), "--power", "100"}),
             "--power:1:1: error: --power needs a unit: W, mW or kW (e.g. 100W); got '100'\n");
-  EXPECT_EQ(run.out, "");
 }
 
 TEST(PowerFlag, NegativePowerIsRefused) {
   for (const char* command : {"solve", "pattern"}) {
-    const ProgramRun run = RunWirefield({command, EndFedPath(), "--power=-5W"});
-    ASSERT_TRUE(run.exited) << Describe(run);
-    EXPECT_EQ(run.exit_code, 2) << command;
-    EXPECT_EQ(run.err, "--power:1:1: error: --power must be positive; got '-5W'\n") << command;
+    EXPECT_EQ(RunBadInput({command, EndFedPath(), "--power=-5W"}),
+              "--power:1:1: error: --power must be positive; got '-5W'\n")
+        << command;
   }
-  const ProgramRun sweep = RunWirefield(
-      {"sweep", EndFedPath(), "--from", "7MHz", "--to", "7.2MHz", "--points", "3", "--power=0W"});
-  ASSERT_TRUE(sweep.exited) << Describe(sweep);
-  EXPECT_EQ(sweep.exit_code, 2);
-  EXPECT_EQ(sweep.err, "--power:1:1: error: --power must be positive; got '0W'\n");
+  EXPECT_EQ(RunBadInput({"sweep", EndFedPath(), "--from", "7MHz", "--to", "7.2MHz", "--points", "3",
+                         "--power=0W"}),
+            "--power:1:1: error: --power must be positive; got '0W'\n");
 }
 
 TEST(PowerFlag, RatingWithoutPowerIsRefused) {
-  const ProgramRun run = RunWirefield({"solve", EndFedPath(), "--rating-cap", "1kV"});
-  ASSERT_TRUE(run.exited) << Describe(run);
-  EXPECT_EQ(run.exit_code, 2);
-  EXPECT_EQ(run.err,
+  EXPECT_EQ(RunBadInput({"solve", EndFedPath(), "--rating-cap", "1kV"}),
             "--rating-cap:1:1: error: --rating-cap sets a rating for the stress report: give it "
             "with --power, e.g. --power 100W --rating-cap 1kV\n");
 }
 
 TEST(PowerFlag, BadModeAndDutyAreRefused) {
-  const ProgramRun mode =
-      RunWirefield({"pattern", EndFedPath(), "--power", "100W", "--mode", "am"});
-  ASSERT_TRUE(mode.exited) << Describe(mode);
-  EXPECT_EQ(mode.exit_code, 2);
-  EXPECT_EQ(mode.err,
+  EXPECT_EQ(RunBadInput({"pattern", EndFedPath(), "--power", "100W", "--mode", "am"}),
             "--mode:1:1: error: --mode must be one of ssb, cw, fm, digital, carrier; got 'am'\n");
-  const ProgramRun duty =
-      RunWirefield({"pattern", EndFedPath(), "--power", "100W", "--duty", "1.5"});
-  ASSERT_TRUE(duty.exited) << Describe(duty);
-  EXPECT_EQ(duty.exit_code, 2);
-  EXPECT_EQ(duty.err,
+  EXPECT_EQ(RunBadInput({"pattern", EndFedPath(), "--power", "100W", "--duty", "1.5"}),
             "--duty:1:1: error: --duty needs a duty factor greater than 0 and at most 1, e.g. "
             "0.5; got '1.5'\n");
 }
