@@ -60,8 +60,15 @@ struct SweepResult {
   // Interpolated points solved in the span of the currents of a few densely solved points of
   // their window, without a factorisation (residual checked; the others solved densely).
   int projected_points = 0;
+  // With SweepOptions::stress: the highest of each stress over the points, where it happens
+  // (HighestStress); empty otherwise.
+  std::vector<StressPeak> stress_peaks;
   double elapsed_s = 0.0;
 };
+
+// The highest of each stress over the points of a sweep that has them (HighestStress of the
+// points' stress); empty when no point has a stress.
+std::vector<StressPeak> SweepStressPeaks(const std::vector<SweepPoint>& points);
 
 // Frequencies from_hz, from_hz + step_hz, ... up to to_hz (inclusive within 1e-9 of a step).
 std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz);

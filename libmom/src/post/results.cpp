@@ -5,8 +5,8 @@
 
 #include <cmath>
 
+#include "conductor/wire_impedance.hpp"
 #include "fill/assemble.hpp"
-#include "fill/conductor.hpp"
 #include "network/chain.hpp"
 #include "network/reflection.hpp"
 #include "wirefield/network.hpp"
@@ -110,7 +110,7 @@ double WireLossW(const Model& model, const geometry::Mesh& mesh,
     if (!wire.conductivity_s_per_m) continue;
     const Complex at_start = segment_currents[s].current_start_a;
     const Complex at_end = segment_currents[s].current_end_a;
-    const double r_per_m = std::real(fill::WireImpedancePerMetre(
+    const double r_per_m = std::real(conductor::WireImpedancePerMetre(
         seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz));
     const double mean_square =
         (std::norm(at_start) + std::norm(at_end) + std::real(at_start * std::conj(at_end))) / 3.0;

@@ -32,13 +32,12 @@ void CheckFinite(double value, const std::string& what) {
   }
 }
 
-// The stress of every point of a --power sweep (empty without --power).
-std::vector<StressResult> PointStress(const SweepResult& sweep) {
-  std::vector<StressResult> all;
+// The transmitter power of a --power sweep, the same at every point (0 without --power).
+double StressPowerW(const SweepResult& sweep) {
   for (const SweepPoint& p : sweep.points) {
-    if (p.stress) all.push_back(*p.stress);
+    if (p.stress) return p.stress->power_w;
   }
-  return all;
+  return 0.0;
 }
 
 std::string Mhz(double frequency_hz) { return fmt::format("{:.4f}", frequency_hz / 1e6 + 0.0); }
@@ -305,8 +304,9 @@ std::string FormatSweepText(const SweepReport& report) {
           "lie\n  outside it and the shift says little; sweep and measure over a wider range\n";
     }
   }
-  const std::vector<StressResult> stress = report::PointStress(report.sweep);
-  if (!stress.empty()) out += FormatStressPeaksText(HighestStress(stress), stress.front().power_w);
+  if (!report.sweep.stress_peaks.empty()) {
+    out += FormatStressPeaksText(report.sweep.stress_peaks, report::StressPowerW(report.sweep));
+  }
   out += report::WarningsSection(report.warnings);
   out +=
       "\nBand edges are the ITU Radio Regulations' allocations (Article 5, Edition of 2020); "
@@ -377,10 +377,9 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["elapsed_s"] = sweep.elapsed_s;
   doc["warnings"] = report::WarningsJson(report.warnings);
   doc["mesh_estimates"] = report::CentreEstimatesJson(report.mesh_estimates);
-  const std::vector<StressResult> stress = report::PointStress(report.sweep);
-  if (!stress.empty()) {
-    doc["stress"] =
-        nlohmann::json::parse(FormatStressPeaksJson(HighestStress(stress), stress.front().power_w));
+  if (!sweep.stress_peaks.empty()) {
+    doc["stress"] = nlohmann::json::parse(
+        FormatStressPeaksJson(sweep.stress_peaks, report::StressPowerW(report.sweep)));
   }
   return doc.dump(2) + "\n";
 }

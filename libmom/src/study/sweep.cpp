@@ -1,7 +1,7 @@
 // Study layer: frequency sweeps. Solves one Simulation's pipeline (one mesh) at many
 // frequencies on worker threads, then summarises the first feed: resonances (zero crossings of
 // the reactance at its terminals and at the transmitter, interpolated), the minimum SWR at the
-// transmitter, and SWR bandwidths.
+// transmitter, SWR bandwidths, and the highest stresses of a --power sweep.
 #include "wirefield/sweep.hpp"
 
 #include <fmt/format.h>
@@ -254,8 +254,17 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
       ReactanceZeros(sorted, [](const SweepPoint& p) { return p.feed_impedance_ohm.imag(); });
   out.transmitter_resonances_hz = ReactanceZeros(
       sorted, [](const SweepPoint& p) { return p.transmitter_impedance_ohm.imag(); });
+  out.stress_peaks = SweepStressPeaks(out.points);
   out.elapsed_s = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return out;
+}
+
+std::vector<StressPeak> SweepStressPeaks(const std::vector<SweepPoint>& points) {
+  std::vector<StressResult> stress;
+  for (const SweepPoint& p : points) {
+    if (p.stress) stress.push_back(*p.stress);
+  }
+  return HighestStress(stress);
 }
 
 std::vector<std::pair<double, double>> SwrBandwidths(const SweepResult& sweep, double limit) {

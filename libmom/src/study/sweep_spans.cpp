@@ -73,6 +73,7 @@ SweepResult RunSpans(const Simulation& simulation, const std::vector<SweepSpan>&
       merged.elapsed_s += result.elapsed_s;
       merged.matrix_fills += result.matrix_fills;
       merged.interpolated_points += result.interpolated_points;
+      merged.projected_points += result.projected_points;
       first = false;
       done += static_cast<int>(end - begin);
       begin = end;
@@ -81,6 +82,7 @@ SweepResult RunSpans(const Simulation& simulation, const std::vector<SweepSpan>&
   }
   std::sort(merged.resonances_hz.begin(), merged.resonances_hz.end());
   std::sort(merged.transmitter_resonances_hz.begin(), merged.transmitter_resonances_hz.end());
+  merged.stress_peaks = SweepStressPeaks(merged.points);
   return merged;
 }
 
