@@ -22,6 +22,7 @@
 #include <cstddef>
 #include <limits>
 #include <thread>
+#include <utility>
 #include <vector>
 
 #include "core/constants.hpp"
@@ -379,6 +380,10 @@ unsigned TableMask(unsigned parts) {
          ((parts & HalfSpaceTable::kVertical) ? 8u : 0u);
 }
 
+// The mask whose interpolation loop serves `mask` (a TableMask): its own when it holds the
+// charge, which a fill always wants, else the loop over all four parts.
+constexpr unsigned ServedMask(unsigned mask) { return (mask & 2u) ? mask : 15u; }
+
 // Weights of the 4-point Lagrange interpolation on equally spaced nodes -1, 0, 1, 2 at u.
 std::array<double, 4> Lagrange(double u) {
   constexpr double kSixth = 1.0 / 6.0;
@@ -561,24 +566,13 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
   // The mask in values_' order (horizontal, charge, coupling, vertical); the charge is always
   // wanted in a fill, so its masks come first.
   const unsigned mask = TableMask(parts);
-  switch (mask) {
-    case 2:
-      return Interpolate<2>(rho, zeta, r);
-    case 3:
-      return Interpolate<3>(rho, zeta, r);
-    case 6:
-      return Interpolate<6>(rho, zeta, r);
-    case 7:
-      return Interpolate<7>(rho, zeta, r);
-    case 10:
-      return Interpolate<10>(rho, zeta, r);
-    case 11:
-      return Interpolate<11>(rho, zeta, r);
-    case 14:
-      return Interpolate<14>(rho, zeta, r);
-    default:
-      return Interpolate<15>(rho, zeta, r);
-  }
+  using Interpolator = std::array<Complex, 4> (HalfSpaceTable::*)(double, double, double) const;
+  constexpr auto table = []<unsigned... kMasks>(std::integer_sequence<unsigned, kMasks...>) {
+    return std::array<Interpolator, 16>{&HalfSpaceTable::Interpolate<ServedMask(kMasks)>...};
+  };
+  static constexpr std::array<Interpolator, 16> kByMask =
+      table(std::make_integer_sequence<unsigned, 16>{});
+  return (this->*kByMask[mask])(rho, zeta, r);
 }
 
 template <unsigned kMask>

@@ -174,9 +174,7 @@ std::string FormatBatchText(const BatchResult& result) {
                     report::Align::kRight);
   }
   if (per_band) table.AddColumn("band", report::Align::kLeft);
-  table.AddColumn("resonance (MHz)", report::Align::kRight);
-  table.AddColumn("min SWR", report::Align::kRight);
-  table.AddColumn("at (MHz)", report::Align::kRight);
+  table.AddColumns({{"resonance (MHz)"}, {"min SWR"}, {"at (MHz)"}});
   for (double f_hz : result.at_hz) table.AddColumn(report::AtHeader(f_hz), report::Align::kRight);
   table.AddColumn("max gain (dBi)", report::Align::kRight);
   table.AddColumn("take-off (deg)", report::Align::kRight);
@@ -330,13 +328,13 @@ std::string SummaryText(const BatchResult& result, const BatchSummary& summary,
           GainText(s.best_gain_dbi), s.best_ground);
     }
     TextTable settings;
-    settings.AddColumn("setting", Align::kLeft);
-    settings.AddColumn("worst (dBi)", Align::kRight);
-    settings.AddColumn("over", Align::kLeft);
-    settings.AddColumn("best (dBi)", Align::kRight);
-    settings.AddColumn("over", Align::kLeft);
-    settings.AddColumn("resonance spread (kHz)", Align::kRight);
-    settings.AddColumn("min SWR range", Align::kRight);
+    settings.AddColumns({{"setting", Align::kLeft},
+                         {"worst (dBi)"},
+                         {"over", Align::kLeft},
+                         {"best (dBi)"},
+                         {"over", Align::kLeft},
+                         {"resonance spread (kHz)"},
+                         {"min SWR range"}});
     for (size_t i = 0; i < summary.settings.size(); ++i) {
       const BatchSetting& s = summary.settings[i];
       const std::string name =

@@ -264,12 +264,12 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   if (!pattern.low_angle.empty()) {
     out += "\nLow angles (long-distance contacts): the best gain over azimuth at each elevation\n";
     TextTable low;
-    low.AddColumn("elevation (deg)", Align::kRight);
-    low.AddColumn("azimuth (deg)", Align::kRight);
-    low.AddColumn("gain (dBi)", Align::kRight);
-    low.AddColumn("vertical (dBi)", Align::kRight);
-    low.AddColumn("horizontal (dBi)", Align::kRight);
-    low.AddColumn("below max (dB)", Align::kRight);
+    low.AddColumns({{"elevation (deg)"},
+                    {"azimuth (deg)"},
+                    {"gain (dBi)"},
+                    {"vertical (dBi)"},
+                    {"horizontal (dBi)"},
+                    {"below max (dB)"}});
     for (const DirectionGain& row : pattern.low_angle) {
       const bool none = report::IsNoGain(row.gain_dbi) || report::IsNoGain(max_dbi);
       low.AddRow({AngleText(row.elevation_deg), AngleText(row.azimuth_deg),
@@ -303,9 +303,7 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
       "\nPower budget (share of the power delivered to the antenna terminals, after any feed "
       "line\nand transformer)\n";
   TextTable budget;
-  budget.AddColumn("where", Align::kLeft);
-  budget.AddColumn("power", Align::kRight);
-  budget.AddColumn("share", Align::kRight);
+  budget.AddColumns({{"where", Align::kLeft}, {"power"}, {"share"}});
   budget.AddRow({"into the antenna terminals", report::Watts(power.input_w),
                  report::Percent(power.input_w, power.input_w)});
   budget.AddRow({model.ground.kind == GroundKind::kFree ? "radiated (whole sphere)"

@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
 #include "report/ground_text.hpp"
 #include "report/mesh_estimate_text.hpp"
 #include "report/text_table.hpp"
@@ -101,7 +102,7 @@ std::string Signed(double value) {
 
 std::string Degrees(Complex value) {
   if (value == Complex(0.0, 0.0)) return "0.00";
-  return fmt::format("{:.2f}", std::arg(value) * 180.0 / std::acos(-1.0));
+  return fmt::format("{:.2f}", std::arg(value) * 180.0 / core::kPi);
 }
 
 std::string Swr(double swr) {
@@ -200,16 +201,16 @@ std::string AntennaHeading(const SolveResult& result) {
 std::string TransmitterTable(const Model& model, const SolveResult& result, double z0_ohm) {
   if (!AnyFeedChain(result)) return "";
   TextTable table;
-  table.AddColumn("feed", Align::kLeft);
-  table.AddColumn("through", Align::kLeft);
-  table.AddColumn("R (ohm)", Align::kRight);
-  table.AddColumn("X (ohm)", Align::kRight);
-  table.AddColumn("|Z| (ohm)", Align::kRight);
-  table.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
-  table.AddColumn("RL (dB)", Align::kRight);
-  table.AddColumn("P (W)", Align::kRight);
-  table.AddColumn("line loss (W)", Align::kRight);
-  table.AddColumn("transformer loss (W)", Align::kRight);
+  table.AddColumns({{"feed", Align::kLeft},
+                    {"through", Align::kLeft},
+                    {"R (ohm)"},
+                    {"X (ohm)"},
+                    {"|Z| (ohm)"},
+                    {fmt::format("SWR ({:.6g} ohm)", z0_ohm)},
+                    {"RL (dB)"},
+                    {"P (W)"},
+                    {"line loss (W)"},
+                    {"transformer loss (W)"}});
   for (const FeedResult& feed : result.feeds) {
     const Complex z = feed.transmitter_impedance_ohm;
     table.AddRow({feed.name, ChainText(model, feed.name), Number(z.real()), Signed(z.imag()),
@@ -258,16 +259,17 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
 
   out += report::AntennaHeading(result);
   TextTable feeds;
-  const double z0_ohm = result.feeds.empty() ? model.z0_ohm.value_or(50.0) : result.feeds[0].z0_ohm;
-  feeds.AddColumn("feed", Align::kLeft);
-  feeds.AddColumn("at", Align::kLeft);
-  feeds.AddColumn("R (ohm)", Align::kRight);
-  feeds.AddColumn("X (ohm)", Align::kRight);
-  feeds.AddColumn("|Z| (ohm)", Align::kRight);
-  feeds.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
-  feeds.AddColumn("|I| (A)", Align::kRight);
-  feeds.AddColumn("arg I (deg)", Align::kRight);
-  feeds.AddColumn("P (W)", Align::kRight);
+  const double z0_ohm =
+      result.feeds.empty() ? model.z0_ohm.value_or(kDefaultZ0Ohm) : result.feeds[0].z0_ohm;
+  feeds.AddColumns({{"feed", Align::kLeft},
+                    {"at", Align::kLeft},
+                    {"R (ohm)"},
+                    {"X (ohm)"},
+                    {"|Z| (ohm)"},
+                    {fmt::format("SWR ({:.6g} ohm)", z0_ohm)},
+                    {"|I| (A)"},
+                    {"arg I (deg)"},
+                    {"P (W)"}});
   for (const FeedResult& feed : result.feeds) {
     feeds.AddRow({feed.name, report::FeedPlace(model, feed.name), Number(feed.impedance_ohm.real()),
                   report::Signed(feed.impedance_ohm.imag()), Number(std::abs(feed.impedance_ohm)),
@@ -282,13 +284,13 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   if (!result.loads.empty()) {
     out += "\nLoads\n";
     TextTable loads;
-    loads.AddColumn("load", Align::kLeft);
-    loads.AddColumn("elements", Align::kLeft);
-    loads.AddColumn("R (ohm)", Align::kRight);
-    loads.AddColumn("X (ohm)", Align::kRight);
-    loads.AddColumn("|I| (A)", Align::kRight);
-    loads.AddColumn("|V| (V)", Align::kRight);
-    loads.AddColumn("P (W)", Align::kRight);
+    loads.AddColumns({{"load", Align::kLeft},
+                      {"elements", Align::kLeft},
+                      {"R (ohm)"},
+                      {"X (ohm)"},
+                      {"|I| (A)"},
+                      {"|V| (V)"},
+                      {"P (W)"}});
     for (const LoadResult& load : result.loads) {
       const LoadSpec* spec = report::FindLoad(model, load.name);
       loads.AddRow({load.name, report::LoadElements(spec, result.frequency_hz),
@@ -302,9 +304,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
 
   out += "\nWires\n";
   TextTable wires;
-  wires.AddColumn("wire", Align::kLeft);
-  wires.AddColumn("segments given", Align::kRight);
-  wires.AddColumn("segments used", Align::kRight);
+  wires.AddColumns({{"wire", Align::kLeft}, {"segments given"}, {"segments used"}});
   for (const WireMeshInfo& wire : simulation.wire_mesh()) {
     wires.AddRow({wire.name,
                   wire.segments_given > 0 ? fmt::format("{}", wire.segments_given) : "auto",

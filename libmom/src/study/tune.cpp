@@ -664,7 +664,7 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     out.z_ohm = at.z_ohm;
     out.transmitter_z_ohm = at.transmitter_z_ohm;
     out.swr = at.swr;
-    result.z0_ohm = simulation.model().z0_ohm.value_or(50.0);
+    result.z0_ohm = simulation.model().z0_ohm.value_or(kDefaultZ0Ohm);
     result.unknowns = simulation.unknowns();
     int solves = 0;
     out.resonance_hz = FindResonanceNear(simulation, out.target_hz, kinds[i], &solves);

@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "network/reflection.hpp"
 #include "wirefield/touchstone.hpp"
 
 namespace wirefield {
@@ -47,7 +48,7 @@ MeasuredComparison CompareMeasured(const SweepResult& sweep, const TouchstoneDat
     row.frequency_hz = m.frequency_hz;
     row.measured_z_ohm =
         std::abs(1.0 - s) > 0.0 ? ImpedanceFromReflection(s, r_ohm) : Complex(0.0, 0.0);
-    row.measured_swr = (1.0 + magnitude) / (1.0 - magnitude);
+    row.measured_swr = network::SwrFromMagnitude(magnitude);
     // Linear interpolation between the two sweep points around the measured frequency.
     auto above =
         std::lower_bound(points.begin(), points.end(), m.frequency_hz,

@@ -16,14 +16,14 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
 #include "core/read_file.hpp"
 #include "model/ranges.hpp"
 
 namespace wirefield {
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
-constexpr double kDegree_rad = kPi / 180.0;
+constexpr double kDegree_rad = core::kPi / 180.0;
 
 struct Token {
   std::string text;
