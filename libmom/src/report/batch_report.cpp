@@ -381,8 +381,8 @@ nlohmann::json ValueJson(const BatchVariable& variable, const BatchValue& value)
 
 nlohmann::json SummaryJson(const BatchSummary& summary) {
   nlohmann::json s;
-  s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
-  s["robust_setting"] = summary.robust_setting ? nlohmann::json(*summary.robust_setting) : nullptr;
+  s["best_row"] = report::OptionalJson(summary.best_row);
+  s["robust_setting"] = report::OptionalJson(summary.robust_setting);
   s["largest_gain_spread_db"] = summary.largest_gain_spread_db;
   nlohmann::json settings = nlohmann::json::array();
   for (const BatchSetting& setting : summary.settings) {
@@ -395,8 +395,7 @@ nlohmann::json SummaryJson(const BatchSummary& summary) {
     one["worst_ground"] = ran ? nlohmann::json(setting.worst_ground) : nullptr;
     one["best_gain_dbi"] = ran ? nlohmann::json(report::GainValue(setting.best_gain_dbi)) : nullptr;
     one["best_ground"] = ran ? nlohmann::json(setting.best_ground) : nullptr;
-    one["resonance_spread_hz"] =
-        setting.resonance_spread_hz ? nlohmann::json(*setting.resonance_spread_hz) : nullptr;
+    one["resonance_spread_hz"] = report::OptionalJson(setting.resonance_spread_hz);
     one["min_swr_range"] =
         ran ? nlohmann::json::array({setting.min_swr_low, setting.min_swr_high}) : nullptr;
     settings.push_back(one);
@@ -424,8 +423,7 @@ std::string FormatBatchJson(const BatchResult& result) {
   doc["vary"] = vary;
   doc["spans"] = report::SpansJson(result.spans);
   doc["at_hz"] = result.at_hz;
-  doc["pattern_frequency_hz"] =
-      result.pattern_frequency_hz ? nlohmann::json(*result.pattern_frequency_hz) : nullptr;
+  doc["pattern_frequency_hz"] = report::OptionalJson(result.pattern_frequency_hz);
   doc["pattern_step_deg"] = result.pattern_step_deg;
   doc["elevation_deg"] = result.elevation_deg;
   nlohmann::json rows = nlohmann::json::array();

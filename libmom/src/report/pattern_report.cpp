@@ -12,6 +12,8 @@
 #include <string>
 #include <vector>
 
+#include "core/enum_names.hpp"
+#include "report/json_values.hpp"
 #include "report/pattern_format.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/pattern.hpp"
@@ -164,17 +166,12 @@ std::string AzimuthCutReason(const PatternResult& pattern) {
 
 // The JSON name of a cut's choice.
 std::string ChoiceName(CutChoice choice) {
-  switch (choice) {
-    case CutChoice::kGiven:
-      return "option";
-    case CutChoice::kStrongestLowAngle:
-      return "strongest_low_angle";
-    case CutChoice::kTakeoff:
-      return "takeoff";
-    case CutChoice::kLowAngleNearZenith:
-      return "low_angle_near_zenith";
-  }
-  return "option";
+  static constexpr core::EnumNames<CutChoice, 4> kNames = {
+      {{CutChoice::kGiven, "option"},
+       {CutChoice::kStrongestLowAngle, "strongest_low_angle"},
+       {CutChoice::kTakeoff, "takeoff"},
+       {CutChoice::kLowAngleNearZenith, "low_angle_near_zenith"}}};
+  return core::NameOf(choice, kNames, "option");
 }
 
 std::string Watts(double power_w) {
@@ -209,13 +206,9 @@ nlohmann::json CutJson(const PatternCut& cut) {
   out["gain_dbi"] = GainArray(cut.gain_dbi);
   out["gain_vertical_dbi"] = GainArray(cut.gain_vertical_dbi);
   out["gain_horizontal_dbi"] = GainArray(cut.gain_horizontal_dbi);
-  out["beamwidth_deg"] = cut.beamwidth_deg ? nlohmann::json(*cut.beamwidth_deg) : nullptr;
+  out["beamwidth_deg"] = OptionalJson(cut.beamwidth_deg);
   out["chosen_by"] = ChoiceName(cut.choice);
   return out;
-}
-
-nlohmann::json OptionalJson(const std::optional<double>& value) {
-  return value ? nlohmann::json(*value) : nlohmann::json(nullptr);
 }
 
 }  // namespace
@@ -400,9 +393,7 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["front_to_side_db"] = report::OptionalJson(pattern.front_to_side_db);
   doc["elevation_cut"] = report::CutJson(pattern.elevation_cut);
   doc["azimuth_cut"] = report::CutJson(pattern.azimuth_cut);
-  doc["warnings"] = nlohmann::json::array();
-  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
-  for (const Warning& warning : pattern.warnings) doc["warnings"].push_back(ToString(warning));
+  doc["warnings"] = report::WarningsJson(simulation.warnings(), pattern.warnings);
   if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   if (exposure != nullptr) doc["exposure"] = nlohmann::json::parse(FormatExposureJson(*exposure));
   return doc.dump(2) + "\n";

@@ -13,6 +13,7 @@
 
 #include "core/constants.hpp"
 #include "report/ground_text.hpp"
+#include "report/json_values.hpp"
 #include "report/mesh_estimate_text.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/report.hpp"
@@ -164,10 +165,6 @@ std::string LoadElements(const LoadSpec* load, double frequency_hz) {
   std::string text = load->topology == LoadTopology::kSeries ? "series " : "parallel ";
   for (std::size_t i = 0; i < parts.size(); ++i) text += (i ? joint : "") + parts[i];
   return text;
-}
-
-nlohmann::json ComplexJson(Complex value) {
-  return nlohmann::json::array({value.real(), value.imag()});
 }
 
 // What sits between a feed and the transmitter: "transformer unun 1:49, line coax 10 m",
@@ -395,8 +392,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
                                      {"q", coil.q}};
     }
   }
-  doc["warnings"] = nlohmann::json::array();
-  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  doc["warnings"] = report::WarningsJson(simulation.warnings());
   report::AddMeshEstimateJson(result, &doc);
   if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   return doc.dump(2) + "\n";

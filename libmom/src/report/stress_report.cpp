@@ -7,6 +7,7 @@
 #include <nlohmann/json.hpp>
 #include <string>
 
+#include "report/json_values.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/stress.hpp"
 
@@ -259,9 +260,6 @@ std::string FormatExposureText(const ExposureResult& e) {
 }
 
 std::string FormatExposureJson(const ExposureResult& e) {
-  auto opt = [](const std::optional<double>& v) {
-    return v ? nlohmann::json(*v) : nlohmann::json(nullptr);
-  };
   nlohmann::json doc;
   doc["frequency_hz"] = e.frequency_hz;
   doc["power_w"] = e.power_w;
@@ -271,10 +269,10 @@ std::string FormatExposureJson(const ExposureResult& e) {
   doc["average_power_w"] = e.average_power_w;
   doc["gain_dbi"] = e.gain_dbi;
   doc["gain_numeric"] = e.gain_numeric;
-  doc["fcc_limit_w_per_m2"] = opt(e.fcc_limit_w_per_m2);
-  doc["fcc_distance_m"] = opt(e.fcc_distance_m);
-  doc["icnirp_limit_w_per_m2"] = opt(e.icnirp_limit_w_per_m2);
-  doc["icnirp_distance_m"] = opt(e.icnirp_distance_m);
+  doc["fcc_limit_w_per_m2"] = report::OptionalJson(e.fcc_limit_w_per_m2);
+  doc["fcc_distance_m"] = report::OptionalJson(e.fcc_distance_m);
+  doc["icnirp_limit_w_per_m2"] = report::OptionalJson(e.icnirp_limit_w_per_m2);
+  doc["icnirp_distance_m"] = report::OptionalJson(e.icnirp_distance_m);
   doc["cautions"] = e.cautions;
   return doc.dump();
 }

@@ -177,12 +177,6 @@ nlohmann::json SpansJson(const std::vector<SweepSpan>& spans) {
   return out;
 }
 
-nlohmann::json WarningsJson(const std::vector<Warning>& warnings) {
-  nlohmann::json out = nlohmann::json::array();
-  for (const Warning& warning : warnings) out.push_back(ToString(warning));
-  return out;
-}
-
 std::string SweepTitle(const SweepReport& report) {
   std::string bands;
   for (const BandSummary& summary : report.bands) {

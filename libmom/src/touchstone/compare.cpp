@@ -73,14 +73,12 @@ MeasuredComparison CompareMeasured(const SweepResult& sweep, const TouchstoneDat
                                  measured.points.size(), measured.points.front().frequency_hz / 1e6,
                                  measured.points.back().frequency_hz / 1e6));
   }
-  out.measured_min_swr = out.points.front().measured_swr;
-  out.measured_min_swr_frequency_hz = out.points.front().frequency_hz;
-  for (const MeasuredPoint& row : out.points) {
-    if (row.measured_swr < out.measured_min_swr) {
-      out.measured_min_swr = row.measured_swr;
-      out.measured_min_swr_frequency_hz = row.frequency_hz;
-    }
-  }
+  const MeasuredPoint& lowest = *std::min_element(
+      out.points.begin(), out.points.end(), [](const MeasuredPoint& a, const MeasuredPoint& b) {
+        return a.measured_swr < b.measured_swr;
+      });
+  out.measured_min_swr = lowest.measured_swr;
+  out.measured_min_swr_frequency_hz = lowest.frequency_hz;
   const double first_hz = out.points.front().frequency_hz;
   const double last_hz = out.points.back().frequency_hz;
   bool found = false;
