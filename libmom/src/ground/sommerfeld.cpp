@@ -22,7 +22,6 @@
 #include <cstddef>
 #include <limits>
 #include <thread>
-#include <utility>
 #include <vector>
 
 #include "core/constants.hpp"
@@ -380,10 +379,6 @@ unsigned TableMask(unsigned parts) {
          ((parts & HalfSpaceTable::kVertical) ? 8u : 0u);
 }
 
-// The mask whose interpolation loop serves `mask` (a TableMask): its own when it holds the
-// charge, which a fill always wants, else the loop over all four parts.
-constexpr unsigned ServedMask(unsigned mask) { return (mask & 2u) ? mask : 15u; }
-
 // Weights of the 4-point Lagrange interpolation on equally spaced nodes -1, 0, 1, 2 at u.
 std::array<double, 4> Lagrange(double u) {
   constexpr double kSixth = 1.0 / 6.0;
@@ -567,11 +562,17 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
   // wanted in a fill, so its masks come first.
   const unsigned mask = TableMask(parts);
   using Interpolator = std::array<Complex, 4> (HalfSpaceTable::*)(double, double, double) const;
-  constexpr auto table = []<unsigned... kMasks>(std::integer_sequence<unsigned, kMasks...>) {
-    return std::array<Interpolator, 16>{&HalfSpaceTable::Interpolate<ServedMask(kMasks)>...};
-  };
-  static constexpr std::array<Interpolator, 16> kByMask =
-      table(std::make_integer_sequence<unsigned, 16>{});
+  // By mask: each mask holding the charge (which a fill always wants) has its own loop, the
+  // others take the loop over all four parts.
+  static constexpr std::array<Interpolator, 16> kByMask = {
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<2>,  &HalfSpaceTable::Interpolate<3>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<6>,  &HalfSpaceTable::Interpolate<7>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<10>, &HalfSpaceTable::Interpolate<11>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<14>, &HalfSpaceTable::Interpolate<15>};
   return (this->*kByMask[mask])(rho, zeta, r);
 }
 
