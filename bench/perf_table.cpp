@@ -26,9 +26,9 @@
 #include <optional>
 #include <stdexcept>
 #include <string>
-#include <thread>
 #include <vector>
 
+#include "core/parallel.hpp"
 #include "fill/assemble.hpp"
 #include "geometry/mesh.hpp"
 #include "solve/dense.hpp"
@@ -46,8 +46,6 @@ std::string LoadAverage() {
   in >> a >> b >> c;
   return a + " " + b + " " + c;
 }
-
-int Cores() { return static_cast<int>(std::max(1u, std::thread::hardware_concurrency())); }
 
 // A straight 40 m wire of n + 1 segments (n unknowns), 1 mm radius, at 14.2 MHz.
 std::string LongWireText(int unknowns) {
@@ -268,7 +266,7 @@ constexpr double kMinTimeS = 0.2;
 constexpr double kProgramMinTimeS = 1.0;
 
 void RegisterAll(const std::vector<int>& sizes) {
-  const int cores = Cores();
+  const int cores = wirefield::core::CoreCount();
   // 1. Fill, one thread and all cores: wall time and the process's CPU time.
   for (int n : sizes) {
     for (int threads : {1, cores}) {
@@ -417,7 +415,7 @@ class TableReporter : public benchmark::ConsoleReporter {
   }
 
   void PrintTable() const {
-    const int cores = Cores();
+    const int cores = wirefield::core::CoreCount();
     const std::vector<int> sizes = Sizes();
     fmt::print(
         "\nwirefield performance table ({}), from the Google Benchmark runs above: wall clock "

@@ -193,7 +193,7 @@ struct BatchResult {
   std::optional<double> pattern_frequency_hz;  // as asked (empty: per row's minimum SWR)
   double elevation_deg = 10.0;
   double pattern_step_deg = 2.0;
-  double z0_ohm = 50.0;
+  double z0_ohm = kDefaultZ0Ohm;
   std::vector<BatchRow> rows;  // in grid order, whatever the thread count (empty with row_sink)
   // True when BatchOptions::cancel stopped the run: `rows` then holds only the rows that
   // finished (in grid order; BatchRow::index says where each sits), of rows_planned.

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "wirefield/coil.hpp"
+#include "wirefield/core.hpp"
 
 namespace wirefield {
 

@@ -11,18 +11,16 @@
 
 namespace wirefield {
 
-using Complex = std::complex<double>;
-
 // What the transmitter sees through a feed's chain at one frequency, for the antenna
 // impedance z_antenna_ohm at the feed terminals.
 struct ChainResult {
   Complex transmitter_impedance_ohm;
-  double swr = 1.0;                 // against z0_ohm
-  double return_loss_db = 0.0;      // -20 log10 |Gamma|, capped at 99 dB for a perfect match
-  double mismatch_loss_db = 0.0;    // -10 log10 (1 - |Gamma|^2)
+  double swr = 1.0;                        // against z0_ohm
+  double return_loss_db = 0.0;             // -20 log10 |Gamma|, capped at 99 dB for a perfect match
+  double mismatch_loss_db = 0.0;           // -10 log10 (1 - |Gamma|^2)
   double transformer_loss_fraction = 0.0;  // of the power entering the chain
   double line_loss_fraction = 0.0;
-  double antenna_power_fraction = 1.0;     // reaches the antenna terminals
+  double antenna_power_fraction = 1.0;  // reaches the antenna terminals
 };
 
 // Evaluates the chain of model.feeds[feed_index] (its transformer and feed line, if any).

@@ -14,8 +14,6 @@
 
 namespace wirefield {
 
-using Complex = std::complex<double>;
-
 namespace study {
 class Pipeline;  // the solve pipeline a Simulation holds (libmom/src/study/pipeline.hpp)
 }
@@ -45,7 +43,7 @@ struct FeedResult {
   Complex current_a;      // peak phasor, into the antenna
   Complex voltage_v;      // the source voltage
   double swr = 0.0;       // at the transmitter (see below), against z0_ohm
-  double z0_ohm = 50.0;
+  double z0_ohm = kDefaultZ0Ohm;
   double power_w = 0.0;  // 0.5 Re(V I*): power delivered to the antenna terminals
   // At the antenna terminals: the SWR of impedance_ohm against z0_ohm.
   double antenna_swr = 0.0;

@@ -44,7 +44,7 @@ struct SweepPoint {
 };
 
 struct SweepResult {
-  double z0_ohm = 50.0;
+  double z0_ohm = kDefaultZ0Ohm;
   std::vector<SweepPoint> points;  // in the order of the frequencies given
   // Zero crossings of X, interpolated between points: at the first feed's terminals (the
   // antenna's own resonances, the contract's `resonances_hz`), and at the transmitter, through

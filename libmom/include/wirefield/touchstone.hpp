@@ -13,8 +13,6 @@
 
 namespace wirefield {
 
-using Complex = std::complex<double>;
-
 // How the file writes a complex number: real and imaginary parts (RI), magnitude and angle
 // in degrees (MA), or 20 log10 of the magnitude in dB and angle in degrees (DB).
 enum class TouchstoneFormat { kRealImaginary, kMagnitudeAngle, kDecibelAngle };

@@ -108,7 +108,7 @@ struct TuneResult {
   std::string feed_name;  // the first feed
   TuneGoal goal = TuneGoal::kResonance;
   ResonanceKind kind_given = ResonanceKind::kAuto;
-  double z0_ohm = 50.0;
+  double z0_ohm = kDefaultZ0Ohm;
   std::vector<TunedVariable> variables;  // in the order of the targets
   int iterations = 0;                    // alternations (1 for one variable)
   int solves = 0;                        // moment-method solves in all

@@ -3,6 +3,7 @@
 
 #include "wirefield/batch.hpp"
 #include "wirefield/coil.hpp"
+#include "wirefield/core.hpp"
 #include "wirefield/model.hpp"
 #include "wirefield/network.hpp"
 #include "wirefield/pattern.hpp"

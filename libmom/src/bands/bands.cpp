@@ -186,14 +186,11 @@ BandSummary SummarizeBand(const SweepResult& sweep, const Band& band) {
   BandSummary summary;
   summary.band = band;
   summary.points = static_cast<int>(inside.points.size());
-  summary.min_swr = inside.points.front().swr;
-  summary.min_swr_frequency_hz = inside.points.front().frequency_hz;
-  for (const SweepPoint& point : inside.points) {
-    if (point.swr < summary.min_swr) {
-      summary.min_swr = point.swr;
-      summary.min_swr_frequency_hz = point.frequency_hz;
-    }
-  }
+  const SweepPoint& lowest =
+      *std::min_element(inside.points.begin(), inside.points.end(),
+                        [](const SweepPoint& a, const SweepPoint& b) { return a.swr < b.swr; });
+  summary.min_swr = lowest.swr;
+  summary.min_swr_frequency_hz = lowest.frequency_hz;
   inside.min_swr = summary.min_swr;
   inside.min_swr_frequency_hz = summary.min_swr_frequency_hz;
   for (double f_hz : sweep.resonances_hz) {

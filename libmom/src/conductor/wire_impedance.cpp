@@ -16,8 +16,6 @@
 namespace wirefield::conductor {
 namespace {
 
-using Complex = std::complex<double>;
-
 // Lentz stops when a step changes the value by less than this (relative): a few rounding
 // units of a complex product, so the result is good to about 1e-15.
 constexpr double kLentzTolerance = 4.0 * std::numeric_limits<double>::epsilon();

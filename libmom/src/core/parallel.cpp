@@ -39,4 +39,6 @@ void ParallelFor(int threads, std::size_t count, const std::function<void(std::s
 
 int CoreCount() { return static_cast<int>(std::max(1u, std::thread::hardware_concurrency())); }
 
+int ResolveThreads(int asked) { return asked > 0 ? asked : CoreCount(); }
+
 }  // namespace wirefield::core

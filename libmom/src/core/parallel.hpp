@@ -14,4 +14,7 @@ void ParallelFor(int threads, std::size_t count, const std::function<void(std::s
 // One thread per core (at least one).
 int CoreCount();
 
+// The thread count a request means: `asked` when positive, else (0, "auto") CoreCount().
+int ResolveThreads(int asked);
+
 }  // namespace wirefield::core

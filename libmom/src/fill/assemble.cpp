@@ -12,11 +12,11 @@
 #include <cmath>
 #include <cstdint>
 #include <optional>
-#include <thread>
 
 #include "conductor/wire_impedance.hpp"
 #include "core/constants.hpp"
 #include "core/fresh_memory.hpp"
+#include "core/parallel.hpp"
 #include "fill/half_space.hpp"
 #include "ground/reflection.hpp"
 
@@ -121,34 +121,30 @@ NearFieldCache BuildNearFieldCache(const geometry::Mesh& mesh, int threads) {
     const double reach = 0.5 * (length[i] + length[j]) + std::max(length[i], length[j]);
     return (centre[i] - centre_j).squaredNorm() <= 1.01 * reach * reach;
   };
-  // Row i is written by one thread only; rows interleaved, since row i scans ns - i pairs.
-  auto rows = [&](int first, int step) {
-    for (int i = first; i < ns; i += step) {
-      const geometry::Segment& si = mesh.segments[i];
-      for (int j = i; j < ns; ++j) {
-        const geometry::Segment& sj = mesh.segments[j];
-        const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
-        if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
+  // Row i is written by one task only, so any thread count gives the same cache.
+  auto row = [&](std::size_t row_index) {
+    const int i = static_cast<int>(row_index);
+    const geometry::Segment& si = mesh.segments[i];
+    for (int j = i; j < ns; ++j) {
+      const geometry::Segment& sj = mesh.segments[j];
+      const double radius2 = 0.5 * (si.radius_m * si.radius_m + sj.radius_m * sj.radius_m);
+      if (may_be_near(i, j, centre[j]) && IsNearPair(si.start, si.end, sj.start, sj.end)) {
+        cache.by_observation[i].push_back(
+            {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
+      }
+      if (mesh.ground_images) {
+        const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
+        const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
+        if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
+            IsNearPair(si.start, si.end, img0, img1)) {
           cache.by_observation[i].push_back(
-              {j, false, StaticNearMoments(si.start, si.end, sj.start, sj.end, radius2)});
-        }
-        if (mesh.ground_images) {
-          const geometry::Vec3 img0 = sj.start.cwiseProduct(mirror);
-          const geometry::Vec3 img1 = sj.end.cwiseProduct(mirror);
-          if (may_be_near(i, j, centre[j].cwiseProduct(mirror)) &&
-              IsNearPair(si.start, si.end, img0, img1)) {
-            cache.by_observation[i].push_back(
-                {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
-          }
+              {j, true, StaticNearMoments(si.start, si.end, img0, img1, radius2)});
         }
       }
     }
   };
   const int used = std::clamp(threads, 1, std::max(1, ns / 64));  // small meshes: one thread
-  std::vector<std::thread> pool;
-  for (int t = 1; t < used; ++t) pool.emplace_back(rows, t, used);
-  rows(0, used);
-  for (std::thread& th : pool) th.join();
+  core::ParallelFor(used, static_cast<std::size_t>(ns), row);
   return cache;
 }
 
@@ -387,21 +383,11 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
     }
   };
   std::vector<SpillRows> spills(blocks);
-  // Thread t fills blocks t, t + threads, ...: the blocks have equal work, so this balances.
-  auto run = [&](int t) {
-    for (int block = t; block < blocks; block += threads) {
-      work(block, &spills[block]);
-      if (progress) progress->Advance(1.0 / blocks);
-    }
-  };
-  if (threads == 1) {
-    run(0);
-  } else {
-    std::vector<std::thread> pool;
-    for (int t = 1; t < threads; ++t) pool.emplace_back(run, t);
-    run(0);
-    for (std::thread& th : pool) th.join();
-  }
+  // The workers take the blocks in turn; each block writes only its own rows and spill.
+  core::ParallelFor(threads, static_cast<std::size_t>(blocks), [&](std::size_t block) {
+    work(static_cast<int>(block), &spills[block]);
+    if (progress) progress->Advance(1.0 / blocks);
+  });
   for (const SpillRows& spill : spills) {
     for (const auto& [b, row] : spill) z.col(b) += row;
   }

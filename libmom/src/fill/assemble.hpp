@@ -15,8 +15,6 @@
 
 namespace wirefield::fill {
 
-using Complex = std::complex<double>;
-
 // Impedance of a lumped load at a frequency (a coil load: its (R_ac + j omega L) in parallel
 // with its self-capacitance, wirefield/coil.hpp). *open is set when the element is an ideal open
 // circuit there (parallel L and C at exact resonance, nothing else in parallel); the returned

@@ -8,42 +8,16 @@
 
 #include <algorithm>
 #include <array>
-#include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
+#include <utility>
 #include <vector>
 
 #include "core/constants.hpp"
+#include "fill/unit_gauss.hpp"
+#include "wirefield/core.hpp"
 
 namespace wirefield::fill {
 namespace {
-
-using Complex = std::complex<double>;
-
-template <int N>
-struct UnitGauss {
-  std::array<double, N> x{}, w{};
-  UnitGauss() {
-    using G = boost::math::quadrature::gauss<double, N>;
-    const auto& abs = G::abscissa();
-    const auto& wts = G::weights();
-    int k = 0;
-    for (int i = static_cast<int>(abs.size()) - 1; i >= 0; --i) {
-      if (abs[i] == 0.0) continue;
-      x[k] = 0.5 * (1.0 - abs[i]);
-      w[k++] = 0.5 * wts[i];
-    }
-    for (size_t i = 0; i < abs.size(); ++i) {
-      x[k] = 0.5 * (1.0 + abs[i]);
-      w[k++] = 0.5 * wts[i];
-    }
-  }
-};
-
-template <int N>
-const UnitGauss<N>& Gauss() {
-  static const UnitGauss<N> rule;
-  return rule;
-}
 
 // The quadrature follows the image moments' (fill/kernel.cpp: six points per segment within
 // four segment lengths, four within ten, three beyond), so that where the half-space tends to
@@ -96,21 +70,15 @@ void AddPieces(const Vec3& s0, const Vec3& s1, double lo, double hi, std::vector
 void CorrectionNodes(const Vec3& s0, const Vec3& s1, int points, double other_low_m, double floor_m,
                      std::vector<Node>* nodes) {
   nodes->clear();
-  switch (points) {
-    case 2:
-      AddPieces<2>(s0, s1, 0.0, 1.0, nodes);
+  // The fixed rules, by their number of points.
+  using AddRule = void (*)(const Vec3&, const Vec3&, double, double, std::vector<Node>*);
+  static constexpr std::array<std::pair<int, AddRule>, 4> kRules = {
+      {{2, &AddPieces<2>}, {3, &AddPieces<3>}, {4, &AddPieces<4>}, {6, &AddPieces<6>}}};
+  for (const auto& [rule_points, add] : kRules) {
+    if (rule_points == points) {
+      add(s0, s1, 0.0, 1.0, nodes);
       return;
-    case 3:
-      AddPieces<3>(s0, s1, 0.0, 1.0, nodes);
-      return;
-    case 4:
-      AddPieces<4>(s0, s1, 0.0, 1.0, nodes);
-      return;
-    case 6:
-      AddPieces<6>(s0, s1, 0.0, 1.0, nodes);
-      return;
-    default:
-      break;
+    }
   }
   // Graded from the lower end: each piece as wide as kGradedWidth times the local scale.
   const double length = (s1 - s0).norm();

@@ -7,43 +7,14 @@
 
 #include <algorithm>
 #include <array>
-#include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
 #include <vector>
 
+#include "fill/unit_gauss.hpp"
 #include "geometry/mesh.hpp"
 
 namespace wirefield::fill {
 namespace {
-
-// Gauss-Legendre nodes and weights mapped to [0, 1].
-template <int N>
-struct UnitRule {
-  std::array<double, N> x{}, w{};
-  UnitRule() {
-    using G = boost::math::quadrature::gauss<double, N>;
-    const auto& abs = G::abscissa();
-    const auto& wts = G::weights();
-    // Boost stores the non-negative half of the symmetric rule.
-    int k = 0;
-    const int half = static_cast<int>(abs.size());
-    for (int i = half - 1; i >= 0; --i) {
-      if (abs[i] == 0.0) continue;
-      x[k] = 0.5 * (1.0 - abs[i]);
-      w[k++] = 0.5 * wts[i];
-    }
-    for (int i = 0; i < half; ++i) {
-      x[k] = 0.5 * (1.0 + abs[i]);
-      w[k++] = 0.5 * wts[i];
-    }
-  }
-};
-
-template <int N>
-const UnitRule<N>& Rule() {
-  static const UnitRule<N> rule;
-  return rule;
-}
 
 // A pair is near when the segments come closer than this many times the longer one.
 constexpr double kNearFactor = 1.0;
@@ -57,7 +28,7 @@ constexpr double kFarFactor = 10.0;
 template <int N, typename Kernel>
 PairMoments ProductRule(const Vec3& a0, const Vec3& da, const Vec3& b0, const Vec3& db,
                         double radius2, Kernel kernel) {
-  const auto& r = Rule<N>();
+  const auto& r = Gauss<N>();
   PairMoments m;
   for (int i = 0; i < N; ++i) {
     const Vec3 p = a0 + da * r.x[i];
@@ -140,7 +111,7 @@ PairMoments StaticNear(const Vec3& a0, const Vec3& a1, const Vec3& b0, const Vec
     return geometry::SegmentDistance(p, p, b0, b1, nullptr) < 2.0 * radius;
   };
   const std::vector<double> breaks = OuterBreaks(touches(a0), touches(a1), radius / la);
-  const auto& g = Rule<8>();
+  const auto& g = Gauss<8>();
   PairMoments m;
   for (size_t iv = 0; iv + 1 < breaks.size(); ++iv) {
     const double lo = breaks[iv], width = breaks[iv + 1] - breaks[iv];
@@ -211,10 +182,10 @@ SegmentNodes MakeSegmentNodes(const Vec3& start, const Vec3& end) {
   s.length_m = (end - start).norm();
   const Vec3 d = end - start;
   // The same expressions as ProductRule's points, so the nodes agree to the last bit.
-  for (int i = 0; i < 2; ++i) s.p2[i] = start + d * Rule<2>().x[i];
-  for (int i = 0; i < 3; ++i) s.p3[i] = start + d * Rule<3>().x[i];
-  for (int i = 0; i < 4; ++i) s.p4[i] = start + d * Rule<4>().x[i];
-  for (int i = 0; i < 6; ++i) s.p6[i] = start + d * Rule<6>().x[i];
+  for (int i = 0; i < 2; ++i) s.p2[i] = start + d * Gauss<2>().x[i];
+  for (int i = 0; i < 3; ++i) s.p3[i] = start + d * Gauss<3>().x[i];
+  for (int i = 0; i < 4; ++i) s.p4[i] = start + d * Gauss<4>().x[i];
+  for (int i = 0; i < 6; ++i) s.p6[i] = start + d * Gauss<6>().x[i];
   return s;
 }
 
@@ -240,7 +211,7 @@ void PhasedKernel(const std::array<double, Count>& distance,
 template <int N>
 PairMoments FarProduct(const std::array<Vec3, N>& pa, const std::array<Vec3, N>& pb, double radius2,
                        double k, double centre_distance, double reach) {
-  const auto& r = Rule<N>();
+  const auto& r = Gauss<N>();
   std::array<double, N * N> distance;
   for (int i = 0; i < N; ++i) {
     for (int j = 0; j < N; ++j) {
@@ -319,7 +290,7 @@ PairMoments SegmentPairMomentsReference(const Vec3& a0, const Vec3& a1, const Ve
                                         const Vec3& b1, double radius2_m2, double wavenumber_per_m,
                                         int subdivisions) {
   // Composite 20-point Gauss-Legendre on `subdivisions` equal parts of each segment.
-  const auto& g = Rule<20>();
+  const auto& g = Gauss<20>();
   const Vec3 da = a1 - a0, db = b1 - b0;
   PairMoments m;
   const double h = 1.0 / subdivisions;

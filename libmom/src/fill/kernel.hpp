@@ -9,9 +9,10 @@
 #include <array>
 #include <complex>
 
+#include "wirefield/core.hpp"
+
 namespace wirefield::fill {
 
-using Complex = std::complex<double>;
 using Vec3 = Eigen::Vector3d;
 
 struct PairMoments {

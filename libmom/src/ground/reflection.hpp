@@ -12,7 +12,6 @@
 
 namespace wirefield::ground {
 
-using Complex = std::complex<double>;
 using Vec3 = Eigen::Vector3d;
 
 // eps_r - j sigma / (omega eps0).

@@ -561,24 +561,19 @@ std::array<Complex, 4> HalfSpaceTable::NormalizedClamped(double rho_m, double ze
   // The mask in values_' order (horizontal, charge, coupling, vertical); the charge is always
   // wanted in a fill, so its masks come first.
   const unsigned mask = TableMask(parts);
-  switch (mask) {
-    case 2:
-      return Interpolate<2>(rho, zeta, r);
-    case 3:
-      return Interpolate<3>(rho, zeta, r);
-    case 6:
-      return Interpolate<6>(rho, zeta, r);
-    case 7:
-      return Interpolate<7>(rho, zeta, r);
-    case 10:
-      return Interpolate<10>(rho, zeta, r);
-    case 11:
-      return Interpolate<11>(rho, zeta, r);
-    case 14:
-      return Interpolate<14>(rho, zeta, r);
-    default:
-      return Interpolate<15>(rho, zeta, r);
-  }
+  using Interpolator = std::array<Complex, 4> (HalfSpaceTable::*)(double, double, double) const;
+  // By mask: each mask holding the charge (which a fill always wants) has its own loop, the
+  // others take the loop over all four parts.
+  static constexpr std::array<Interpolator, 16> kByMask = {
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<2>,  &HalfSpaceTable::Interpolate<3>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<6>,  &HalfSpaceTable::Interpolate<7>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<10>, &HalfSpaceTable::Interpolate<11>,
+      &HalfSpaceTable::Interpolate<15>, &HalfSpaceTable::Interpolate<15>,
+      &HalfSpaceTable::Interpolate<14>, &HalfSpaceTable::Interpolate<15>};
+  return (this->*kByMask[mask])(rho, zeta, r);
 }
 
 template <unsigned kMask>

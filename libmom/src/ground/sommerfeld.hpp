@@ -10,9 +10,9 @@
 #include <complex>
 #include <vector>
 
-namespace wirefield::ground {
+#include "wirefield/core.hpp"
 
-using Complex = std::complex<double>;
+namespace wirefield::ground {
 
 // The reflected potentials of a half-space in the mixed-potential form of Michalski & Zheng's
 // "Formulation C" (IEEE Trans. AP-38(3), 1990; for a half-space with source and observer in

@@ -8,7 +8,8 @@
 
 #include <array>
 #include <cmath>
-#include <numbers>
+
+#include "core/constants.hpp"
 
 namespace wirefield::model {
 
@@ -284,7 +285,7 @@ class Evaluator {
   }
 
   Value NameValue(const Token& name) {
-    if (name.text == "pi") return Value{std::numbers::pi, kNone};
+    if (name.text == "pi") return Value{core::kPi, kNone};
     if (Scope::Variable* var = scope_.Find(name.text)) {
       var->used = true;
       return var->value;

@@ -33,6 +33,20 @@ std::vector<Point> Finite(const ShapeRequest& r, std::vector<Point> corners) {
   return corners;
 }
 
+// The shape's name with its article: "a sloper", "an inverted-l".
+std::string WithArticle(ShapeKind kind) {
+  return (kind == ShapeKind::kSloper ? "a " : "an ") + ShapeKindNames()[static_cast<size_t>(kind)];
+}
+
+// The InputError of a length too short for its shape, at the length: "CONTEXT: a SHAPE of
+// length=L PROBLEM: give a length BOUND, or raise low=".
+[[noreturn]] void LengthTooShort(const ShapeRequest& r, const std::string& problem,
+                                 const std::string& bound) {
+  throw InputError(r.length_m.location,
+                   fmt::format("{}: {} of length={} {}: give a length {}, or raise low=", r.context,
+                               WithArticle(r.kind), M(r.length_m.value), problem, bound));
+}
+
 }  // namespace
 
 const std::vector<std::string>& ShapeKindNames() {
@@ -43,7 +57,6 @@ const std::vector<std::string>& ShapeKindNames() {
 
 std::vector<Point> ShapeCorners(const ShapeRequest& r) {
   const std::string& context = r.context;
-  const std::string kind = ShapeKindNames()[static_cast<size_t>(r.kind)];
   const double top = r.top_m.value;
   const double length = r.length_m.value;
   if (!(top > 0.0)) {
@@ -79,45 +92,40 @@ std::vector<Point> ShapeCorners(const ShapeRequest& r) {
                                          context, M(low)));
   }
   if (low >= top) {
-    throw InputError(
-        low_at,
-        fmt::format("{}: low={} is not below top={}; the low end of a{} {} hangs "
-                    "below the support's top: lower low= or raise top= (for a "
-                    "level wire use 'horizontal')",
-                    context, M(low), M(top), r.kind == ShapeKind::kSloper ? "" : "n", kind));
+    throw InputError(low_at, fmt::format("{}: low={} is not below top={}; the low end of {} hangs "
+                                         "below the support's top: lower low= or raise top= (for a "
+                                         "level wire use 'horizontal')",
+                                         context, M(low), M(top), WithArticle(r.kind)));
   }
   const double drop = top - low;
   switch (r.kind) {
     case ShapeKind::kSloper: {
       if (length < drop) {
-        throw InputError(
-            r.length_m.location,
-            fmt::format("{}: a sloper of length={} cannot reach from top={} down to low={} (a "
-                        "drop of {}): give a length of at least {}, or raise low=",
-                        context, M(length), M(top), M(low), M(drop), M(drop)));
+        LengthTooShort(r,
+                       fmt::format("cannot reach from top={} down to low={} (a drop of {})", M(top),
+                                   M(low), M(drop)),
+                       "of at least " + M(drop));
       }
       return Finite(r, {away(Reach(length, drop), low), apex});
     }
     case ShapeKind::kInvertedL: {
       if (length <= drop) {
-        throw InputError(
-            r.length_m.location,
-            fmt::format("{}: an inverted-l of length={} is used up by the vertical part from "
-                        "low={} to top={} ({}), leaving nothing to run level: give a length "
-                        "above {}, or raise low=",
-                        context, M(length), M(low), M(top), M(drop), M(drop)));
+        LengthTooShort(r,
+                       fmt::format("is used up by the vertical part from low={} to top={} ({}), "
+                                   "leaving nothing to run level",
+                                   M(low), M(top), M(drop)),
+                       "above " + M(drop));
       }
       return Finite(r, {Point{x, y, low}, apex, away(length - drop, top)});
     }
     case ShapeKind::kInvertedV: {
       const double leg = length / 2.0;
       if (leg <= drop) {
-        throw InputError(
-            r.length_m.location,
-            fmt::format("{}: an inverted-v of length={} has legs of {}, too short to slope "
-                        "from the apex at top={} down to low={} (a drop of {}) and away from "
-                        "the support: give a length above {}, or raise low=",
-                        context, M(length), M(leg), M(top), M(low), M(drop), M(2.0 * drop)));
+        LengthTooShort(r,
+                       fmt::format("has legs of {}, too short to slope from the apex at top={} "
+                                   "down to low={} (a drop of {}) and away from the support",
+                                   M(leg), M(top), M(low), M(drop)),
+                       "above " + M(2.0 * drop));
       }
       const double run = Reach(leg, drop);
       return Finite(r, {away(-run, low), apex, away(run, low)});

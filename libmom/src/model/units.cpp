@@ -5,7 +5,7 @@
 
 #include <fmt/format.h>
 
-#include <numbers>
+#include "core/constants.hpp"
 
 namespace wirefield::model {
 
@@ -45,7 +45,7 @@ constexpr Quantity kDescribedOnly[] = {
     {"a power", "W", "", Dimension{{2, 1, -3, 0}}},
 };
 
-constexpr double kDegree = std::numbers::pi / 180.0;
+constexpr double kDegree = core::kPi / 180.0;
 
 // The unit table. Sources: SI Brochure, 9th ed. (BIPM 2019) for the prefixes; the
 // international yard and pound agreement of 1959 for ft and in.

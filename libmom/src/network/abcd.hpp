@@ -6,9 +6,9 @@
 
 #include <complex>
 
-namespace wirefield::network {
+#include "wirefield/core.hpp"
 
-using Complex = std::complex<double>;
+namespace wirefield::network {
 
 // [[a, b], [c, d]]: V1 = a V2 + b I2, I1 = c V2 + d I2.
 struct Abcd {

@@ -5,9 +5,9 @@
 
 #include <complex>
 
-namespace wirefield::network {
+#include "wirefield/core.hpp"
 
-using Complex = std::complex<double>;
+namespace wirefield::network {
 
 // SWR reported for a total reflection (|G| = 1): larger than any measurable value.
 inline constexpr double kSwrCap = 1e9;

@@ -8,6 +8,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "core/enum_names.hpp"
 #include "wirefield/stress.hpp"
 
 namespace wirefield {
@@ -46,19 +47,13 @@ double ModeDutyFactor(TransmitMode mode) {
 }
 
 std::string ToString(TransmitMode mode) {
-  switch (mode) {
-    case TransmitMode::kSsb:
-      return "ssb";
-    case TransmitMode::kCw:
-      return "cw";
-    case TransmitMode::kFm:
-      return "fm";
-    case TransmitMode::kDigital:
-      return "digital";
-    case TransmitMode::kCarrier:
-      return "carrier";
-  }
-  return "carrier";
+  static constexpr core::EnumNames<TransmitMode, 5> kNames = {
+      {{TransmitMode::kSsb, "ssb"},
+       {TransmitMode::kCw, "cw"},
+       {TransmitMode::kFm, "fm"},
+       {TransmitMode::kDigital, "digital"},
+       {TransmitMode::kCarrier, "carrier"}}};
+  return core::NameOf(mode, kNames, "carrier");
 }
 
 double ExposurePowerDensity(double average_power_w, double gain_numeric, double distance_m) {

@@ -249,7 +249,7 @@ PatternResult ComputePattern(const Model& model, const SolveResult& solved,
       static_cast<double>(n_az + 1) * (std::size(kLowAngleElevations_deg) + 1) + cut_points +
       static_cast<double>(eval.source.power_grid().directions());
   core::Progress progress("pattern", directions);
-  eval.threads = options.threads > 0 ? options.threads : core::CoreCount();
+  eval.threads = core::ResolveThreads(options.threads);
   eval.progress = &progress;
   double best = -INFINITY;
   {

@@ -12,9 +12,6 @@
 
 namespace wirefield::post {
 
-// The reference impedance of SWR and return loss when the model gives none, ohms.
-inline constexpr double kDefaultZ0Ohm = 50.0;
-
 // One result per feed of `model`, in its order, at frequency_hz. Throws ComputationError when
 // a feed carries no current.
 std::vector<FeedResult> FeedResults(const Model& model, const geometry::Mesh& mesh,

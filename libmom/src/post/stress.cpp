@@ -102,6 +102,18 @@ std::string Volts(double v) {
   return fmt::format("{:.0f} V", v);
 }
 
+// The caution for a part whose peak voltage exceeds the rating given for it: "SUBJECT<peak> peak
+// WHERE, above the <rating> rating given for RATED_AND_ADVICE".
+std::string OverRatingCaution(const std::string& subject, double peak_v, const char* where,
+                              double rating_v, const char* rated_and_advice) {
+  return fmt::format("{}{} peak{}, above the {} rating given for {}", subject, Volts(peak_v), where,
+                     Volts(rating_v), rated_and_advice);
+}
+
+// What a capacitor above its rating needs.
+constexpr const char* kCapacitorRatingAdvice =
+    "capacitors (--rating-cap); use a capacitor rated well above it";
+
 }  // namespace
 
 StressResult ComputeStress(const Model& model, const SolveResult& solved,
@@ -230,24 +242,22 @@ StressResult ComputeStress(const Model& model, const SolveResult& solved,
   // Cautions: every rating exceeded, then the free ends above kHighVoltageRmsV.
   for (const FeedStress& fs : r.feeds) {
     if (fs.compensation_over_rating) {
-      r.cautions.push_back(fmt::format(
-          "feed {}: the compensation capacitor carries {} peak, above the {} rating given for "
-          "capacitors (--rating-cap); use a capacitor rated well above it",
-          fs.name, Volts(fs.compensation_voltage_v->peak), Volts(r.capacitor_rating_v)));
+      r.cautions.push_back(OverRatingCaution(
+          "feed " + fs.name + ": the compensation capacitor carries ",
+          fs.compensation_voltage_v->peak, "", r.capacitor_rating_v, kCapacitorRatingAdvice));
     }
   }
   for (const LoadStress& ls : r.loads) {
     if (ls.capacitor_over_rating) {
-      r.cautions.push_back(fmt::format(
-          "load {}: its capacitor carries {} peak, above the {} rating given for capacitors "
-          "(--rating-cap); use a capacitor rated well above it",
-          ls.name, Volts(ls.capacitor_voltage_v->peak), Volts(r.capacitor_rating_v)));
+      r.cautions.push_back(OverRatingCaution("load " + ls.name + ": its capacitor carries ",
+                                             ls.capacitor_voltage_v->peak, "", r.capacitor_rating_v,
+                                             kCapacitorRatingAdvice));
     }
     if (ls.over_rating) {
-      r.cautions.push_back(fmt::format(
-          "load {}: {} peak across it, above the {} rating given for coils and other loads "
-          "(--rating-load); space its turns and leads and insulate it for this voltage",
-          ls.name, Volts(ls.voltage_v.peak), Volts(r.load_rating_v)));
+      r.cautions.push_back(OverRatingCaution(
+          "load " + ls.name + ": ", ls.voltage_v.peak, " across it", r.load_rating_v,
+          "coils and other loads (--rating-load); space its turns and leads and insulate it "
+          "for this voltage"));
     }
   }
   for (const FreeEndStress& fe : r.free_ends) {

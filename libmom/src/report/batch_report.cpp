@@ -174,9 +174,7 @@ std::string FormatBatchText(const BatchResult& result) {
                     report::Align::kRight);
   }
   if (per_band) table.AddColumn("band", report::Align::kLeft);
-  table.AddColumn("resonance (MHz)", report::Align::kRight);
-  table.AddColumn("min SWR", report::Align::kRight);
-  table.AddColumn("at (MHz)", report::Align::kRight);
+  table.AddColumns({{"resonance (MHz)"}, {"min SWR"}, {"at (MHz)"}});
   for (double f_hz : result.at_hz) table.AddColumn(report::AtHeader(f_hz), report::Align::kRight);
   table.AddColumn("max gain (dBi)", report::Align::kRight);
   table.AddColumn("take-off (deg)", report::Align::kRight);
@@ -330,13 +328,13 @@ std::string SummaryText(const BatchResult& result, const BatchSummary& summary,
           GainText(s.best_gain_dbi), s.best_ground);
     }
     TextTable settings;
-    settings.AddColumn("setting", Align::kLeft);
-    settings.AddColumn("worst (dBi)", Align::kRight);
-    settings.AddColumn("over", Align::kLeft);
-    settings.AddColumn("best (dBi)", Align::kRight);
-    settings.AddColumn("over", Align::kLeft);
-    settings.AddColumn("resonance spread (kHz)", Align::kRight);
-    settings.AddColumn("min SWR range", Align::kRight);
+    settings.AddColumns({{"setting", Align::kLeft},
+                         {"worst (dBi)"},
+                         {"over", Align::kLeft},
+                         {"best (dBi)"},
+                         {"over", Align::kLeft},
+                         {"resonance spread (kHz)"},
+                         {"min SWR range"}});
     for (size_t i = 0; i < summary.settings.size(); ++i) {
       const BatchSetting& s = summary.settings[i];
       const std::string name =
@@ -383,8 +381,8 @@ nlohmann::json ValueJson(const BatchVariable& variable, const BatchValue& value)
 
 nlohmann::json SummaryJson(const BatchSummary& summary) {
   nlohmann::json s;
-  s["best_row"] = summary.best_row ? nlohmann::json(*summary.best_row) : nullptr;
-  s["robust_setting"] = summary.robust_setting ? nlohmann::json(*summary.robust_setting) : nullptr;
+  s["best_row"] = report::OptionalJson(summary.best_row);
+  s["robust_setting"] = report::OptionalJson(summary.robust_setting);
   s["largest_gain_spread_db"] = summary.largest_gain_spread_db;
   nlohmann::json settings = nlohmann::json::array();
   for (const BatchSetting& setting : summary.settings) {
@@ -397,8 +395,7 @@ nlohmann::json SummaryJson(const BatchSummary& summary) {
     one["worst_ground"] = ran ? nlohmann::json(setting.worst_ground) : nullptr;
     one["best_gain_dbi"] = ran ? nlohmann::json(report::GainValue(setting.best_gain_dbi)) : nullptr;
     one["best_ground"] = ran ? nlohmann::json(setting.best_ground) : nullptr;
-    one["resonance_spread_hz"] =
-        setting.resonance_spread_hz ? nlohmann::json(*setting.resonance_spread_hz) : nullptr;
+    one["resonance_spread_hz"] = report::OptionalJson(setting.resonance_spread_hz);
     one["min_swr_range"] =
         ran ? nlohmann::json::array({setting.min_swr_low, setting.min_swr_high}) : nullptr;
     settings.push_back(one);
@@ -426,8 +423,7 @@ std::string FormatBatchJson(const BatchResult& result) {
   doc["vary"] = vary;
   doc["spans"] = report::SpansJson(result.spans);
   doc["at_hz"] = result.at_hz;
-  doc["pattern_frequency_hz"] =
-      result.pattern_frequency_hz ? nlohmann::json(*result.pattern_frequency_hz) : nullptr;
+  doc["pattern_frequency_hz"] = report::OptionalJson(result.pattern_frequency_hz);
   doc["pattern_step_deg"] = result.pattern_step_deg;
   doc["elevation_deg"] = result.elevation_deg;
   nlohmann::json rows = nlohmann::json::array();

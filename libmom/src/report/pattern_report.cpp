@@ -12,6 +12,8 @@
 #include <string>
 #include <vector>
 
+#include "core/enum_names.hpp"
+#include "report/json_values.hpp"
 #include "report/pattern_format.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/pattern.hpp"
@@ -164,17 +166,12 @@ std::string AzimuthCutReason(const PatternResult& pattern) {
 
 // The JSON name of a cut's choice.
 std::string ChoiceName(CutChoice choice) {
-  switch (choice) {
-    case CutChoice::kGiven:
-      return "option";
-    case CutChoice::kStrongestLowAngle:
-      return "strongest_low_angle";
-    case CutChoice::kTakeoff:
-      return "takeoff";
-    case CutChoice::kLowAngleNearZenith:
-      return "low_angle_near_zenith";
-  }
-  return "option";
+  static constexpr core::EnumNames<CutChoice, 4> kNames = {
+      {{CutChoice::kGiven, "option"},
+       {CutChoice::kStrongestLowAngle, "strongest_low_angle"},
+       {CutChoice::kTakeoff, "takeoff"},
+       {CutChoice::kLowAngleNearZenith, "low_angle_near_zenith"}}};
+  return core::NameOf(choice, kNames, "option");
 }
 
 std::string Watts(double power_w) {
@@ -209,13 +206,9 @@ nlohmann::json CutJson(const PatternCut& cut) {
   out["gain_dbi"] = GainArray(cut.gain_dbi);
   out["gain_vertical_dbi"] = GainArray(cut.gain_vertical_dbi);
   out["gain_horizontal_dbi"] = GainArray(cut.gain_horizontal_dbi);
-  out["beamwidth_deg"] = cut.beamwidth_deg ? nlohmann::json(*cut.beamwidth_deg) : nullptr;
+  out["beamwidth_deg"] = OptionalJson(cut.beamwidth_deg);
   out["chosen_by"] = ChoiceName(cut.choice);
   return out;
-}
-
-nlohmann::json OptionalJson(const std::optional<double>& value) {
-  return value ? nlohmann::json(*value) : nlohmann::json(nullptr);
 }
 
 }  // namespace
@@ -264,12 +257,12 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
   if (!pattern.low_angle.empty()) {
     out += "\nLow angles (long-distance contacts): the best gain over azimuth at each elevation\n";
     TextTable low;
-    low.AddColumn("elevation (deg)", Align::kRight);
-    low.AddColumn("azimuth (deg)", Align::kRight);
-    low.AddColumn("gain (dBi)", Align::kRight);
-    low.AddColumn("vertical (dBi)", Align::kRight);
-    low.AddColumn("horizontal (dBi)", Align::kRight);
-    low.AddColumn("below max (dB)", Align::kRight);
+    low.AddColumns({{"elevation (deg)"},
+                    {"azimuth (deg)"},
+                    {"gain (dBi)"},
+                    {"vertical (dBi)"},
+                    {"horizontal (dBi)"},
+                    {"below max (dB)"}});
     for (const DirectionGain& row : pattern.low_angle) {
       const bool none = report::IsNoGain(row.gain_dbi) || report::IsNoGain(max_dbi);
       low.AddRow({AngleText(row.elevation_deg), AngleText(row.azimuth_deg),
@@ -303,9 +296,7 @@ std::string FormatPatternText(const Simulation& simulation, const PatternResult&
       "\nPower budget (share of the power delivered to the antenna terminals, after any feed "
       "line\nand transformer)\n";
   TextTable budget;
-  budget.AddColumn("where", Align::kLeft);
-  budget.AddColumn("power", Align::kRight);
-  budget.AddColumn("share", Align::kRight);
+  budget.AddColumns({{"where", Align::kLeft}, {"power"}, {"share"}});
   budget.AddRow({"into the antenna terminals", report::Watts(power.input_w),
                  report::Percent(power.input_w, power.input_w)});
   budget.AddRow({model.ground.kind == GroundKind::kFree ? "radiated (whole sphere)"
@@ -402,9 +393,7 @@ std::string FormatPatternJson(const Simulation& simulation, const PatternResult&
   doc["front_to_side_db"] = report::OptionalJson(pattern.front_to_side_db);
   doc["elevation_cut"] = report::CutJson(pattern.elevation_cut);
   doc["azimuth_cut"] = report::CutJson(pattern.azimuth_cut);
-  doc["warnings"] = nlohmann::json::array();
-  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
-  for (const Warning& warning : pattern.warnings) doc["warnings"].push_back(ToString(warning));
+  doc["warnings"] = report::WarningsJson(simulation.warnings(), pattern.warnings);
   if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   if (exposure != nullptr) doc["exposure"] = nlohmann::json::parse(FormatExposureJson(*exposure));
   return doc.dump(2) + "\n";

@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
 #include "report/pattern_format.hpp"
 #include "report/svg_text.hpp"
 #include "wirefield/pattern.hpp"
@@ -17,8 +18,6 @@
 namespace wirefield {
 namespace report {
 namespace {
-
-constexpr double kPi = 3.14159265358979323846;
 
 // The plot: outer ring at the maximum rounded up to the next 5 dB, rings every 10 dB down to
 // 40 dB below it; weaker gains clip to the centre (the range a polar gain plot needs to show
@@ -55,10 +54,10 @@ struct Polar {
     return kRadius_px * std::clamp(fraction, 0.0, 1.0);
   }
   double X(double radius_px, double angle_deg) const {
-    return centre_x_px + radius_px * std::cos(angle_deg * kPi / 180.0);
+    return centre_x_px + radius_px * std::cos(angle_deg * core::kPi / 180.0);
   }
   double Y(double radius_px, double angle_deg) const {
-    return centre_y_px - radius_px * std::sin(angle_deg * kPi / 180.0);
+    return centre_y_px - radius_px * std::sin(angle_deg * core::kPi / 180.0);
   }
 };
 
@@ -137,7 +136,7 @@ std::string Grid(const Polar& polar, bool ground_below, LabelSpace& space) {
         "<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" stroke=\"{}\" stroke-width=\"0.8\"/>\n",
         Px(cx), Px(cy), Px(polar.X(kRadius_px, a)), Px(polar.Y(kRadius_px, a)), kGridColour);
     const double label_r = kRadius_px + 17.0;
-    const double c = std::cos(a * kPi / 180.0);
+    const double c = std::cos(a * core::kPi / 180.0);
     const char* anchor = c > 0.3 ? "start" : (c < -0.3 ? "end" : "middle");
     double y = polar.Y(label_r, a) + 4.0;
     if (polar.half && (angle == 0 || angle == 180)) y = cy - 6.0;  // above the horizon line

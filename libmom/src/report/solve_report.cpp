@@ -11,7 +11,9 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
 #include "report/ground_text.hpp"
+#include "report/json_values.hpp"
 #include "report/mesh_estimate_text.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/report.hpp"
@@ -101,7 +103,7 @@ std::string Signed(double value) {
 
 std::string Degrees(Complex value) {
   if (value == Complex(0.0, 0.0)) return "0.00";
-  return fmt::format("{:.2f}", std::arg(value) * 180.0 / std::acos(-1.0));
+  return fmt::format("{:.2f}", std::arg(value) * 180.0 / core::kPi);
 }
 
 std::string Swr(double swr) {
@@ -165,10 +167,6 @@ std::string LoadElements(const LoadSpec* load, double frequency_hz) {
   return text;
 }
 
-nlohmann::json ComplexJson(Complex value) {
-  return nlohmann::json::array({value.real(), value.imag()});
-}
-
 // What sits between a feed and the transmitter: "transformer unun 1:49, line coax 10 m",
 // or "direct" when nothing does.
 std::string ChainText(const Model& model, const std::string& feed) {
@@ -200,16 +198,16 @@ std::string AntennaHeading(const SolveResult& result) {
 std::string TransmitterTable(const Model& model, const SolveResult& result, double z0_ohm) {
   if (!AnyFeedChain(result)) return "";
   TextTable table;
-  table.AddColumn("feed", Align::kLeft);
-  table.AddColumn("through", Align::kLeft);
-  table.AddColumn("R (ohm)", Align::kRight);
-  table.AddColumn("X (ohm)", Align::kRight);
-  table.AddColumn("|Z| (ohm)", Align::kRight);
-  table.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
-  table.AddColumn("RL (dB)", Align::kRight);
-  table.AddColumn("P (W)", Align::kRight);
-  table.AddColumn("line loss (W)", Align::kRight);
-  table.AddColumn("transformer loss (W)", Align::kRight);
+  table.AddColumns({{"feed", Align::kLeft},
+                    {"through", Align::kLeft},
+                    {"R (ohm)"},
+                    {"X (ohm)"},
+                    {"|Z| (ohm)"},
+                    {fmt::format("SWR ({:.6g} ohm)", z0_ohm)},
+                    {"RL (dB)"},
+                    {"P (W)"},
+                    {"line loss (W)"},
+                    {"transformer loss (W)"}});
   for (const FeedResult& feed : result.feeds) {
     const Complex z = feed.transmitter_impedance_ohm;
     table.AddRow({feed.name, ChainText(model, feed.name), Number(z.real()), Signed(z.imag()),
@@ -258,16 +256,17 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
 
   out += report::AntennaHeading(result);
   TextTable feeds;
-  const double z0_ohm = result.feeds.empty() ? model.z0_ohm.value_or(50.0) : result.feeds[0].z0_ohm;
-  feeds.AddColumn("feed", Align::kLeft);
-  feeds.AddColumn("at", Align::kLeft);
-  feeds.AddColumn("R (ohm)", Align::kRight);
-  feeds.AddColumn("X (ohm)", Align::kRight);
-  feeds.AddColumn("|Z| (ohm)", Align::kRight);
-  feeds.AddColumn(fmt::format("SWR ({:.6g} ohm)", z0_ohm), Align::kRight);
-  feeds.AddColumn("|I| (A)", Align::kRight);
-  feeds.AddColumn("arg I (deg)", Align::kRight);
-  feeds.AddColumn("P (W)", Align::kRight);
+  const double z0_ohm =
+      result.feeds.empty() ? model.z0_ohm.value_or(kDefaultZ0Ohm) : result.feeds[0].z0_ohm;
+  feeds.AddColumns({{"feed", Align::kLeft},
+                    {"at", Align::kLeft},
+                    {"R (ohm)"},
+                    {"X (ohm)"},
+                    {"|Z| (ohm)"},
+                    {fmt::format("SWR ({:.6g} ohm)", z0_ohm)},
+                    {"|I| (A)"},
+                    {"arg I (deg)"},
+                    {"P (W)"}});
   for (const FeedResult& feed : result.feeds) {
     feeds.AddRow({feed.name, report::FeedPlace(model, feed.name), Number(feed.impedance_ohm.real()),
                   report::Signed(feed.impedance_ohm.imag()), Number(std::abs(feed.impedance_ohm)),
@@ -282,13 +281,13 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
   if (!result.loads.empty()) {
     out += "\nLoads\n";
     TextTable loads;
-    loads.AddColumn("load", Align::kLeft);
-    loads.AddColumn("elements", Align::kLeft);
-    loads.AddColumn("R (ohm)", Align::kRight);
-    loads.AddColumn("X (ohm)", Align::kRight);
-    loads.AddColumn("|I| (A)", Align::kRight);
-    loads.AddColumn("|V| (V)", Align::kRight);
-    loads.AddColumn("P (W)", Align::kRight);
+    loads.AddColumns({{"load", Align::kLeft},
+                      {"elements", Align::kLeft},
+                      {"R (ohm)"},
+                      {"X (ohm)"},
+                      {"|I| (A)"},
+                      {"|V| (V)"},
+                      {"P (W)"}});
     for (const LoadResult& load : result.loads) {
       const LoadSpec* spec = report::FindLoad(model, load.name);
       loads.AddRow({load.name, report::LoadElements(spec, result.frequency_hz),
@@ -302,9 +301,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
 
   out += "\nWires\n";
   TextTable wires;
-  wires.AddColumn("wire", Align::kLeft);
-  wires.AddColumn("segments given", Align::kRight);
-  wires.AddColumn("segments used", Align::kRight);
+  wires.AddColumns({{"wire", Align::kLeft}, {"segments given"}, {"segments used"}});
   for (const WireMeshInfo& wire : simulation.wire_mesh()) {
     wires.AddRow({wire.name,
                   wire.segments_given > 0 ? fmt::format("{}", wire.segments_given) : "auto",
@@ -395,8 +392,7 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
                                      {"q", coil.q}};
     }
   }
-  doc["warnings"] = nlohmann::json::array();
-  for (const Warning& warning : simulation.warnings()) doc["warnings"].push_back(ToString(warning));
+  doc["warnings"] = report::WarningsJson(simulation.warnings());
   report::AddMeshEstimateJson(result, &doc);
   if (stress != nullptr) doc["stress"] = nlohmann::json::parse(FormatStressJson(*stress));
   return doc.dump(2) + "\n";

@@ -7,6 +7,7 @@
 #include <nlohmann/json.hpp>
 #include <string>
 
+#include "report/json_values.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/stress.hpp"
 
@@ -57,15 +58,15 @@ std::string FormatStressText(const StressResult& stress) {
       "\nStress at {} W from the transmitter ({:.6f} MHz; the solved values x {:.6g})\n",
       report::W(stress.power_w), stress.frequency_hz / 1e6, stress.scale);
   TextTable feeds;
-  feeds.AddColumn("feed", Align::kLeft);
-  feeds.AddColumn("P tx (W)", Align::kRight);
-  feeds.AddColumn("P antenna (W)", Align::kRight);
-  feeds.AddColumn("V antenna peak (V)", Align::kRight);
-  feeds.AddColumn("V antenna RMS (V)", Align::kRight);
-  feeds.AddColumn("I antenna RMS (A)", Align::kRight);
-  feeds.AddColumn("V xfmr tx side peak (V)", Align::kRight);
-  feeds.AddColumn("V comp. C peak (V)", Align::kRight);
-  feeds.AddColumn("V at tx peak (V)", Align::kRight);
+  feeds.AddColumns({{"feed", Align::kLeft},
+                    {"P tx (W)"},
+                    {"P antenna (W)"},
+                    {"V antenna peak (V)"},
+                    {"V antenna RMS (V)"},
+                    {"I antenna RMS (A)"},
+                    {"V xfmr tx side peak (V)"},
+                    {"V comp. C peak (V)"},
+                    {"V at tx peak (V)"}});
   for (const FeedStress& f : stress.feeds) {
     feeds.AddRow({f.name, report::W(f.transmitter_power_w), report::W(f.antenna_power_w),
                   V(f.antenna_voltage_v.peak), V(f.antenna_voltage_v.rms),
@@ -77,13 +78,13 @@ std::string FormatStressText(const StressResult& stress) {
   out += feeds.Render(2);
   if (!stress.loads.empty()) {
     TextTable loads;
-    loads.AddColumn("load", Align::kLeft);
-    loads.AddColumn("V peak (V)", Align::kRight);
-    loads.AddColumn("V RMS (V)", Align::kRight);
-    loads.AddColumn("I RMS (A)", Align::kRight);
-    loads.AddColumn("P (W)", Align::kRight);
-    loads.AddColumn("V capacitor peak (V)", Align::kRight);
-    loads.AddColumn("rating (V peak)", Align::kLeft);
+    loads.AddColumns({{"load", Align::kLeft},
+                      {"V peak (V)"},
+                      {"V RMS (V)"},
+                      {"I RMS (A)"},
+                      {"P (W)"},
+                      {"V capacitor peak (V)"},
+                      {"rating (V peak)", Align::kLeft}});
     for (const LoadStress& l : stress.loads) {
       std::string rating;
       if (l.open) rating = "open: voltage not computed";
@@ -103,9 +104,7 @@ std::string FormatStressText(const StressResult& stress) {
   }
   if (!stress.free_ends.empty()) {
     TextTable ends;
-    ends.AddColumn("free end", Align::kLeft);
-    ends.AddColumn("V peak (V)", Align::kRight);
-    ends.AddColumn("V RMS (V)", Align::kRight);
+    ends.AddColumns({{"free end", Align::kLeft}, {"V peak (V)"}, {"V RMS (V)"}});
     for (const FreeEndStress& e : stress.free_ends) {
       ends.AddRow({e.wire + "@" + e.end, V(e.voltage_v.peak), V(e.voltage_v.rms)});
     }
@@ -185,11 +184,11 @@ std::string FormatStressPeaksText(const std::vector<StressPeak>& peaks, double p
   std::string out = fmt::format("\nHighest stress over the sweep at {} W from the transmitter\n",
                                 report::W(power_w));
   TextTable table;
-  table.AddColumn("where", Align::kLeft);
-  table.AddColumn("V peak (V)", Align::kRight);
-  table.AddColumn("V RMS (V)", Align::kRight);
-  table.AddColumn("at (MHz)", Align::kRight);
-  table.AddColumn("rating (V peak)", Align::kLeft);
+  table.AddColumns({{"where", Align::kLeft},
+                    {"V peak (V)"},
+                    {"V RMS (V)"},
+                    {"at (MHz)"},
+                    {"rating (V peak)", Align::kLeft}});
   std::vector<std::string> cautions;
   for (const StressPeak& p : peaks) {
     table.AddRow({p.what, report::V(p.peak_v), report::V(p.rms_v),
@@ -261,9 +260,6 @@ std::string FormatExposureText(const ExposureResult& e) {
 }
 
 std::string FormatExposureJson(const ExposureResult& e) {
-  auto opt = [](const std::optional<double>& v) {
-    return v ? nlohmann::json(*v) : nlohmann::json(nullptr);
-  };
   nlohmann::json doc;
   doc["frequency_hz"] = e.frequency_hz;
   doc["power_w"] = e.power_w;
@@ -273,10 +269,10 @@ std::string FormatExposureJson(const ExposureResult& e) {
   doc["average_power_w"] = e.average_power_w;
   doc["gain_dbi"] = e.gain_dbi;
   doc["gain_numeric"] = e.gain_numeric;
-  doc["fcc_limit_w_per_m2"] = opt(e.fcc_limit_w_per_m2);
-  doc["fcc_distance_m"] = opt(e.fcc_distance_m);
-  doc["icnirp_limit_w_per_m2"] = opt(e.icnirp_limit_w_per_m2);
-  doc["icnirp_distance_m"] = opt(e.icnirp_distance_m);
+  doc["fcc_limit_w_per_m2"] = report::OptionalJson(e.fcc_limit_w_per_m2);
+  doc["fcc_distance_m"] = report::OptionalJson(e.fcc_distance_m);
+  doc["icnirp_limit_w_per_m2"] = report::OptionalJson(e.icnirp_limit_w_per_m2);
+  doc["icnirp_distance_m"] = report::OptionalJson(e.icnirp_distance_m);
   doc["cautions"] = e.cautions;
   return doc.dump();
 }

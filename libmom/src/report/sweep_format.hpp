@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "report/json_values.hpp"
 #include "wirefield/sweep_report.hpp"
 
 namespace wirefield::report {
@@ -23,8 +24,5 @@ std::string SweepTitle(const SweepReport& report);
 
 // The spans of a sweep as JSON: [{"name", "from_hz", "to_hz", "points", "how"}, ...].
 nlohmann::json SpansJson(const std::vector<SweepSpan>& spans);
-
-// Warnings as a JSON array of their text ("FILE:LINE:COLUMN: warning: ...").
-nlohmann::json WarningsJson(const std::vector<Warning>& warnings);
 
 }  // namespace wirefield::report

@@ -176,12 +176,6 @@ nlohmann::json SpansJson(const std::vector<SweepSpan>& spans) {
   return out;
 }
 
-nlohmann::json WarningsJson(const std::vector<Warning>& warnings) {
-  nlohmann::json out = nlohmann::json::array();
-  for (const Warning& warning : warnings) out.push_back(ToString(warning));
-  return out;
-}
-
 std::string SweepTitle(const SweepReport& report) {
   std::string bands;
   for (const BandSummary& summary : report.bands) {
@@ -229,12 +223,7 @@ std::string FormatSweepText(const SweepReport& report) {
              : fmt::format("  matrix: filled exactly at every point\n\n");
 
   report::TextTable table;
-  table.AddColumn("f (MHz)", report::Align::kRight);
-  table.AddColumn("R (ohm)", report::Align::kRight);
-  table.AddColumn("X (ohm)", report::Align::kRight);
-  table.AddColumn("|Z| (ohm)", report::Align::kRight);
-  table.AddColumn("SWR", report::Align::kRight);
-  table.AddColumn("RL (dB)", report::Align::kRight);
+  table.AddColumns({{"f (MHz)"}, {"R (ohm)"}, {"X (ohm)"}, {"|Z| (ohm)"}, {"SWR"}, {"RL (dB)"}});
   if (chain) {
     table.AddColumn("R antenna (ohm)", report::Align::kRight);
     table.AddColumn("X antenna (ohm)", report::Align::kRight);
@@ -276,12 +265,12 @@ std::string FormatSweepText(const SweepReport& report) {
     }
     out += "\n";
     report::TextTable compared;
-    compared.AddColumn("f (MHz)", report::Align::kRight);
-    compared.AddColumn("R meas (ohm)", report::Align::kRight);
-    compared.AddColumn("X meas (ohm)", report::Align::kRight);
-    compared.AddColumn("SWR meas", report::Align::kRight);
-    compared.AddColumn("SWR pred", report::Align::kRight);
-    compared.AddColumn("meas - pred", report::Align::kRight);
+    compared.AddColumns({{"f (MHz)"},
+                         {"R meas (ohm)"},
+                         {"X meas (ohm)"},
+                         {"SWR meas"},
+                         {"SWR pred"},
+                         {"meas - pred"}});
     for (const MeasuredPoint& row : m.points) {
       compared.AddRow({report::Mhz(row.frequency_hz), report::Ohm(row.measured_z_ohm.real()),
                        report::Ohm(row.measured_z_ohm.imag()),

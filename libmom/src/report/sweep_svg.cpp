@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
 #include "report/svg_text.hpp"
 #include "report/sweep_format.hpp"
 #include "wirefield/sweep_report.hpp"
@@ -19,8 +20,6 @@
 namespace wirefield {
 namespace report {
 namespace {
-
-constexpr double kPi = 3.14159265358979323846;
 
 constexpr double kWidth_px = 1300.0;
 constexpr double kHeight_px = 700.0;
@@ -430,7 +429,7 @@ std::string SmithChart(const SweepReport& report, LabelSpace& space) {
       std::vector<std::pair<double, double>> xy;
       constexpr int kSamples = 160;
       for (int i = 0; i < kSamples; ++i) {
-        const double t = (kPi / 2.0) * i / kSamples;
+        const double t = (core::kPi / 2.0) * i / kSamples;
         const Complex g = Gamma(Complex(std::tan(t), sign * x));
         xy.emplace_back(s.X(g), s.Y(g));
       }
@@ -503,7 +502,7 @@ std::string SmithChart(const SweepReport& report, LabelSpace& space) {
       for (double distance : {12.0, 22.0, 34.0}) {
         for (double turn_deg :
              {0.0, 30.0, -30.0, 60.0, -60.0, 90.0, -90.0, 120.0, -120.0, 150.0, -150.0, 180.0}) {
-          const double a = out_angle + turn_deg * kPi / 180.0;
+          const double a = out_angle + turn_deg * core::kPi / 180.0;
           const double dx = std::cos(a);
           const double dy = std::sin(a);
           const char* anchor = dx > 0.3 ? "start" : (dx < -0.3 ? "end" : "middle");

@@ -14,6 +14,10 @@ void TextTable::AddColumn(std::string header, Align align) {
   aligns_.push_back(align);
 }
 
+void TextTable::AddColumns(std::initializer_list<Column> columns) {
+  for (const Column& column : columns) AddColumn(column.header, column.align);
+}
+
 void TextTable::AddRow(std::vector<std::string> cells) {
   if (cells.size() != headers_.size()) {
     throw ComputationError("internal error: a report table row has the wrong number of cells");

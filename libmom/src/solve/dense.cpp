@@ -33,8 +33,6 @@ constexpr double kSymmetryTolerance = 1e-13;
 // thread against 1.63 ms on two, at 500 6.6 ms against 7.4 ms; at 1000, 40.6 ms against 35.1).
 constexpr Eigen::Index kOneBlasThreadBelow = 750;
 
-using Complex = std::complex<double>;
-
 // |z| without hypot's guard against overflow (the entries are far from it): hypot took a
 // fifth of a 100-unknown interpolated sweep (measured with perf).
 double Magnitude(Complex z) { return std::sqrt(std::norm(z)); }

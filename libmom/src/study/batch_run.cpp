@@ -201,7 +201,7 @@ BatchResult RunGrid(const std::vector<std::string>& texts, const std::vector<std
   }
   for (double f_hz : options.at_hz) mesh_frequency_hz = std::max(mesh_frequency_hz, f_hz);
 
-  const int threads = options.threads > 0 ? options.threads : core::CoreCount();
+  const int threads = core::ResolveThreads(options.threads);
   const int workers = std::clamp(threads, 1, total);
   const int sweep_threads = std::max(1, threads / workers);
   // Rows in parallel share the cores: each fills its matrices on one thread. A lone row fills
@@ -218,7 +218,7 @@ BatchResult RunGrid(const std::vector<std::string>& texts, const std::vector<std
   result.pattern_frequency_hz = options.pattern_frequency_hz;
   result.elevation_deg = options.elevation_deg;
   result.pattern_step_deg = options.pattern_step_deg;
-  result.z0_ohm = options.z0_ohm.value_or(bases.front().z0_ohm.value_or(50.0));
+  result.z0_ohm = options.z0_ohm.value_or(bases.front().z0_ohm.value_or(kDefaultZ0Ohm));
   result.threads_used = workers * sweep_threads;
   result.rows_planned = total;
   for (const BatchGround& g : grounds) {

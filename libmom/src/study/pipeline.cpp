@@ -63,8 +63,7 @@ Pipeline::Pipeline(Model model, SimulationOptions options)
   mo.max_matrix_bytes =
       options.max_matrix_bytes ? *options.max_matrix_bytes : DefaultMatrixBudgetBytes();
   mesh_ = geometry::BuildMesh(m, mo);
-  near_field_ = fill::BuildNearFieldCache(
-      mesh_, options.fill_threads > 0 ? options.fill_threads : core::CoreCount());
+  near_field_ = fill::BuildNearFieldCache(mesh_, core::ResolveThreads(options.fill_threads));
   warnings_ = m.warnings;
   warnings_.insert(warnings_.end(), mesh_.warnings.begin(), mesh_.warnings.end());
 }
@@ -78,9 +77,7 @@ double Pipeline::DefaultFrequency() const {
   return *model_.frequency_hz;
 }
 
-int ResolveFillThreads(int asked) { return asked > 0 ? asked : core::CoreCount(); }
-
-int Pipeline::FillThreads() const { return ResolveFillThreads(options_.fill_threads); }
+int Pipeline::FillThreads() const { return core::ResolveThreads(options_.fill_threads); }
 
 std::unique_ptr<core::Progress> SolveStageProgress(int unknowns, const std::string& stage,
                                                    bool counted, double expected_s) {
@@ -100,7 +97,7 @@ Eigen::MatrixXcd Pipeline::Fill(double frequency_hz, int threads) const {
 SolveResult Pipeline::Solve(double frequency_hz, int fill_threads) const {
   CheckFrequency(model_, frequency_hz);
   const auto t0 = std::chrono::steady_clock::now();
-  Eigen::MatrixXcd z = Fill(frequency_hz, ResolveFillThreads(fill_threads));
+  Eigen::MatrixXcd z = Fill(frequency_hz, core::ResolveThreads(fill_threads));
   return SolveFilled(frequency_hz, std::move(z), Seconds(t0));
 }
 

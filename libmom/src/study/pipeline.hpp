@@ -66,9 +66,6 @@ class Pipeline {
   std::vector<Warning> warnings_;
 };
 
-// A fill-thread count with 0 (or less) meaning one per core.
-int ResolveFillThreads(int asked);
-
 // A progress reporter (core/progress.hpp) for the fill (counted: the fill says how far it
 // is) or the factorisation (timed against expected_s) of a solve of `unknowns`; null when
 // progress lines are off or the solve is expected to end before the first line is due.

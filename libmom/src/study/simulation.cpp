@@ -1,7 +1,6 @@
 // Study layer: the public Simulation, a face of the solve pipeline (study/pipeline.hpp) that
 // meshes a Model once and solves it at any frequency, and the solve-cost estimate.
 #include "wirefield/simulation.hpp"
-#include "wirefield/version.hpp"
 
 #include <fmt/format.h>
 
@@ -9,6 +8,7 @@
 #include "core/progress.hpp"
 #include "solve/blas_threads.hpp"
 #include "study/pipeline.hpp"
+#include "wirefield/version.hpp"
 
 namespace wirefield {
 
@@ -52,7 +52,7 @@ constexpr double kFactorCoreSecondsPerCube = 4.2e-11;
 SolveCostEstimate EstimateSolveCost(int unknowns, int threads) {
   SolveCostEstimate e;
   e.unknowns = unknowns;
-  e.threads = study::ResolveFillThreads(threads);
+  e.threads = core::ResolveThreads(threads);
   const double n = unknowns;
   e.matrix_bytes = 16.0 * n * n;
   e.fill_s = kFillSecondsPerEntry * n * n / e.threads;

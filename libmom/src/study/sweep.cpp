@@ -149,8 +149,8 @@ SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& fr
   SweepResult out;
   out.unknowns = simulation.unknowns();
   out.points.resize(frequencies_hz.size());
-  const int threads = std::clamp(options.threads > 0 ? options.threads : core::CoreCount(), 1,
-                                 static_cast<int>(frequencies_hz.size()));
+  const int threads =
+      std::clamp(core::ResolveThreads(options.threads), 1, static_cast<int>(frequencies_hz.size()));
   out.threads_used = threads;
 
   auto record = [&](size_t i, const SolveResult& r) {

@@ -3,9 +3,9 @@
 // Input: a Simulation and its spans; output: one SweepResult in span order.
 #include <algorithm>
 #include <cmath>
-#include <thread>
 #include <vector>
 
+#include "core/parallel.hpp"
 #include "wirefield/bands.hpp"
 
 namespace wirefield {
@@ -34,9 +34,7 @@ SweepResult RunSpans(const Simulation& simulation, const std::vector<SweepSpan>&
                      const SweepOptions& options, const std::function<void(int, int)>& progress) {
   int total = 0;
   for (const SweepSpan& span : spans) total += static_cast<int>(span.frequencies_hz.size());
-  const unsigned hardware = std::max(1u, std::thread::hardware_concurrency());
-  const std::size_t threads = options.threads > 0 ? static_cast<std::size_t>(options.threads)
-                                                  : static_cast<std::size_t>(hardware);
+  const auto threads = static_cast<std::size_t>(core::ResolveThreads(options.threads));
   const std::size_t chunk =
       std::max(options.interpolate ? kInterpolatedChunkPoints : kMinChunkPoints,
                kChunkPointsPerThread * threads);

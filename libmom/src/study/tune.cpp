@@ -18,8 +18,17 @@
 #include <map>
 #include <utility>
 
+#include "core/enum_names.hpp"
+
 namespace wirefield {
 namespace {
+
+// The one spelling of the goals and resonance kinds, printed and parsed.
+constexpr core::EnumNames<TuneGoal, 2> kGoalNames = {
+    {{TuneGoal::kResonance, "resonance"}, {TuneGoal::kMinSwr, "min-swr"}}};
+constexpr core::EnumNames<ResonanceKind, 3> kKindNames = {{{ResonanceKind::kAuto, "auto"},
+                                                           {ResonanceKind::kSeries, "series"},
+                                                           {ResonanceKind::kParallel, "parallel"}}};
 
 // Root-finder stop: the bracket is narrower than 2^-40 of its ends (about 1e-12 relative),
 // far below any tolerance a builder could cut to; TOMS748 reaches it in 10-20 solves.
@@ -439,33 +448,16 @@ std::optional<double> ResonanceAt(Trials& trials, size_t i, double value_si, dou
 
 }  // namespace
 
-std::string ToString(TuneGoal goal) {
-  return goal == TuneGoal::kResonance ? "resonance" : "min-swr";
-}
+std::string ToString(TuneGoal goal) { return core::NameOf(goal, kGoalNames, "min-swr"); }
 
-std::string ToString(ResonanceKind kind) {
-  switch (kind) {
-    case ResonanceKind::kAuto:
-      return "auto";
-    case ResonanceKind::kSeries:
-      return "series";
-    case ResonanceKind::kParallel:
-      return "parallel";
-  }
-  return "auto";
-}
+std::string ToString(ResonanceKind kind) { return core::NameOf(kind, kKindNames, "auto"); }
 
 std::optional<TuneGoal> ParseTuneGoal(const std::string& text) {
-  if (text == "resonance") return TuneGoal::kResonance;
-  if (text == "min-swr") return TuneGoal::kMinSwr;
-  return std::nullopt;
+  return core::ValueOf(text, kGoalNames);
 }
 
 std::optional<ResonanceKind> ParseResonanceKind(const std::string& text) {
-  for (ResonanceKind k : {ResonanceKind::kAuto, ResonanceKind::kSeries, ResonanceKind::kParallel}) {
-    if (text == ToString(k)) return k;
-  }
-  return std::nullopt;
+  return core::ValueOf(text, kKindNames);
 }
 
 std::optional<double> FindResonanceNear(const Simulation& simulation, double frequency_hz,
@@ -664,7 +656,7 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     out.z_ohm = at.z_ohm;
     out.transmitter_z_ohm = at.transmitter_z_ohm;
     out.swr = at.swr;
-    result.z0_ohm = simulation.model().z0_ohm.value_or(50.0);
+    result.z0_ohm = simulation.model().z0_ohm.value_or(kDefaultZ0Ohm);
     result.unknowns = simulation.unknowns();
     int solves = 0;
     out.resonance_hz = FindResonanceNear(simulation, out.target_hz, kinds[i], &solves);

@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "network/reflection.hpp"
 #include "wirefield/touchstone.hpp"
 
 namespace wirefield {
@@ -47,7 +48,7 @@ MeasuredComparison CompareMeasured(const SweepResult& sweep, const TouchstoneDat
     row.frequency_hz = m.frequency_hz;
     row.measured_z_ohm =
         std::abs(1.0 - s) > 0.0 ? ImpedanceFromReflection(s, r_ohm) : Complex(0.0, 0.0);
-    row.measured_swr = (1.0 + magnitude) / (1.0 - magnitude);
+    row.measured_swr = network::SwrFromMagnitude(magnitude);
     // Linear interpolation between the two sweep points around the measured frequency.
     auto above =
         std::lower_bound(points.begin(), points.end(), m.frequency_hz,
@@ -72,14 +73,12 @@ MeasuredComparison CompareMeasured(const SweepResult& sweep, const TouchstoneDat
                                  measured.points.size(), measured.points.front().frequency_hz / 1e6,
                                  measured.points.back().frequency_hz / 1e6));
   }
-  out.measured_min_swr = out.points.front().measured_swr;
-  out.measured_min_swr_frequency_hz = out.points.front().frequency_hz;
-  for (const MeasuredPoint& row : out.points) {
-    if (row.measured_swr < out.measured_min_swr) {
-      out.measured_min_swr = row.measured_swr;
-      out.measured_min_swr_frequency_hz = row.frequency_hz;
-    }
-  }
+  const MeasuredPoint& lowest = *std::min_element(
+      out.points.begin(), out.points.end(), [](const MeasuredPoint& a, const MeasuredPoint& b) {
+        return a.measured_swr < b.measured_swr;
+      });
+  out.measured_min_swr = lowest.measured_swr;
+  out.measured_min_swr_frequency_hz = lowest.frequency_hz;
   const double first_hz = out.points.front().frequency_hz;
   const double last_hz = out.points.back().frequency_hz;
   bool found = false;

@@ -16,14 +16,15 @@
 #include <string>
 #include <vector>
 
+#include "core/constants.hpp"
+#include "core/enum_names.hpp"
 #include "core/read_file.hpp"
 #include "model/ranges.hpp"
 
 namespace wirefield {
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
-constexpr double kDegree_rad = kPi / 180.0;
+constexpr double kDegree_rad = core::kPi / 180.0;
 
 struct Token {
   std::string text;
@@ -74,15 +75,11 @@ std::optional<double> Number(const std::string& text) {
 }
 
 const char* FormatName(TouchstoneFormat format) {
-  switch (format) {
-    case TouchstoneFormat::kRealImaginary:
-      return "RI";
-    case TouchstoneFormat::kMagnitudeAngle:
-      return "MA";
-    case TouchstoneFormat::kDecibelAngle:
-      return "DB";
-  }
-  return "?";
+  static constexpr core::EnumNames<TouchstoneFormat, 3> kNames = {
+      {{TouchstoneFormat::kRealImaginary, "RI"},
+       {TouchstoneFormat::kMagnitudeAngle, "MA"},
+       {TouchstoneFormat::kDecibelAngle, "DB"}}};
+  return core::NameOf(format, kNames, "?");
 }
 
 class Reader {
