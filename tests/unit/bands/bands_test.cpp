@@ -82,7 +82,7 @@ TEST(FindBand, UnknownNameListsTheNames) {
     FAIL() << "no error";
   } catch (const InputError& error) {
     EXPECT_STREQ(error.what(),
-                 "--band:1:1: error: unknown band '41m'; use one of 160m, 80m, 60m, 40m, 30m, "
+                 "band:1:1: error: unknown band '41m'; use one of 160m, 80m, 60m, 40m, 30m, "
                  "20m, 17m, 15m, 12m, 10m (the amateur bands from 160 m to 10 m)");
   }
 }
@@ -93,7 +93,7 @@ TEST(FindBand, RegionOutsideOneToThreeIsAnInputError) {
     FAIL() << "no error";
   } catch (const InputError& error) {
     EXPECT_STREQ(error.what(),
-                 "--region:1:1: error: --region must be 1, 2 or 3 (the ITU regions: 1 Europe, "
+                 "region:1:1: error: region must be 1, 2 or 3 (the ITU regions: 1 Europe, "
                  "Africa and the Middle East; 2 the Americas; 3 Asia and the Pacific); got 4");
   }
 }
@@ -222,8 +222,8 @@ TEST(SummarizeBand, NoPointInsideTheBandIsAnInputError) {
     FAIL() << "no error";
   } catch (const InputError& error) {
     EXPECT_STREQ(error.what(),
-                 "--band:1:1: error: no sweep point falls inside the 20m band "
-                 "(14000.0-14350.0 kHz); sweep over the band with --band 20m");
+                 "band:1:1: error: no sweep point falls inside the 20m band "
+                 "(14000.0-14350.0 kHz); sweep over the band itself");
   }
 }
 
