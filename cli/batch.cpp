@@ -14,7 +14,6 @@
 
 #include <atomic>
 #include <cstdio>
-#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -25,20 +24,26 @@ namespace wirefield::cli {
 
 namespace {
 
+// What `wirefield batch --help` says besides its flags.
+const CommandHelp kBatchHelp{
+    "batch",
+    "Run one model over a grid of grounds, `let` values and frequencies: one row per grid "
+    "point with its resonances, lowest SWR, SWR at chosen frequencies, maximum gain and "
+    "take-off angle, gain at a low elevation and efficiency; then the best row and how much "
+    "the ground matters.",
+    R"(Examples:
+  wirefield batch models/hiking_club_dipole.wire --band 20m --vary total=9.8m:10.4m:0.2m
+  wirefield batch models/campsite_mast_dipole.wire --band 20m --grounds all --at 14.2MHz
+  wirefield batch models/hiking_club_dipole.wire --from 13.5MHz --to 15MHz --points 31 --vary height=2m,5m,8m --grounds perfect,free --json)"};
+
 struct BatchFlags {
   ModelFlags model;
   FrequencyFlags frequencies;
-  std::string grounds, elevation, pattern_freq, pattern_step, threads, csv_path;
+  TextFlag grounds, elevation, pattern_freq, pattern_step, csv, threads;
   std::vector<std::string> vary, at, compare;
   bool yes_large = false;
   bool exact = false;
   bool no_mesh_estimate = false;
-  CLI::Option* grounds_option = nullptr;
-  CLI::Option* elevation_option = nullptr;
-  CLI::Option* pattern_freq_option = nullptr;
-  CLI::Option* pattern_step_option = nullptr;
-  CLI::Option* threads_option = nullptr;
-  CLI::Option* csv_option = nullptr;
 };
 
 // Set by the stop handler; read by the batch's workers before each row. Lock-free atomics, so
@@ -70,14 +75,14 @@ int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inp
                       const BatchResult& result, int finished, const std::string& csv_text,
                       StreamedOutput* streamed) {
   const int exit_code = 128 + interrupt_signal.load();
-  if (!Given(flags.csv_option)) {
+  if (!flags.csv.given()) {
     fmt::print(stderr,
                "batch: interrupted after {} of {} rows; nothing was written (with --csv FILE "
                "the finished rows go to FILE.partial)\n",
                finished, result.rows_planned);
     return exit_code;
   }
-  const std::string partial_path = flags.csv_path + ".partial";
+  const std::string partial_path = flags.csv.text + ".partial";
   if (streamed != nullptr) {
     streamed->CommitTo({partial_path, "partial CSV"});
   } else {
@@ -86,7 +91,7 @@ int ReportInterrupted(const BatchFlags& flags, const std::vector<InputPath>& inp
   fmt::print(stderr,
              "batch: interrupted after {} of {} rows; wrote the finished rows to {} (the index "
              "column gives each row's place in the grid); {} was not written\n",
-             finished, result.rows_planned, Printable(partial_path), Printable(flags.csv_path));
+             finished, result.rows_planned, Printable(partial_path), Printable(flags.csv.text));
   return exit_code;
 }
 
@@ -100,7 +105,7 @@ void RequireCsvForStreaming(const BatchFlags& flags, double rows) {
       "the grid has {:.0f} rows, more than {:.0f}, the most the text and JSON reports hold "
       "(they keep every row in memory)",
       rows, kMaxRowsInReport);
-  if (!Given(flags.csv_option)) {
+  if (!flags.csv.given()) {
     throw InputError({"batch", 0, 0},
                      fmt::format("{}; give --csv FILE: the rows then go to FILE as they finish "
                                  "and stdout gets a short account",
@@ -124,12 +129,18 @@ void ShowProgress(int done, int total) {
   std::fflush(stderr);
 }
 
+// The fields of BatchOptions and the flags that set them.
+const std::vector<FieldFlag> kBatchFlags{{"variables", "--vary"},
+                                         {"pattern_step_deg", "--pattern-step"},
+                                         {"elevation_deg", "--elevation"},
+                                         {"at_hz", "--at"}};
+
 int RunBatchCommand(const BatchFlags& flags) {
   // Check every flag before the file read and the rows.
   BatchOptions options;
   std::vector<Band> bands;
   options.spans = ChosenSpans(flags.frequencies, "batch", ChosenRegion(flags.frequencies), bands);
-  if (Given(flags.grounds_option)) options.grounds = ParseGroundList(flags.grounds);
+  if (flags.grounds.given()) options.grounds = ParseGroundList(flags.grounds.text);
   for (const std::string& text : flags.vary) options.variables.push_back(ParseVary(text));
   for (const std::string& text : flags.model.overrides) {
     options.fixed_overrides.push_back(ParseOverride(text));
@@ -139,20 +150,18 @@ int RunBatchCommand(const BatchFlags& flags) {
   }
   for (const std::string& text : flags.at)
     options.at_hz.push_back(ParseFrequencyArgument(text, "--at"));
-  if (Given(flags.pattern_freq_option)) {
-    options.pattern_frequency_hz = ParseFrequencyArgument(flags.pattern_freq, "--pattern-freq");
+  if (flags.pattern_freq.given()) {
+    options.pattern_frequency_hz =
+        ParseFrequencyArgument(flags.pattern_freq.text, "--pattern-freq");
   }
-  if (Given(flags.elevation_option)) {
-    options.elevation_deg = ParseDegrees(flags.elevation, "--elevation", "10 or 15deg");
+  if (flags.elevation.given()) {
+    options.elevation_deg = ParseDegrees(flags.elevation.text, "--elevation", "10 or 15deg");
   }
-  if (Given(flags.pattern_step_option)) {
-    options.pattern_step_deg = ParseDegrees(flags.pattern_step, "--pattern-step", "2 or 2.5deg");
+  if (flags.pattern_step.given()) {
+    options.pattern_step_deg =
+        ParseDegrees(flags.pattern_step.text, "--pattern-step", "2 or 2.5deg");
   }
-  if (Given(flags.threads_option)) {
-    options.threads = WholeNumber(flags.threads, "--threads", 0, 1024,
-                                  "a whole number of worker threads from 0 (one per core) to "
-                                  "1024");
-  }
+  options.threads = ChosenThreads(flags.threads);
   options.allow_large = flags.yes_large;
   options.cancel = &interrupt_requested;
   options.interpolate = !flags.exact;
@@ -162,8 +171,8 @@ int RunBatchCommand(const BatchFlags& flags) {
   paths.insert(paths.end(), flags.compare.begin(), flags.compare.end());
   std::vector<InputPath> inputs;
   for (const std::string& path : paths) inputs.push_back({path, "model"});
-  if (Given(flags.csv_option)) {
-    CheckOutputPaths({{flags.csv_path, "CSV"}, {flags.csv_path + ".partial", "partial CSV"}},
+  if (flags.csv.given()) {
+    CheckOutputPaths({{flags.csv.text, "CSV"}, {flags.csv.text + ".partial", "partial CSV"}},
                      inputs);
   }
 
@@ -177,7 +186,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   std::optional<StreamedOutput> csv_stream;
   int streamed = 0;
   if (stream) {
-    csv_stream.emplace(OutputPath{flags.csv_path, "CSV"}, inputs);
+    csv_stream.emplace(OutputPath{flags.csv.text, "CSV"}, inputs);
     options.row_sink = [&csv_stream, &streamed](const BatchResult& run, const BatchRow& row) {
       if (streamed++ == 0) csv_stream->Append(FormatBatchCsvHeader(run));
       csv_stream->Append(FormatBatchCsvRow(run, row));
@@ -187,11 +196,13 @@ int RunBatchCommand(const BatchFlags& flags) {
   const bool show_progress = ::isatty(STDERR_FILENO) == 1;
   // Ctrl-C, `kill` and a closed terminal stop the batch cleanly.
   const ScopedSignalHandlers on_interrupt(OnInterrupt, {SIGINT, SIGTERM, SIGHUP});
-  const BatchResult result = RunBatchFiles(paths, options, [show_progress](int done, int total) {
-    if (show_progress) ShowProgress(done, total);
+  const BatchResult result = NamingFlags(kBatchFlags, [&] {
+    return RunBatchFiles(paths, options, [show_progress](int done, int total) {
+      if (show_progress) ShowProgress(done, total);
+    });
   });
   PrintWarnings(result.warnings);
-  if (!stream && Given(flags.csv_option)) csv_text = FormatBatchCsv(result);
+  if (!stream && flags.csv.given()) csv_text = FormatBatchCsv(result);
   if (stream && streamed == 0) csv_stream->Append(FormatBatchCsvHeader(result));
   if (result.interrupted) {
     return ReportInterrupted(flags, inputs, result,
@@ -199,93 +210,71 @@ int RunBatchCommand(const BatchFlags& flags) {
                              stream ? &*csv_stream : nullptr);
   }
   if (stream) {
-    CommitThenReport(*csv_stream, FormatBatchStreamedText(result, flags.csv_path), false);
+    CommitThenReport(*csv_stream, FormatBatchStreamedText(result, flags.csv.text), false);
     return 0;
   }
 
   // Format everything before writing anything, so a failure never leaves half a result.
   std::vector<OutputFile> files;
-  if (Given(flags.csv_option)) files.push_back({flags.csv_path, std::move(csv_text), "CSV"});
+  if (flags.csv.given()) files.push_back({flags.csv.text, std::move(csv_text), "CSV"});
   std::string output = flags.model.json ? FormatBatchJson(result) : FormatBatchText(result);
   WriteFilesThenReport(files, inputs, output, flags.model.json);
   return 0;
 }
 
+// Adds the flags of `batch` to app, kept in `flags`.
+void AddBatchFlags(CLI::App& app, BatchFlags& flags) {
+  AddModelFlags(app, flags.model, /*with_frequency=*/false);
+  AddFrequencyFlags(app, flags.frequencies);
+  AddTextFlag(app, "--grounds", flags.grounds, "LIST",
+              "Grounds to run, each a row of its own: all (every ground preset), or a comma-"
+              "separated list of preset names, free and perfect, e.g. medium_dry,wet_ground,free. "
+              "Default: the model's own ground.");
+  app.add_option("--vary", flags.vary,
+                 "Vary a `let` of the model: NAME=A:B:STEP (A to B inclusive, e.g. "
+                 "length=19.5m:20.5m:0.25m) or NAME=V1,V2,... (e.g. height=6m,8m,10m); each "
+                 "value is applied as --set NAME=VALUE. Repeatable: the grid is the product, "
+                 "the first --vary varying slowest. Default: none.")
+      ->type_name("NAME=VALUES")
+      ->allow_extra_args(false);
+  app.add_option("--compare", flags.compare,
+                 "Run another model over the same grid and compare it row by row (a `model` "
+                 "column; e.g. the same wire hung as a sloper and as an inverted-L); "
+                 "repeatable. Each must have the --vary names as `let`s. Default: none.")
+      ->type_name("MODEL")
+      ->allow_extra_args(false);
+  app.add_option("--at", flags.at,
+                 "Add a column with the SWR solved at this frequency, e.g. 14.2MHz; "
+                 "repeatable. Default: none.")
+      ->type_name("F")
+      ->allow_extra_args(false);
+  AddTextFlag(app, "--elevation", flags.elevation, "DEG",
+              "Elevation of the low-angle gain column, degrees above the "
+              "horizon (0..90 over a ground, -90..90 in free space), taken "
+              "toward the azimuth of the maximum. Default: 10.");
+  AddTextFlag(app, "--pattern-freq", flags.pattern_freq, "F",
+              "Frequency of every row's pattern (gain, take-off, efficiency), e.g. 14.2MHz. "
+              "Default: each row's own lowest-SWR frequency.");
+  AddTextFlag(app, "--pattern-step", flags.pattern_step, "DEG",
+              "Grid step of each row's pattern, degrees (> 0, <= 10); "
+              "smaller is finer and slower. Default: 2.");
+  AddThreadsFlag(app, flags.threads,
+                 "Worker threads: rows run in parallel, each holding one matrix. Default: 0, "
+                 "one per core.");
+  AddCsvFlag(app, flags.csv, "the rows");
+  AddMeshEstimateFlag(app, flags.no_mesh_estimate,
+                      "each row's first feed at the centre of the first span");
+  AddExactFlag(app, flags.exact, "each row's matrix", "every sweep point", "several times slower");
+  app.add_flag("--yes-large", flags.yes_large,
+               fmt::format("Run a grid of more than {} rows (each row is a sweep and a "
+                           "pattern). Default: off, such a grid is refused.",
+                           kMaxBatchRows));
+}
+
 }  // namespace
 
 Command AddBatchCommand(CLI::App& program) {
-  auto flags = std::make_shared<BatchFlags>();
-  CLI::App* app = program.add_subcommand(
-      "batch",
-      "Run one model over a grid of grounds, `let` values and frequencies: one row per grid "
-      "point with its resonances, lowest SWR, SWR at chosen frequencies, maximum gain and "
-      "take-off angle, gain at a low elevation and efficiency; then the best row and how much "
-      "the ground matters.");
-  AddModelFlags(*app, flags->model, /*with_frequency=*/false);
-  AddFrequencyFlags(*app, flags->frequencies);
-  flags->grounds_option = AddTextOption(
-      *app, "--grounds", flags->grounds, "LIST",
-      "Grounds to run, each a row of its own: all (every ground preset), or a comma-"
-      "separated list of preset names, free and perfect, e.g. medium_dry,wet_ground,free. "
-      "Default: the model's own ground.");
-  app->add_option("--vary", flags->vary,
-                  "Vary a `let` of the model: NAME=A:B:STEP (A to B inclusive, e.g. "
-                  "length=19.5m:20.5m:0.25m) or NAME=V1,V2,... (e.g. height=6m,8m,10m); each "
-                  "value is applied as --set NAME=VALUE. Repeatable: the grid is the product, "
-                  "the first --vary varying slowest. Default: none.")
-      ->type_name("NAME=VALUES")
-      ->allow_extra_args(false);
-  app->add_option("--compare", flags->compare,
-                  "Run another model over the same grid and compare it row by row (a `model` "
-                  "column; e.g. the same wire hung as a sloper and as an inverted-L); "
-                  "repeatable. Each must have the --vary names as `let`s. Default: none.")
-      ->type_name("MODEL")
-      ->allow_extra_args(false);
-  app->add_option("--at", flags->at,
-                  "Add a column with the SWR solved at this frequency, e.g. 14.2MHz; "
-                  "repeatable. Default: none.")
-      ->type_name("F")
-      ->allow_extra_args(false);
-  flags->elevation_option =
-      AddTextOption(*app, "--elevation", flags->elevation, "DEG",
-                    "Elevation of the low-angle gain column, degrees above the "
-                    "horizon (0..90 over a ground, -90..90 in free space), taken "
-                    "toward the azimuth of the maximum. Default: 10.");
-  flags->pattern_freq_option =
-      AddTextOption(*app, "--pattern-freq", flags->pattern_freq, "F",
-                    "Frequency of every row's pattern (gain, take-off, efficiency), e.g. 14.2MHz. "
-                    "Default: each row's own lowest-SWR frequency.");
-  flags->pattern_step_option =
-      AddTextOption(*app, "--pattern-step", flags->pattern_step, "DEG",
-                    "Grid step of each row's pattern, degrees (> 0, <= 10); "
-                    "smaller is finer and slower. Default: 2.");
-  flags->threads_option =
-      AddTextOption(*app, "--threads", flags->threads, "N",
-                    "Worker threads: rows run in parallel, each holding one matrix. "
-                    "Default: 0, one per core.");
-  flags->csv_option =
-      AddTextOption(*app, "--csv", flags->csv_path, "FILE",
-                    "Also write the rows to FILE as CSV (columns in docs/commands.md). "
-                    "Default: none.");
-  AddMeshEstimateFlag(*app, flags->no_mesh_estimate,
-                      "each row's first feed at the centre of the first span");
-  app->add_flag("--exact", flags->exact,
-                "Fill each row's matrix exactly at every sweep point instead of interpolating "
-                "it between exact fills up to 10% apart (which adds under 0.2% to the "
-                "impedance). Default: off; several times slower.");
-  app->add_flag("--yes-large", flags->yes_large,
-                fmt::format("Run a grid of more than {} rows (each row is a sweep and a "
-                            "pattern). Default: off, such a grid is refused.",
-                            kMaxBatchRows));
-  app->footer(
-      "Examples:\n"
-      "  wirefield batch models/hiking_club_dipole.wire --band 20m --vary "
-      "total=9.8m:10.4m:0.2m\n"
-      "  wirefield batch models/campsite_mast_dipole.wire --band 20m --grounds all --at "
-      "14.2MHz\n"
-      "  wirefield batch models/hiking_club_dipole.wire --from 13.5MHz --to 15MHz --points 31 "
-      "--vary height=2m,5m,8m --grounds perfect,free --json");
-  return Command{app, [flags] { return RunBatchCommand(*flags); }};
+  return NewCommand(program, kBatchHelp, AddBatchFlags, RunBatchCommand);
 }
 
 }  // namespace wirefield::cli

@@ -5,7 +5,6 @@
 #include <fmt/format.h>
 
 #include <exception>
-#include <memory>
 #include <optional>
 #include <string>
 
@@ -14,6 +13,17 @@
 namespace wirefield::cli {
 
 namespace {
+
+// What `wirefield coil --help` says besides its flags.
+const CommandHelp kCoilHelp{
+    "coil",
+    "A single-layer air-core loading coil: inductance (Nagaoka with Rosa's round-wire "
+    "correction, and Wheeler's formula), Medhurst's self-capacitance, self-resonance, AC "
+    "resistance with the proximity effect, and Q; or, with --inductance, the turns for a "
+    "target inductance.",
+    R"(Examples:
+  wirefield coil --turns 50 --diameter 28.5mm --pitch 1mm --wire-diameter 0.9mm --insulation 0.05mm
+  wirefield coil --inductance 20uH --diameter 40mm --close-wound --wire-diameter 1.2mm --freq 7.1MHz --json)"};
 
 struct CoilFlags {
   std::string turns, inductance, diameter, length, pitch, wire, insulation, material = "copper";
@@ -95,63 +105,50 @@ int RunCoil(const CoilFlags& flags) {
   return 0;
 }
 
-}  // namespace
-
-Command AddCoilCommand(CLI::App& program) {
-  auto flags = std::make_shared<CoilFlags>();
-  CLI::App* app = program.add_subcommand(
-      "coil",
-      "A single-layer air-core loading coil: inductance (Nagaoka with Rosa's round-wire "
-      "correction, and Wheeler's formula), Medhurst's self-capacitance, self-resonance, AC "
-      "resistance with the proximity effect, and Q; or, with --inductance, the turns for a "
-      "target inductance.");
+// Adds the flags of `coil` to app, kept in `flags`.
+void AddCoilFlags(CLI::App& app, CoilFlags& flags) {
   auto add = [&](const char* name, std::string& target, const char* type, const char* help) {
-    CLI::Option* option = app->add_option(name, target, help);
-    option->type_name(type);
-    return option;
+    return AddTextOption(app, name, target, type, help);
   };
-  flags->turns_option = add("--turns", flags->turns, "N",
-                            "Number of turns, at least 1 (need not be whole). Default: none; "
-                            "give --turns or --inductance.");
-  flags->inductance_option =
-      add("--inductance", flags->inductance, "L",
+  flags.turns_option = add("--turns", flags.turns, "N",
+                           "Number of turns, at least 1 (need not be whole). Default: none; "
+                           "give --turns or --inductance.");
+  flags.inductance_option =
+      add("--inductance", flags.inductance, "L",
           "Target inductance: find the turns that give it, e.g. 20uH (units H, mH, uH, nH; a "
           "bare number is in H). Needs --pitch or --close-wound. Default: none.");
-  add("--diameter", flags->diameter, "D",
+  add("--diameter", flags.diameter, "D",
       "Outside diameter of the former the wire is wound on, e.g. 28.5mm (units m, cm, mm, ft, "
       "in; a bare number is in m). The current sheet is taken at the wire centres. Required.")
       ->required();
-  flags->length_option = add("--length", flags->length, "L",
-                             "Winding length, end turn centre to end turn centre plus one "
-                             "pitch (= turns x pitch), e.g. 50mm. Default: none.");
-  flags->pitch_option = add("--pitch", flags->pitch, "P",
-                            "Distance between the centres of adjacent turns, e.g. 1mm; at least "
-                            "the wire's overall diameter. Default: none.");
-  app->add_flag("--close-wound", flags->close_wound,
-                "Turns touching: pitch = wire diameter + 2 x insulation. Default: off.");
-  add("--wire-diameter", flags->wire, "d",
+  flags.length_option = add("--length", flags.length, "L",
+                            "Winding length, end turn centre to end turn centre plus one "
+                            "pitch (= turns x pitch), e.g. 50mm. Default: none.");
+  flags.pitch_option = add("--pitch", flags.pitch, "P",
+                           "Distance between the centres of adjacent turns, e.g. 1mm; at least "
+                           "the wire's overall diameter. Default: none.");
+  app.add_flag("--close-wound", flags.close_wound,
+               "Turns touching: pitch = wire diameter + 2 x insulation. Default: off.");
+  add("--wire-diameter", flags.wire, "d",
       "Bare conductor diameter, e.g. 0.9mm (length units as --diameter). Required.")
       ->required();
-  flags->insulation_option = add("--insulation", flags->insulation, "T",
-                                 "Radial thickness of the wire's insulation, e.g. 0.05mm; it "
-                                 "sets the close-wound pitch and the wire-centre diameter. "
-                                 "Default: 0.");
-  add("--material", flags->material, "NAME",
+  flags.insulation_option = add("--insulation", flags.insulation, "T",
+                                "Radial thickness of the wire's insulation, e.g. 0.05mm; it "
+                                "sets the close-wound pitch and the wire-centre diameter. "
+                                "Default: 0.");
+  add("--material", flags.material, "NAME",
       "Wire material from the conductor table (copper, hard_drawn_copper, aluminium, "
       "copper_clad_steel, steel, stainless_steel, brass). Default: copper.");
-  add("--freq", flags->frequency, "F",
+  add("--freq", flags.frequency, "F",
       "Frequency of the AC resistance, Q and terminal impedance, e.g. 7.1MHz (units Hz, kHz, "
       "MHz, GHz; a bare number is in Hz). Default: 14.2MHz.");
-  app->add_flag("--json", flags->json,
-                "Write one JSON document to stdout instead of the text (keys in "
-                "docs/commands.md). Default: off.");
-  app->footer(
-      "Examples:\n"
-      "  wirefield coil --turns 50 --diameter 28.5mm --pitch 1mm --wire-diameter 0.9mm "
-      "--insulation 0.05mm\n"
-      "  wirefield coil --inductance 20uH --diameter 40mm --close-wound --wire-diameter 1.2mm "
-      "--freq 7.1MHz --json");
-  return Command{app, [flags] { return RunCoil(*flags); }};
+  AddJsonFlag(app, flags.json, "the text");
+}
+
+}  // namespace
+
+Command AddCoilCommand(CLI::App& program) {
+  return NewCommand(program, kCoilHelp, AddCoilFlags, RunCoil);
 }
 
 }  // namespace wirefield::cli

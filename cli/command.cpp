@@ -6,58 +6,54 @@
 #include <fmt/format.h>
 
 #include <algorithm>
-#include <cerrno>
-#include <cmath>
 #include <cstdio>
-#include <cstdlib>
-#include <cstring>
 
 namespace wirefield::cli {
 bool Given(const CLI::Option* option) { return option != nullptr && option->count() > 0; }
-
-void FailOption(const std::string& option, const std::string& message) {
-  throw InputError(SourceLocation{option, 1, 1}, message);
-}
-
-int WholeNumber(const std::string& text, const std::string& option, long low, long high,
-                const std::string& what) {
-  const char* begin = text.c_str();
-  char* end = nullptr;
-  errno = 0;
-  const long value = std::strtol(begin, &end, 10);
-  if (text.empty() || end == begin || *end != '\0' || errno == ERANGE || value < low ||
-      value > high) {
-    FailOption(option, fmt::format("{} needs {}; got '{}'", option, what, text));
-  }
-  return static_cast<int>(value);
-}
-
-double ParseDegrees(const std::string& text, const std::string& option,
-                    const std::string& example) {
-  const SourceLocation where{option, 1, 1};
-  std::string body = text;
-  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
-  if (body.size() >= 3 && body.compare(body.size() - 3, 3, "deg") == 0) {
-    body.resize(body.size() - 3);
-  }
-  while (!body.empty() && (body.back() == ' ' || body.back() == '\t')) body.pop_back();
-  const char* begin = body.c_str();
-  while (*begin == ' ' || *begin == '\t') ++begin;
-  char* end = nullptr;
-  errno = 0;
-  const double value = std::strtod(begin, &end);
-  if (*begin == '\0' || end == begin || *end != '\0' || errno == ERANGE || !std::isfinite(value)) {
-    throw InputError(where, fmt::format("{} needs an angle in degrees such as {}; got '{}'", option,
-                                        example, text));
-  }
-  return value;
-}
 
 CLI::Option* AddTextOption(CLI::App& command, const std::string& name, std::string& target,
                            const std::string& type, const std::string& help) {
   CLI::Option* option = command.add_option(name, target, help);
   option->type_name(type);
   return option;
+}
+
+void AddTextFlag(CLI::App& command, const std::string& name, TextFlag& flag,
+                 const std::string& type, const std::string& help) {
+  flag.option = AddTextOption(command, name, flag.text, type, help);
+}
+
+void AddThreadsFlag(CLI::App& command, TextFlag& flag, const std::string& help) {
+  AddTextFlag(command, "--threads", flag, "N", help);
+}
+
+int ChosenThreads(const TextFlag& flag) {
+  if (!flag.given()) return 0;
+  return WholeNumber(flag.text, "--threads", 0, 1024,
+                     "a whole number of worker threads from 0 (one per core) to 1024");
+}
+
+void AddExactFlag(CLI::App& command, bool& exact, const std::string& matrix,
+                  const std::string& points, const std::string& cost) {
+  command.add_flag("--exact", exact,
+                   fmt::format("Fill {} exactly at {} instead of interpolating it between exact "
+                               "fills up to 10% apart (which adds under 0.2% to the impedance). "
+                               "Default: off; {}.",
+                               matrix, points, cost));
+}
+
+void AddCsvFlag(CLI::App& command, TextFlag& flag, const std::string& what) {
+  AddTextFlag(
+      command, "--csv", flag, "FILE",
+      fmt::format("Also write {} to FILE as CSV (columns in docs/commands.md). Default: none.",
+                  what));
+}
+
+void AddJsonFlag(CLI::App& command, bool& json, const std::string& instead) {
+  command.add_flag("--json", json,
+                   fmt::format("Write one JSON document to stdout instead of {} (keys in "
+                               "docs/commands.md). Default: off.",
+                               instead));
 }
 
 void AddFrequencyFlags(CLI::App& command, FrequencyFlags& flags) {
@@ -128,7 +124,8 @@ std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::strin
     span.name = "range";
     if (Given(flags.step_option)) {
       const double step_hz = ParseFrequencyArgument(flags.step, "--step");
-      span.frequencies_hz = FrequencyRange(from_hz, to_hz, step_hz);
+      span.frequencies_hz = NamingFlags({{"step_hz", "--step"}},
+                                        [&] { return FrequencyRange(from_hz, to_hz, step_hz); });
       span.how =
           fmt::format("{:g} kHz steps, {} points", step_hz / 1e3, span.frequencies_hz.size());
     } else {
@@ -149,7 +146,8 @@ std::vector<SweepSpan> ChosenSpans(const FrequencyFlags& flags, const std::strin
                            kMaxBandPoints - 1));
   }
   for (const std::string& name : flags.bands) {
-    const Band band = FindBand(name, region);
+    const Band band = NamingFlags({{"band", "--band"}, {"region", "--region"}},
+                                  [&] { return FindBand(name, region); });
     for (const Band& known : bands) {
       if (known.name == band.name)
         FailOption("--band", fmt::format("--band {} is given twice", name));
@@ -185,9 +183,7 @@ void AddModelFlags(CLI::App& command, ModelFlags& flags, bool with_frequency) {
       "Reference impedance for the SWR, ohm (bare number) or with a unit ohm or kohm, e.g. 50, "
       "2.45kohm; must be > 0. Default: the model's `z0`, else 50 ohm.");
   flags.z0_option->type_name("OHM");
-  command.add_flag("--json", flags.json,
-                   "Write one JSON document to stdout instead of the table (keys in "
-                   "docs/commands.md). Default: off.");
+  AddJsonFlag(command, flags.json, "the table");
 }
 
 void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where) {
@@ -236,6 +232,10 @@ std::optional<StressOptions> ChosenStress(const PowerFlags& flags) {
   if (Given(flags.rating_load_option)) {
     options.load_rating_v = ParseVoltageArgument(flags.rating_load, "--rating-load");
   }
+  NamingFlags({{"power_w", "--power"},
+               {"capacitor_rating_v", "--rating-cap"},
+               {"load_rating_v", "--rating-load"}},
+              [&] { options.Validate(); });
   return options;
 }
 
@@ -257,8 +257,8 @@ Model LoadModel(const ModelFlags& flags) {
   return model;
 }
 
-double ChosenFrequency(const ModelFlags& flags, const Model& model) {
-  if (std::optional<double> frequency_hz = FrequencyFlag(flags)) return *frequency_hz;
+double ChosenFrequency(const std::optional<double>& frequency_flag_hz, const Model& model) {
+  if (frequency_flag_hz) return *frequency_flag_hz;
   if (model.frequency_hz) return *model.frequency_hz;
   throw InputError(SourceLocation{model.file, 0, 0},
                    "the model gives no frequency: add a line such as `frequency 14.2MHz` to "
@@ -268,6 +268,14 @@ double ChosenFrequency(const ModelFlags& flags, const Model& model) {
 void PrintWarnings(const std::vector<Warning>& warnings) {
   for (const Warning& warning : warnings) fmt::print(stderr, "{}\n", ToString(warning));
   std::fflush(stderr);
+}
+
+Simulation NewSimulation(Model model, double max_frequency_hz) {
+  SimulationOptions options;
+  options.max_frequency_hz = max_frequency_hz;
+  Simulation simulation(std::move(model), options);
+  PrintWarnings(simulation.warnings());
+  return simulation;
 }
 
 void AnnounceLongSolve(const Simulation& simulation) {

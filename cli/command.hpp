@@ -5,10 +5,12 @@
 
 #include <CLI/CLI.hpp>
 #include <functional>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
 
+#include "arguments.hpp"
 #include "output_files.hpp"
 #include "wirefield/bands.hpp"
 #include "wirefield/wirefield.hpp"
@@ -20,6 +22,27 @@ struct Command {
   CLI::App* app = nullptr;
   std::function<int()> run;
 };
+
+// What a command's --help says besides its flags: its name, what it does, and its footer
+// ("Examples:" and a command line a line).
+struct CommandHelp {
+  const char* name;
+  const char* about;
+  const char* footer;
+};
+
+// The subcommand help.name of `program`: add_flags adds its flags to it, kept in one Flags,
+// and the command runs `run` on them once they are parsed.
+template <typename Flags>
+Command NewCommand(CLI::App& program, const CommandHelp& help,
+                   void (*add_flags)(CLI::App& command, Flags& flags),
+                   int (*run)(const Flags& flags)) {
+  auto flags = std::make_shared<Flags>();
+  CLI::App* app = program.add_subcommand(help.name, help.about);
+  add_flags(*app, *flags);
+  app->footer(help.footer);
+  return Command{app, [flags, run] { return run(*flags); }};
+}
 
 // The flags that pick a model and how to read it.
 struct ModelFlags {
@@ -45,8 +68,9 @@ std::optional<double> FrequencyFlag(const ModelFlags& flags);
 // Throws InputError for any defect of the flags or the file.
 Model LoadModel(const ModelFlags& flags);
 
-// The frequency to work at: --freq, else the model's `frequency`; InputError when neither.
-double ChosenFrequency(const ModelFlags& flags, const Model& model);
+// The frequency to work at: --freq as read by FrequencyFlag, else the model's `frequency`;
+// InputError when neither.
+double ChosenFrequency(const std::optional<double>& frequency_flag_hz, const Model& model);
 
 // Adds --no-mesh-estimate (sets `skip`); `where` says which impedances get the estimate.
 void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where);
@@ -54,26 +78,46 @@ void AddMeshEstimateFlag(CLI::App& command, bool& skip, const std::string& where
 // Prints each warning to stderr, one per line.
 void PrintWarnings(const std::vector<Warning>& warnings);
 
+// The simulation of `model` for frequencies up to max_frequency_hz, its warnings printed.
+Simulation NewSimulation(Model model, double max_frequency_hz);
+
 // Before a long solve: the matrix's memory and the time estimate on stderr (LongSolveNotice).
 void AnnounceLongSolve(const Simulation& simulation);
 
 // Writes text to stdout in full and flushes; ComputationError when stdout cannot take it.
 void WriteStdout(const std::string& text);
 
-// Throws InputError about `option` (as the file, at 1:1) with `message`.
-[[noreturn]] void FailOption(const std::string& option, const std::string& message);
-
-// A whole number of the whole text, within [low, high]; else InputError naming the option.
-int WholeNumber(const std::string& text, const std::string& option, long low, long high,
-                const std::string& what);
-
-// An angle option: a plain number of degrees, optionally followed by `deg` ("2", "2.5deg");
-// InputError naming the option, with `example`, otherwise.
-double ParseDegrees(const std::string& text, const std::string& option, const std::string& example);
-
 // Adds an option taking one value, kept as typed in `target`, with its type name and help.
 CLI::Option* AddTextOption(CLI::App& command, const std::string& name, std::string& target,
                            const std::string& type, const std::string& help);
+
+// A flag that takes one value: the value as typed, and its option (to tell whether it was given).
+struct TextFlag {
+  std::string text;
+  CLI::Option* option = nullptr;
+  bool given() const { return Given(option); }
+};
+
+// Adds the flag `name` taking one value into `flag`, with its type name and help.
+void AddTextFlag(CLI::App& command, const std::string& name, TextFlag& flag,
+                 const std::string& type, const std::string& help);
+
+// Adds --threads N to `command`; `help` says what each thread does and its default.
+void AddThreadsFlag(CLI::App& command, TextFlag& flag, const std::string& help);
+
+// The --threads count: 0 (one per core) when not given; InputError for anything but 0..1024.
+int ChosenThreads(const TextFlag& flag);
+
+// Adds --exact (sets `exact`): fill `matrix` exactly at `points` instead of interpolating;
+// `cost` says how much slower it is.
+void AddExactFlag(CLI::App& command, bool& exact, const std::string& matrix,
+                  const std::string& points, const std::string& cost);
+
+// Adds --csv FILE (kept in `flag`), which also writes `what` ("the rows") as CSV.
+void AddCsvFlag(CLI::App& command, TextFlag& flag, const std::string& what);
+
+// Adds --json (sets `json`): one JSON document on stdout instead of `instead` ("the table").
+void AddJsonFlag(CLI::App& command, bool& json, const std::string& instead);
 
 // The flags that choose a sweep's frequencies: a --from/--to range with --step or --points,
 // or --band (repeatable), and the ITU --region of the band edges.

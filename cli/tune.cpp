@@ -9,7 +9,6 @@
 
 #include <algorithm>
 #include <cstdio>
-#include <memory>
 #include <string>
 #include <vector>
 
@@ -18,6 +17,18 @@
 namespace wirefield::cli {
 
 namespace {
+
+// What `wirefield tune --help` says besides its flags.
+const CommandHelp kTuneHelp{
+    "tune",
+    "Find the value of a model variable (a wire length, a coil's inductance, a capacitor) "
+    "that puts the first feed at resonance at a frequency, or gives the lowest SWR there; "
+    "two --vary/--target pairs tune two variables for two bands. Reports the value, the "
+    "impedance, the SWR and how far the resonance moves per cm, uH or pF.",
+    R"(Examples:
+  wirefield tune models/hiking_club_dipole.wire --vary total --target 14.2MHz
+  wirefield tune models/hiking_club_two_band_end_fed.wire --vary section --target 14.2MHz --vary tail --target 7.1MHz --kind parallel
+  wirefield tune models/end_fed_field_kit.wire --vary radiator_length --target 7.05MHz --goal min-swr --z0 2450ohm --json)"};
 
 struct TuneFlags {
   ModelFlags model;
@@ -93,63 +104,55 @@ int RunTune(const TuneFlags& flags) {
       std::fflush(stderr);
     };
   }
-  const TuneResult result = Tune(text, flags.model.model_path, targets, options);
+  const TuneResult result =
+      NamingFlags({{"variable", "--vary"}, {"frequency_hz", "--target"}, {"min_si", "--min"}},
+                  [&] { return Tune(text, flags.model.model_path, targets, options); });
   PrintWarnings(result.warnings);
   WriteStdout(flags.model.json ? FormatTuneJson(result) : FormatTuneText(result));
   return 0;
 }
 
-}  // namespace
-
-Command AddTuneCommand(CLI::App& program) {
-  auto flags = std::make_shared<TuneFlags>();
-  CLI::App* app = program.add_subcommand(
-      "tune",
-      "Find the value of a model variable (a wire length, a coil's inductance, a capacitor) "
-      "that puts the first feed at resonance at a frequency, or gives the lowest SWR there; "
-      "two --vary/--target pairs tune two variables for two bands. Reports the value, the "
-      "impedance, the SWR and how far the resonance moves per cm, uH or pF.");
-  AddModelFlags(*app, flags->model, /*with_frequency=*/false);
-  AddMeshEstimateFlag(*app, flags->no_mesh_estimate, "the tuned impedance");
-  app->add_option("--vary", flags->vary,
-                  "The `let` variable to tune, by name; repeatable, paired in order with "
-                  "--target. Required.")
+// Adds the flags of `tune` to app, kept in `flags`.
+void AddTuneFlags(CLI::App& app, TuneFlags& flags) {
+  AddModelFlags(app, flags.model, /*with_frequency=*/false);
+  AddMeshEstimateFlag(app, flags.no_mesh_estimate, "the tuned impedance");
+  app.add_option("--vary", flags.vary,
+                 "The `let` variable to tune, by name; repeatable, paired in order with "
+                 "--target. Required.")
       ->type_name("NAME")
       ->required()
       ->allow_extra_args(false);
-  app->add_option("--target", flags->target,
-                  "The frequency for the --vary in the same position, e.g. 14.2MHz (bare "
-                  "number: Hz). Required, one per --vary.")
+  app.add_option("--target", flags.target,
+                 "The frequency for the --vary in the same position, e.g. 14.2MHz (bare "
+                 "number: Hz). Required, one per --vary.")
       ->type_name("F")
       ->required()
       ->allow_extra_args(false);
-  app->add_option("--min", flags->min,
-                  "Lowest value to try, in the variable's unit (e.g. 9.5m, 60uH; bare: its SI "
-                  "unit); one per --vary or none. Default: 30% below the model's value.")
+  app.add_option("--min", flags.min,
+                 "Lowest value to try, in the variable's unit (e.g. 9.5m, 60uH; bare: its SI "
+                 "unit); one per --vary or none. Default: 30% below the model's value.")
       ->type_name("V")
       ->allow_extra_args(false);
-  app->add_option("--max", flags->max,
-                  "Highest value to try, like --min. Default: 30% above the model's value. A "
-                  "wider range costs no more solves but may take in another resonance.")
+  app.add_option("--max", flags.max,
+                 "Highest value to try, like --min. Default: 30% above the model's value. A "
+                 "wider range costs no more solves but may take in another resonance.")
       ->type_name("V")
       ->allow_extra_args(false);
-  flags->goal_option = AddTextOption(
-      *app, "--goal", flags->goal, "resonance|min-swr",
+  flags.goal_option = AddTextOption(
+      app, "--goal", flags.goal, "resonance|min-swr",
       "resonance: zero reactance at the feed terminals (before any transformer); min-swr: the "
       "lowest SWR at the transmitter. Default: resonance.");
-  flags->kind_option = AddTextOption(
-      *app, "--kind", flags->kind, "auto|series|parallel",
+  flags.kind_option = AddTextOption(
+      app, "--kind", flags.kind, "auto|series|parallel",
       "Which resonance: series (low R, X rising with frequency: a centre-fed half wave), "
       "parallel (high R, X falling: an end-fed half wave) or auto (either, the one nearest the "
       "model's value). Default: auto.");
-  app->footer(
-      "Examples:\n"
-      "  wirefield tune models/hiking_club_dipole.wire --vary total --target 14.2MHz\n"
-      "  wirefield tune models/hiking_club_two_band_end_fed.wire --vary section --target "
-      "14.2MHz --vary tail --target 7.1MHz --kind parallel\n"
-      "  wirefield tune models/end_fed_field_kit.wire --vary radiator_length --target 7.05MHz "
-      "--goal min-swr --z0 2450ohm --json");
-  return Command{app, [flags] { return RunTune(*flags); }};
+}
+
+}  // namespace
+
+Command AddTuneCommand(CLI::App& program) {
+  return NewCommand(program, kTuneHelp, AddTuneFlags, RunTune);
 }
 
 }  // namespace wirefield::cli

@@ -280,24 +280,5 @@ TEST(Exposure, CautionsDeferToLocalRules) {
   EXPECT_NE(all.find("Local rules and licensed practice decide"), std::string::npos);
 }
 
-TEST(PowerArgument, UnitsAndErrors) {
-  EXPECT_DOUBLE_EQ(ParsePowerArgument("100W", "--power"), 100.0);
-  EXPECT_DOUBLE_EQ(ParsePowerArgument("500 mW", "--power"), 0.5);
-  EXPECT_DOUBLE_EQ(ParsePowerArgument("1.5kW", "--power"), 1500.0);
-  try {
-    ParsePowerArgument("100", "--power");
-    ADD_FAILURE() << "a power without a unit was accepted";
-  } catch (const InputError& error) {
-    EXPECT_STREQ(error.what(),
-                 "--power:1:1: error: --power needs a unit: W, mW or kW (e.g. 100W); got '100'");
-  }
-  try {
-    ParsePowerArgument("-5W", "--power");
-    ADD_FAILURE() << "a negative power was accepted";
-  } catch (const InputError& error) {
-    EXPECT_STREQ(error.what(), "--power:1:1: error: --power must be positive; got '-5W'");
-  }
-}
-
 }  // namespace
 }  // namespace wirefield

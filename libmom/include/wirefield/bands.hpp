@@ -30,7 +30,8 @@ const std::vector<std::string>& BandNames();
 std::vector<Band> BandTable(int region);
 
 // The band `name` in `region`. Accepts "40m", "40M" and "40 m". Throws InputError (file
-// "--band") listing the names for an unknown name, (file "--region") for a region not 1..3.
+// "band") listing the names for an unknown name, (file "region", the message beginning with
+// "region") for a region not 1..3.
 Band FindBand(const std::string& name, int region);
 
 // The frequencies of one contiguous stretch of a sweep (a band or a --from/--to range).

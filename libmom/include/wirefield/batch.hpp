@@ -133,6 +133,11 @@ struct BatchOptions {
   // for the ones before them: at most a few per worker thread. Empty: rows are kept in
   // BatchResult::rows.
   std::function<void(const BatchResult& run, const BatchRow& row)> row_sink;
+
+  // Checks the pattern and extra-column fields against their bounds (the low-angle elevation
+  // may be negative only when no row is over a ground, over_ground false); throws InputError
+  // (file: the field's name, such as "elevation_deg", at 1:1) whose message states the bound.
+  void Validate(bool over_ground) const;
 };
 
 // What one row does in one span of its sweep (a band, or the --from/--to range): the sweep's

@@ -272,27 +272,38 @@ Model ParseModelText(const std::string& text, const std::string& file_name,
 // Splits "NAME=VALUE" into an Override; throws InputError (file "--set") when malformed.
 Override ParseOverride(const std::string& text);
 
-// Parses a command-line frequency such as "14.2MHz", "14.2 MHz" or "14200000" (bare = Hz),
-// an expression of the model language. Throws InputError naming option_name (e.g. "--freq")
-// when it is malformed, not a frequency, or not positive.
-double ParseFrequencyArgument(const std::string& text, const std::string& option_name);
+// The quantities ReadQuantity reads, each an expression of the model language with its unit
+// (a bare number is in the SI unit).
+enum class QuantityKind {
+  kFrequency,   // "14.2MHz", "14200000" (Hz)
+  kResistance,  // "50", "1.2kohm" (ohm)
+  kLength,      // "28.5mm", "1.1 in" (m)
+  kInductance,  // "20uH", "2e-5" (H)
+  kVoltage,     // "500V", "2kV" (V)
+};
 
-// Parses a command-line resistance such as "50", "50ohm" or "1.2kohm" (bare = ohm); must be > 0.
-double ParseResistanceArgument(const std::string& text, const std::string& option_name);
+// What is wrong with the text of a value, without naming where the text came from.
+struct ValueProblem {
+  int line = 0;    // 1 when `column` points into the text; 0 when the text as a whole is at fault
+  int column = 0;  // 1-based column in the text of the fault (0 with line 0)
+  std::string message;
+  // True when `message` is said of the value and reads after its name ("must be positive;
+  // got -5 Hz"); false when it stands alone ("unexpected ')' after the value").
+  bool after_name = false;
+};
 
-// Parses a command-line length such as "28.5mm", "1.1 in" or "0.0285" (bare = metre); must be > 0.
-double ParseLengthArgument(const std::string& text, const std::string& option_name);
+// A value read from text: its SI number, or what is wrong with the text.
+struct ValueReading {
+  double si = 0.0;
+  std::optional<ValueProblem> problem;
+};
 
-// Parses a command-line value for `variable`: an expression of its dimension, or a bare number
-// in its SI unit (only a bare number for a plain variable); may be zero or negative. Throws
-// InputError naming option_name when it is malformed or of another dimension.
-double ParseVariableArgument(const std::string& text, const std::string& option_name,
-                             const VariableSpec& variable);
+// Reads a quantity of `kind` from text: one expression of the model language, positive and
+// within the allowed range of its kind (docs/model-language.md "Allowed ranges").
+ValueReading ReadQuantity(const std::string& text, QuantityKind kind);
 
-// Parses a command-line inductance such as "20uH" or "2e-5" (bare = henry); must be > 0.
-double ParseInductanceArgument(const std::string& text, const std::string& option_name);
-
-// Parses a command-line voltage such as "500V", "2kV" or "750" (bare = volt); must be > 0.
-double ParseVoltageArgument(const std::string& text, const std::string& option_name);
+// Reads a value for `variable`: an expression of its dimension, or a bare number in its SI
+// unit (only a bare number for a plain variable); may be zero or negative.
+ValueReading ReadVariableValue(const std::string& text, const VariableSpec& variable);
 
 }  // namespace wirefield

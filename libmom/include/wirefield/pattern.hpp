@@ -56,6 +56,11 @@ struct PatternOptions {
   // one per core. The result is the same to the bit for any count; callers that compute
   // several patterns at once on their own threads (batches) pass 1.
   int threads = 0;
+
+  // Checks every field against its bound (the cut's elevation may be negative only in free
+  // space, over_ground false); throws InputError (file: the field's name, such as "step_deg",
+  // at 1:1) whose message begins with that name and states the bound.
+  void Validate(bool over_ground) const;
 };
 
 // The best gain over azimuth at one elevation: the maximum of the azimuth cut there, on the

@@ -35,6 +35,10 @@ struct StressOptions {
   double capacitor_rating_v = kDefaultCapacitorRatingV;
   // Peak voltage above which a coil or another load gets a caution, V; > 0.
   double load_rating_v = kDefaultLoadRatingV;
+
+  // Checks every field against its bound; throws InputError (file: the field's name, such as
+  // "power_w", at 1:1) whose message begins with that name and states the bound.
+  void Validate() const;
 };
 
 // A voltage or current as its peak (amplitude of the phasor) and RMS value.
@@ -115,10 +119,6 @@ struct StressPeak {
 };
 std::vector<StressPeak> HighestStress(const std::vector<StressResult>& results);
 
-// Parses a command-line power such as "100W", "500 mW" or "1.5kW"; the unit is required.
-// Throws InputError naming option_name when it is malformed, unitless or not positive.
-double ParsePowerArgument(const std::string& text, const std::string& option_name);
-
 // --- RF exposure --------------------------------------------------------------------------
 
 enum class TransmitMode { kSsb, kCw, kFm, kDigital, kCarrier };
@@ -127,8 +127,6 @@ enum class TransmitMode { kSsb, kCw, kFm, kDigital, kCarrier };
 double ModeDutyFactor(TransmitMode mode);
 // "ssb", "cw", "fm", "digital", "carrier".
 std::string ToString(TransmitMode mode);
-// The mode of that name; InputError naming option_name otherwise.
-TransmitMode ParseTransmitMode(const std::string& text, const std::string& option_name);
 
 struct ExposureOptions {
   double power_w = 100.0;  // transmitter power, W; > 0
@@ -138,6 +136,10 @@ struct ExposureOptions {
   // Share of the averaging time (30 min for the general public) spent transmitting,
   // 0 < share <= 1. Default 1 (transmitting all the time, the worst case).
   double transmit_fraction = 1.0;
+
+  // Checks every field against its bound; throws InputError (file: the field's name, such as
+  // "duty", at 1:1) whose message begins with that name and states the bound.
+  void Validate() const;
 };
 
 struct ExposureResult {

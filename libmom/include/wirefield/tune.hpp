@@ -28,11 +28,9 @@ enum class ResonanceKind {
   kParallel,  // X crosses zero falling (dX/df < 0), R high: an end-fed half wave
 };
 
-// "resonance" / "min-swr"; "auto" / "series" / "parallel". Parse* return nullopt for other text.
+// "resonance" / "min-swr"; "auto" / "series" / "parallel".
 std::string ToString(TuneGoal goal);
 std::string ToString(ResonanceKind kind);
-std::optional<TuneGoal> ParseTuneGoal(const std::string& text);
-std::optional<ResonanceKind> ParseResonanceKind(const std::string& text);
 
 // One variable and the frequency it is tuned for.
 struct TuneTarget {
@@ -72,6 +70,11 @@ struct TuneOptions {
   SimulationOptions simulation;
   // Called with one line of progress text (no newline) at each stage; may be empty.
   std::function<void(const std::string&)> progress;
+
+  // Checks the search's fields against their bounds (scan_samples, tolerance, max_iterations,
+  // default_span); throws InputError (file: the field's name, at 1:1) whose message begins
+  // with that name and states the bound.
+  void Validate() const;
 };
 
 // One tuned variable at the end.

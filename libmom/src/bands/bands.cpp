@@ -89,8 +89,8 @@ constexpr double kHzPerKhz = 1e3;
 
 void CheckRegion(int region) {
   if (region < 1 || region > 3) {
-    throw InputError(SourceLocation{"--region", 1, 1},
-                     fmt::format("--region must be 1, 2 or 3 (the ITU regions: 1 Europe, Africa "
+    throw InputError(SourceLocation{"region", 1, 1},
+                     fmt::format("region must be 1, 2 or 3 (the ITU regions: 1 Europe, Africa "
                                  "and the Middle East; 2 the Americas; 3 Asia and the "
                                  "Pacific); got {}",
                                  region));
@@ -133,7 +133,7 @@ Band FindBand(const std::string& name, int region) {
   }
   std::string list;
   for (const std::string& known : BandNames()) list += (list.empty() ? "" : ", ") + known;
-  throw InputError(SourceLocation{"--band", 1, 1},
+  throw InputError(SourceLocation{"band", 1, 1},
                    fmt::format("unknown band '{}'; use one of {} (the amateur bands from "
                                "160 m to 10 m)",
                                name, list));
@@ -177,11 +177,10 @@ BandSummary SummarizeBand(const SweepResult& sweep, const Band& band) {
     }
   }
   if (inside.points.empty()) {
-    throw InputError(
-        SourceLocation{"--band", 1, 1},
-        fmt::format("no sweep point falls inside the {} band ({:.1f}-{:.1f} kHz); "
-                    "sweep over the band with --band {}",
-                    band.name, band.from_hz / kHzPerKhz, band.to_hz / kHzPerKhz, band.name));
+    throw InputError(SourceLocation{"band", 1, 1},
+                     fmt::format("no sweep point falls inside the {} band ({:.1f}-{:.1f} kHz); "
+                                 "sweep over the band itself",
+                                 band.name, band.from_hz / kHzPerKhz, band.to_hz / kHzPerKhz));
   }
   BandSummary summary;
   summary.band = band;

@@ -18,14 +18,6 @@ namespace {
 // Bulletin 65 (1997), Section 2 (the EPA ground-reflection model); S = 0.64 EIRP / (pi R^2).
 constexpr double kGroundReflectionFactor = 1.6 * 1.6;
 
-void RequireShare(double value, const std::string& option, const std::string& what) {
-  if (!(value > 0.0 && value <= 1.0)) {
-    throw InputError(
-        SourceLocation{option, 1, 1},
-        fmt::format("{} must be a {} greater than 0 and at most 1; got {}", option, what, value));
-  }
-}
-
 std::string Metres(double m) { return fmt::format("{:.1f} m", m); }
 
 }  // namespace
@@ -101,12 +93,7 @@ std::optional<double> IcnirpGeneralPublicLimit(double frequency_hz) {
 
 ExposureResult EstimateExposure(double frequency_hz, double max_gain_dbi,
                                 const ExposureOptions& options) {
-  if (!(options.power_w > 0.0) || !std::isfinite(options.power_w)) {
-    throw InputError(SourceLocation{"--power", 1, 1},
-                     fmt::format("--power must be positive; got {} W", options.power_w));
-  }
-  if (options.duty) RequireShare(*options.duty, "--duty", "duty factor");
-  RequireShare(options.transmit_fraction, "--transmit-fraction", "share of the time");
+  options.Validate();
   if (!std::isfinite(max_gain_dbi) || !(frequency_hz > 0.0)) {
     throw ComputationError(
         fmt::format("exposure: needs a finite gain and a positive frequency; got {} dBi, {} Hz",

@@ -202,23 +202,8 @@ FarFieldPoint FarField(const Model& model, const SolveResult& solved, double ele
 
 PatternResult ComputePattern(const Model& model, const SolveResult& solved,
                              const PatternOptions& options) {
-  if (!(options.step_deg > 0.0) || options.step_deg > 10.0) {
-    throw InputError({"--step", 0, 0},
-                     fmt::format("the pattern step must be above 0 and at most 10 degrees, not {}",
-                                 options.step_deg));
-  }
   const bool over_ground = model.ground.kind != GroundKind::kFree;
-  if (const auto& el = options.azimuth_cut_elevation_deg;
-      el && (!(*el >= (over_ground ? 0.0 : -90.0)) || !(*el <= 90.0))) {
-    throw InputError({"--elevation", 0, 0},
-                     fmt::format("the azimuth cut's elevation must lie in {}..90 degrees, not {}",
-                                 over_ground ? 0 : -90, *el));
-  }
-  if (const auto& az = options.elevation_cut_azimuth_deg; az && !(*az >= 0.0 && *az <= 360.0)) {
-    throw InputError(
-        {"--azimuth", 0, 0},
-        fmt::format("the elevation cut's azimuth must lie in 0..360 degrees, not {}", *az));
-  }
+  options.Validate(over_ground);
   Evaluator eval = MakeEvaluator(model, solved);
   PatternResult r;
   r.frequency_hz = solved.frequency_hz;

@@ -28,13 +28,6 @@ Amplitude FromPeak(double peak) { return Amplitude{peak, peak / std::sqrt(2.0)};
 // rule (geometry/mesh.cpp, kJoinRelativeTolerance).
 constexpr double kJoinRelativeTolerance = 1e-6;
 
-void RequirePositive(double value, const std::string& what) {
-  if (!(value > 0.0) || !std::isfinite(value)) {
-    throw InputError(SourceLocation{what, 1, 1},
-                     fmt::format("{} must be a positive finite number; got {}", what, value));
-  }
-}
-
 void CheckFinite(double value, const std::string& what) {
   if (!std::isfinite(value)) {
     throw ComputationError(fmt::format("stress: a non-finite {} ({})", what, value));
@@ -118,9 +111,7 @@ constexpr const char* kCapacitorRatingAdvice =
 
 StressResult ComputeStress(const Model& model, const SolveResult& solved,
                            const StressOptions& options) {
-  RequirePositive(options.power_w, "--power");
-  RequirePositive(options.capacitor_rating_v, "--rating-cap");
-  RequirePositive(options.load_rating_v, "--rating-load");
+  options.Validate();
   const double f_hz = solved.frequency_hz;
   const double omega = 2.0 * core::kPi * f_hz;
   StressResult r;

@@ -129,26 +129,25 @@ std::string GridFactors(const BatchOptions& options) {
 // Every check that needs no row: InputError before any work.
 void CheckBatchOptions(const BatchOptions& options, const Model& base) {
   if (options.spans.empty()) {
-    throw InputError({"batch", 0, 0},
-                     "give the frequencies to sweep: --band NAME or --from F1 --to F2 with "
-                     "--step DF or --points N");
+    throw InputError({"spans", 0, 0},
+                     "spans is empty: give the frequencies to sweep (a band or a range)");
   }
   std::set<std::string> varied;
   for (const BatchVariable& variable : options.variables) {
     if (!varied.insert(variable.name).second) {
-      throw InputError({"--vary " + variable.name, 0, 0},
+      throw InputError({"variables " + variable.name, 0, 0},
                        "this variable is varied twice; give one --vary per variable");
     }
     for (const Override& fixed : options.fixed_overrides) {
       if (fixed.name == variable.name) {
-        throw InputError({"--vary " + variable.name, 0, 0},
+        throw InputError({"variables " + variable.name, 0, 0},
                          "this variable is also given to --set; drop one of them");
       }
     }
     if (std::find(base.variables.begin(), base.variables.end(), variable.name) ==
         base.variables.end()) {
       throw InputError(
-          {"--vary " + variable.name, 0, 0},
+          {"variables " + variable.name, 0, 0},
           base.variables.empty()
               ? fmt::format("the model has no variable '{}' (it defines no variables; add "
                             "`let {} = ...` to vary it)",
@@ -157,7 +156,7 @@ void CheckBatchOptions(const BatchOptions& options, const Model& base) {
                             ListNames(base.variables)));
     }
     if (variable.values.empty()) {
-      throw InputError({"--vary " + variable.name, 0, 0}, "the variable has no values");
+      throw InputError({"variables " + variable.name, 0, 0}, "the variable has no values");
     }
   }
   const double rows = BatchRowCount(options);
@@ -169,37 +168,41 @@ void CheckBatchOptions(const BatchOptions& options, const Model& base) {
                                  "steps, or pass --yes-large to run it anyway",
                                  rows, factors, kMaxBatchRows));
   }
-  if (!(options.pattern_step_deg > 0.0 && options.pattern_step_deg <= 10.0)) {
-    throw InputError({"--pattern-step", 1, 1},
-                     fmt::format("the pattern step must be greater than 0 and at most 10 "
-                                 "degrees; got {:.6g}",
-                                 options.pattern_step_deg));
-  }
   bool any_ground = options.grounds.empty() && base.ground.kind != GroundKind::kFree;
   for (const BatchGround& g : options.grounds) {
     const GroundKind kind = g.spec ? g.spec->kind : base.ground.kind;
     any_ground = any_ground || kind != GroundKind::kFree;
   }
-  const double lowest_deg = any_ground ? 0.0 : -90.0;
-  if (!(options.elevation_deg >= lowest_deg && options.elevation_deg <= 90.0)) {
-    throw InputError({"--elevation", 1, 1},
-                     any_ground ? fmt::format("--elevation must lie between 0 and 90 degrees "
-                                              "over a ground (there is no far field below it); "
-                                              "got {:.6g}",
-                                              options.elevation_deg)
-                                : fmt::format("--elevation must lie between -90 and 90 "
-                                              "degrees; got {:.6g}",
-                                              options.elevation_deg));
-  }
-  for (double f_hz : options.at_hz) {
-    if (!(f_hz > 0.0) || !std::isfinite(f_hz)) {
-      throw InputError({"--at", 1, 1},
-                       fmt::format("--at needs a positive frequency; got {} Hz", f_hz));
-    }
-  }
+  options.Validate(any_ground);
 }
 
 }  // namespace study
+
+void BatchOptions::Validate(bool over_ground) const {
+  if (!(pattern_step_deg > 0.0 && pattern_step_deg <= 10.0)) {
+    throw InputError({"pattern_step_deg", 1, 1},
+                     fmt::format("the pattern step must be greater than 0 and at most 10 "
+                                 "degrees; got {:.6g}",
+                                 pattern_step_deg));
+  }
+  const double lowest_deg = over_ground ? 0.0 : -90.0;
+  if (!(elevation_deg >= lowest_deg && elevation_deg <= 90.0)) {
+    throw InputError({"elevation_deg", 1, 1},
+                     over_ground ? fmt::format("elevation_deg must lie between 0 and 90 degrees "
+                                               "over a ground (there is no far field below it); "
+                                               "got {:.6g}",
+                                               elevation_deg)
+                                 : fmt::format("elevation_deg must lie between -90 and 90 "
+                                               "degrees; got {:.6g}",
+                                               elevation_deg));
+  }
+  for (double f_hz : at_hz) {
+    if (!(f_hz > 0.0) || !std::isfinite(f_hz)) {
+      throw InputError({"at_hz", 1, 1},
+                       fmt::format("at_hz needs a positive frequency; got {} Hz", f_hz));
+    }
+  }
+}
 
 std::vector<BatchGround> ParseGroundList(const std::string& text) {
   std::vector<std::string> known;

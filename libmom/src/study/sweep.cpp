@@ -23,14 +23,14 @@ namespace wirefield {
 
 std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz) {
   if (!(from_hz > 0.0) || !(to_hz >= from_hz) || !(step_hz > 0.0) || !std::isfinite(to_hz)) {
-    throw InputError({"--from/--to/--step", 0, 0},
+    throw InputError({"from_hz/to_hz/step_hz", 0, 0},
                      fmt::format("a sweep needs 0 < from <= to and a positive step; got from "
                                  "{} Hz, to {} Hz, step {} Hz",
                                  from_hz, to_hz, step_hz));
   }
   const double count = std::floor((to_hz - from_hz) / step_hz + 1e-9) + 1.0;
   if (count > 100000) {
-    throw InputError({"--step", 0, 0},
+    throw InputError({"step_hz", 0, 0},
                      fmt::format("the sweep would have {:.0f} points (at most 100000): use a "
                                  "larger step",
                                  count));
@@ -44,7 +44,7 @@ std::vector<double> FrequencyRange(double from_hz, double to_hz, double step_hz)
 std::vector<double> FrequencyPoints(double from_hz, double to_hz, int points) {
   if (!(from_hz > 0.0) || !(to_hz > from_hz) || points < 2 || points > 100000 ||
       !std::isfinite(to_hz)) {
-    throw InputError({"--points", 0, 0},
+    throw InputError({"points", 0, 0},
                      fmt::format("a sweep needs 0 < from < to and 2..100000 points; got from "
                                  "{} Hz, to {} Hz, {} points",
                                  from_hz, to_hz, points));

@@ -108,7 +108,7 @@ class Trials {
       const auto it = std::find_if(model.variable_specs.begin(), model.variable_specs.end(),
                                    [&](const VariableSpec& v) { return v.name == t.variable; });
       if (it == model.variable_specs.end()) {
-        throw InputError(SourceLocation{"--vary", 0, 0},
+        throw InputError(SourceLocation{"variable", 0, 0},
                          model.variable_specs.empty()
                              ? fmt::format("the model has no variable '{}' (it defines no "
                                            "variables; add a `let` for the length to tune)",
@@ -118,7 +118,7 @@ class Trials {
       }
       if (seen[t.variable]++ > 0) {
         throw InputError(
-            SourceLocation{"--vary", 0, 0},
+            SourceLocation{"variable", 0, 0},
             fmt::format("'{}' is varied twice; give each --vary its own variable", t.variable));
       }
       const bool named = !it->unit.empty();
@@ -452,14 +452,6 @@ std::string ToString(TuneGoal goal) { return core::NameOf(goal, kGoalNames, "min
 
 std::string ToString(ResonanceKind kind) { return core::NameOf(kind, kKindNames, "auto"); }
 
-std::optional<TuneGoal> ParseTuneGoal(const std::string& text) {
-  return core::ValueOf(text, kGoalNames);
-}
-
-std::optional<ResonanceKind> ParseResonanceKind(const std::string& text) {
-  return core::ValueOf(text, kKindNames);
-}
-
 std::optional<double> FindResonanceNear(const Simulation& simulation, double frequency_hz,
                                         ResonanceKind kind, int* solves) {
   int count = 0;
@@ -514,22 +506,31 @@ std::optional<double> FindResonanceNear(const Simulation& simulation, double fre
   return found;
 }
 
+void TuneOptions::Validate() const {
+  const auto fail = [](const char* field, const std::string& bound, const std::string& value) {
+    throw InputError(SourceLocation{field, 1, 1},
+                     fmt::format("{} must be {}; got {}", field, bound, value));
+  };
+  if (scan_samples < 3 || scan_samples > 200) {
+    fail("scan_samples", "from 3 to 200", fmt::to_string(scan_samples));
+  }
+  if (!(tolerance > 0.0 && tolerance < 0.1)) {
+    fail("tolerance", "greater than 0 and less than 0.1", fmt::format("{}", tolerance));
+  }
+  if (max_iterations < 1) fail("max_iterations", "at least 1", fmt::to_string(max_iterations));
+  if (!(default_span > 0.0 && default_span < 1.0)) {
+    fail("default_span", "greater than 0 and less than 1", fmt::format("{}", default_span));
+  }
+}
+
 TuneResult Tune(const std::string& model_text, const std::string& file_name,
                 const std::vector<TuneTarget>& targets, const TuneOptions& options) {
   const auto start = std::chrono::steady_clock::now();
   if (targets.empty()) {
-    throw InputError(SourceLocation{"--vary", 0, 0},
+    throw InputError(SourceLocation{"variable", 0, 0},
                      "give the variable to tune and its frequency: --vary NAME --target F");
   }
-  if (options.scan_samples < 3 || options.scan_samples > 200 || !(options.tolerance > 0.0) ||
-      !(options.tolerance < 0.1) || options.max_iterations < 1 || !(options.default_span > 0.0) ||
-      !(options.default_span < 1.0)) {
-    throw InputError(SourceLocation{"options", 0, 0},
-                     fmt::format("tune options out of range: scan_samples {} (3..200), tolerance "
-                                 "{} (0..0.1), max_iterations {} (>= 1), default_span {} (0..1)",
-                                 options.scan_samples, options.tolerance, options.max_iterations,
-                                 options.default_span));
-  }
+  options.Validate();
   auto progress = [&](const std::string& line) {
     if (options.progress) options.progress(line);
   };
@@ -543,8 +544,8 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     const VariableSpec& spec = trials.spec(i);
     if (!(t.frequency_hz > 0.0) || !std::isfinite(t.frequency_hz)) {
       throw InputError(
-          SourceLocation{"--target", 0, 0},
-          fmt::format("--target must be a positive frequency; got {} Hz", t.frequency_hz));
+          SourceLocation{"frequency_hz", 0, 0},
+          fmt::format("frequency_hz must be a positive frequency; got {} Hz", t.frequency_hz));
     }
     highest_hz = std::max(highest_hz, t.frequency_hz);
     const double span = options.default_span * std::abs(spec.value_si);
@@ -552,7 +553,7 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     const double high = t.max_si.value_or(spec.value_si + span);
     if (!(high > low) || !std::isfinite(low) || !std::isfinite(high)) {
       throw InputError(
-          SourceLocation{t.min_si || t.max_si ? "--min" : "--vary", 0, 0},
+          SourceLocation{t.min_si || t.max_si ? "min_si" : "variable", 0, 0},
           spec.value_si == 0.0 && !t.min_si && !t.max_si
               ? fmt::format("'{}' is 0 in the model, so the default bounds (-/+{:g}% of it) are "
                             "empty; give --min and --max",

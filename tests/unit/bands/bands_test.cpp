@@ -80,13 +80,13 @@ TEST(FindBand, AcceptsUpperCaseAndASpace) {
 
 TEST(FindBand, UnknownNameListsTheNames) {
   EXPECT_EQ(testing::ErrorText([&] { FindBand("41m", 1); }),
-            "--band:1:1: error: unknown band '41m'; use one of 160m, 80m, 60m, 40m, 30m, "
+            "band:1:1: error: unknown band '41m'; use one of 160m, 80m, 60m, 40m, 30m, "
             "20m, 17m, 15m, 12m, 10m (the amateur bands from 160 m to 10 m)");
 }
 
 TEST(FindBand, RegionOutsideOneToThreeIsAnInputError) {
   EXPECT_EQ(testing::ErrorText([&] { FindBand("40m", 4); }),
-            "--region:1:1: error: --region must be 1, 2 or 3 (the ITU regions: 1 Europe, "
+            "region:1:1: error: region must be 1, 2 or 3 (the ITU regions: 1 Europe, "
             "Africa and the Middle East; 2 the Americas; 3 Asia and the Pacific); got 4");
 }
 
@@ -211,7 +211,7 @@ TEST(SummarizeBand, NoPointInsideTheBandIsAnInputError) {
   const SweepResult sweep = ResonatorSweep(6.9e6, 7.3e6);
   EXPECT_EQ(testing::ErrorText([&] { SummarizeBand(sweep, FindBand("20m", 1)); }),
             "--band:1:1: error: no sweep point falls inside the 20m band "
-            "(14000.0-14350.0 kHz); sweep over the band with --band 20m");
+            "(14000.0-14350.0 kHz); sweep over the band itself");
 }
 
 }  // namespace

@@ -1,6 +1,7 @@
 // Tests of the model stage's statement parser (libmom/src/model/parser.cpp): every statement
 // resolved to SI values, WIRE@POS forms, `units`, --set overrides, warnings, and the exact
 // text and FILE:LINE:COLUMN of every input error the parser gives.
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -348,35 +349,34 @@ TEST(OverrideError, SettingAVariableTwiceIsRefused) {
             "--set h: error: this variable is set twice on the command line; set it once");
 }
 
-// ---- command-line quantities ------------------------------------------------------------
+// ---- quantities read from text (ReadQuantity) ---------------------------------------------
 
-TEST(CommandLineQuantity, FrequencyAcceptsUnitsAndBareHertz) {
-  EXPECT_DOUBLE_EQ(ParseFrequencyArgument("14.2MHz", "--freq"), 14.2e6);
-  EXPECT_DOUBLE_EQ(ParseFrequencyArgument("14.2 MHz", "--freq"), 14.2e6);
-  EXPECT_DOUBLE_EQ(ParseFrequencyArgument("14200000", "--freq"), 14.2e6);
-  EXPECT_DOUBLE_EQ(ParseResistanceArgument("1.2kohm", "--z0"), 1200.0);
-  EXPECT_DOUBLE_EQ(ParseResistanceArgument("50", "--z0"), 50.0);
+TEST(ReadQuantity, FrequencyAcceptsUnitsAndBareHertz) {
+  // SI prefixes: M = 1e6, k = 1e3 (SI Brochure, 9th ed., Table 7).
+  EXPECT_DOUBLE_EQ(ReadQuantity("14.2MHz", QuantityKind::kFrequency).si, 14.2e6);
+  EXPECT_DOUBLE_EQ(ReadQuantity("14.2 MHz", QuantityKind::kFrequency).si, 14.2e6);
+  EXPECT_DOUBLE_EQ(ReadQuantity("14200000", QuantityKind::kFrequency).si, 14.2e6);
+  EXPECT_DOUBLE_EQ(ReadQuantity("1.2kohm", QuantityKind::kResistance).si, 1200.0);
+  EXPECT_DOUBLE_EQ(ReadQuantity("50", QuantityKind::kResistance).si, 50.0);
+  EXPECT_FALSE(ReadQuantity("50", QuantityKind::kResistance).problem.has_value());
 }
 
-TEST(CommandLineQuantity, WrongQuantityOrSignIsAnInputErrorNamingTheOption) {
-  auto error = [](auto f) -> std::string {
-    try {
-      f();
-    } catch (const InputError& e) {
-      return e.what();
-    }
-    return "no error";
-  };
-  EXPECT_EQ(error([] { ParseFrequencyArgument("10m", "--freq"); }),
-            "--freq:1:1: error: --freq needs a frequency (Hz, kHz, MHz, GHz); got a length (m)");
-  EXPECT_EQ(error([] { ParseFrequencyArgument("-7MHz", "--freq"); }),
-            "--freq:1:1: error: --freq must be positive; got -7e+06 Hz");
-  EXPECT_EQ(error([] { ParseFrequencyArgument("", "--freq"); }),
-            "--freq: error: --freq needs a value such as 14.2MHz");
-  EXPECT_EQ(error([] { ParseResistanceArgument("0", "--z0"); }),
-            "--z0:1:1: error: --z0 must be positive; got 0 ohm");
-  EXPECT_EQ(error([] { ParseFrequencyArgument("14 MHz x", "--freq"); }),
-            "--freq:1:8: error: unexpected 'x' after the value");
+// "needs ..., got ..." as said after the value's name, at line 1 and the column of the value.
+std::string ProblemOf(const std::string& text, QuantityKind kind) {
+  const ValueReading reading = ReadQuantity(text, kind);
+  if (!reading.problem) return "no problem";
+  const ValueProblem& p = *reading.problem;
+  return fmt::format("{}:{}: {}{}", p.line, p.column, p.after_name ? "(name) " : "", p.message);
+}
+
+TEST(ReadQuantity, WrongQuantitySignOrTextIsAProblemThatNamesNoFlag) {
+  EXPECT_EQ(ProblemOf("10m", QuantityKind::kFrequency),
+            "1:1: (name) needs a frequency (Hz, kHz, MHz, GHz); got a length (m)");
+  EXPECT_EQ(ProblemOf("-7MHz", QuantityKind::kFrequency),
+            "1:1: (name) must be positive; got -7e+06 Hz");
+  EXPECT_EQ(ProblemOf("", QuantityKind::kFrequency), "0:0: (name) needs a value such as 14.2MHz");
+  EXPECT_EQ(ProblemOf("0", QuantityKind::kResistance), "1:1: (name) must be positive; got 0 ohm");
+  EXPECT_EQ(ProblemOf("14 MHz x", QuantityKind::kFrequency), "1:8: unexpected 'x' after the value");
 }
 
 // ---- warnings ---------------------------------------------------------------------------

@@ -1,5 +1,5 @@
 // Tests of the model stage's description of `let` variables (Model::variable_specs) and of
-// ParseVariableArgument, which `tune` uses for its bounds: values in SI, the SI unit of each
+// ReadVariableValue, which `tune` uses for its bounds: values in SI, the SI unit of each
 // dimension, the --set override as the value, the exact text of a wrong-dimension value, and
 // that a trial value written as override text is read back to the last bit.
 #include <fmt/format.h>
@@ -62,18 +62,18 @@ TEST(VariableSpec, SeventeenDigitOverrideTextReadsBackExactly) {
   }
 }
 
-TEST(VariableArgument, TakesTheVariablesQuantityOrABareSiNumber) {
+TEST(VariableValue, TakesTheVariablesQuantityOrABareSiNumber) {
   const Model m = ParseModelText(kKit, "kit.wire");
-  EXPECT_DOUBLE_EQ(ParseVariableArgument("950cm", "--min", m.variable_specs[0]), 9.5);
-  EXPECT_DOUBLE_EQ(ParseVariableArgument("9.5", "--min", m.variable_specs[0]), 9.5);
-  EXPECT_DOUBLE_EQ(ParseVariableArgument("60uH", "--max", m.variable_specs[1]), 60e-6);
-  try {
-    ParseVariableArgument("9uH", "--min", m.variable_specs[0]);
-    FAIL() << "expected an InputError";
-  } catch (const InputError& e) {
-    EXPECT_STREQ(e.what(),
-                 "--min:1:1: error: --min needs a length (m) like 'total'; got an inductance (H)");
-  }
+  // SI prefixes: c = 1e-2, u = 1e-6 (SI Brochure, 9th ed., Table 7).
+  EXPECT_DOUBLE_EQ(ReadVariableValue("950cm", m.variable_specs[0]).si, 9.5);
+  EXPECT_DOUBLE_EQ(ReadVariableValue("9.5", m.variable_specs[0]).si, 9.5);
+  EXPECT_DOUBLE_EQ(ReadVariableValue("60uH", m.variable_specs[1]).si, 60e-6);
+  const ValueReading wrong = ReadVariableValue("9uH", m.variable_specs[0]);
+  ASSERT_TRUE(wrong.problem.has_value());
+  EXPECT_EQ(wrong.problem->line, 1);
+  EXPECT_EQ(wrong.problem->column, 1);
+  EXPECT_TRUE(wrong.problem->after_name);
+  EXPECT_EQ(wrong.problem->message, "needs a length (m) like 'total'; got an inductance (H)");
 }
 
 }  // namespace

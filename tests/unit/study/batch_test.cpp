@@ -247,7 +247,7 @@ TEST(BatchGrid, UnknownVariableIsAnInputErrorBeforeAnyRow) {
   int rows_run = 0;
   EXPECT_EQ(InputErrorText(
                 [&] { RunBatch(kDipole, "dipole.wire", options, [&](int, int) { ++rows_run; }); }),
-            "--vary lenght: error: the model has no variable 'lenght' (its variables: total, "
+            "variables lenght: error: the model has no variable 'lenght' (its variables: total, "
             "height)");
   EXPECT_EQ(rows_run, 0);
 }
@@ -257,7 +257,7 @@ TEST(BatchGrid, SetAndVaryOfOneVariableIsRefused) {
   options.variables.push_back(ParseVary("total=9m,10m"));
   options.fixed_overrides.push_back(ParseOverride("total=9m"));
   EXPECT_EQ(InputErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
-            "--vary total: error: this variable is also given to --set; drop one of them");
+            "variables total: error: this variable is also given to --set; drop one of them");
 }
 
 TEST(BatchGrid, LargeGridNeedsConfirmation) {
@@ -274,7 +274,7 @@ TEST(BatchGrid, ElevationBelowTheHorizonIsRefusedOverAGround) {
   options.grounds = ParseGroundList("perfect");
   options.elevation_deg = -5.0;
   EXPECT_EQ(InputErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
-            "--elevation:1:1: error: --elevation must lie between 0 and 90 degrees over a "
+            "elevation_deg:1:1: error: elevation_deg must lie between 0 and 90 degrees over a "
             "ground (there is no far field below it); got -5");
 }
 
