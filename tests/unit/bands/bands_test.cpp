@@ -210,7 +210,7 @@ TEST(SummarizeBand, BandInsideTheTwoToOneRangeIsCovered) {
 TEST(SummarizeBand, NoPointInsideTheBandIsAnInputError) {
   const SweepResult sweep = ResonatorSweep(6.9e6, 7.3e6);
   EXPECT_EQ(testing::ErrorText([&] { SummarizeBand(sweep, FindBand("20m", 1)); }),
-            "--band:1:1: error: no sweep point falls inside the 20m band "
+            "band:1:1: error: no sweep point falls inside the 20m band "
             "(14000.0-14350.0 kHz); sweep over the band itself");
 }
 
