@@ -5,22 +5,13 @@
 
 #include <gtest/gtest.h>
 
-#include <functional>
 #include <string>
 #include <vector>
 
+#include "unit/error_text.hpp"
+
 namespace wirefield::cli {
 namespace {
-
-// The text of the InputError that `f` throws, or "no error".
-std::string ErrorOf(const std::function<void()>& f) {
-  try {
-    f();
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "no error";
-}
 
 TEST(FrequencyArgument, AcceptsUnitsAndBareHertz) {
   // SI prefixes: M = 1e6, k = 1e3 (SI Brochure, 9th ed., Table 7).
@@ -32,15 +23,15 @@ TEST(FrequencyArgument, AcceptsUnitsAndBareHertz) {
 }
 
 TEST(FrequencyArgument, WrongQuantityOrSignIsAnInputErrorNamingTheFlag) {
-  EXPECT_EQ(ErrorOf([] { ParseFrequencyArgument("10m", "--freq"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseFrequencyArgument("10m", "--freq"); }),
             "--freq:1:1: error: --freq needs a frequency (Hz, kHz, MHz, GHz); got a length (m)");
-  EXPECT_EQ(ErrorOf([] { ParseFrequencyArgument("-7MHz", "--freq"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseFrequencyArgument("-7MHz", "--freq"); }),
             "--freq:1:1: error: --freq must be positive; got -7e+06 Hz");
-  EXPECT_EQ(ErrorOf([] { ParseFrequencyArgument("", "--freq"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseFrequencyArgument("", "--freq"); }),
             "--freq: error: --freq needs a value such as 14.2MHz");
-  EXPECT_EQ(ErrorOf([] { ParseResistanceArgument("0", "--z0"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseResistanceArgument("0", "--z0"); }),
             "--z0:1:1: error: --z0 must be positive; got 0 ohm");
-  EXPECT_EQ(ErrorOf([] { ParseFrequencyArgument("14 MHz x", "--freq"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseFrequencyArgument("14 MHz x", "--freq"); }),
             "--freq:1:8: error: unexpected 'x' after the value");
 }
 
@@ -53,7 +44,7 @@ TEST(VariableArgument, TakesTheVariablesQuantityAndNamesTheFlagOtherwise) {
   ASSERT_EQ(m.variable_specs.size(), 1u);
   // c = 1e-2 (SI Brochure, 9th ed., Table 7).
   EXPECT_DOUBLE_EQ(ParseVariableArgument("950cm", "--min", m.variable_specs[0]), 9.5);
-  EXPECT_EQ(ErrorOf([&] { ParseVariableArgument("9uH", "--min", m.variable_specs[0]); }),
+  EXPECT_EQ(testing::ErrorText([&] { ParseVariableArgument("9uH", "--min", m.variable_specs[0]); }),
             "--min:1:1: error: --min needs a length (m) like 'total'; got an inductance (H)");
 }
 
@@ -62,23 +53,23 @@ TEST(PowerArgument, UnitsAndErrors) {
   EXPECT_DOUBLE_EQ(ParsePowerArgument("100W", "--power"), 100.0);
   EXPECT_DOUBLE_EQ(ParsePowerArgument("500 mW", "--power"), 0.5);
   EXPECT_DOUBLE_EQ(ParsePowerArgument("1.5kW", "--power"), 1500.0);
-  EXPECT_EQ(ErrorOf([] { ParsePowerArgument("100", "--power"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParsePowerArgument("100", "--power"); }),
             "--power:1:1: error: --power needs a unit: W, mW or kW (e.g. 100W); got '100'");
-  EXPECT_EQ(ErrorOf([] { ParsePowerArgument("-5W", "--power"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParsePowerArgument("-5W", "--power"); }),
             "--power:1:1: error: --power must be positive; got '-5W'");
 }
 
 TEST(PowerArgument, TheLibrarysRangeIsSaidAboutTheFlag) {
   // The range of a transmitter power is the library's (docs/model-language.md "Allowed
   // ranges": 1 nW to 10 MW); the program says it about --power.
-  EXPECT_EQ(ErrorOf([] { ParsePowerArgument("20000kW", "--power"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParsePowerArgument("20000kW", "--power"); }),
             "--power:1:1: error: --power must be 1e-09 W to 1e+07 W; got 2e+07 W");
 }
 
 TEST(TransmitModeArgument, KnowsTheFiveEmissionsAndNamesTheFlagOtherwise) {
   EXPECT_EQ(ParseTransmitMode("ssb", "--mode"), TransmitMode::kSsb);
   EXPECT_EQ(ParseTransmitMode("carrier", "--mode"), TransmitMode::kCarrier);
-  EXPECT_EQ(ErrorOf([] { ParseTransmitMode("am", "--mode"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseTransmitMode("am", "--mode"); }),
             "--mode:1:1: error: --mode must be one of ssb, cw, fm, digital, carrier; got 'am'");
 }
 
@@ -93,7 +84,7 @@ TEST(TuneArguments, GoalAndKindReadTheirOwnSpellingsOnly) {
 TEST(AboutFlag, AFieldsErrorIsSaidAboutItsFlag) {
   PatternOptions options;
   options.step_deg = 12.0;
-  EXPECT_EQ(ErrorOf([&] {
+  EXPECT_EQ(testing::ErrorText([&] {
               NamingFlags({{"step_deg", "--step"}}, [&] { options.Validate(true); });
             }),
             "--step:1:1: error: --step must be greater than 0 and at most 10 degrees; got 12");
@@ -115,11 +106,11 @@ TEST(AboutFlag, OtherErrorsPassUnchanged) {
 
 TEST(AboutFlag, TheBandTablesErrorsAreSaidAboutBandAndRegion) {
   const std::vector<FieldFlag> flags{{"band", "--band"}, {"region", "--region"}};
-  EXPECT_EQ(ErrorOf([&] { NamingFlags(flags, [] { FindBand("11m", 1); }); }),
+  EXPECT_EQ(testing::ErrorText([&] { NamingFlags(flags, [] { FindBand("11m", 1); }); }),
             "--band:1:1: error: unknown band '11m'; use one of 160m, 80m, 60m, 40m, 30m, 20m, "
             "17m, 15m, 12m, 10m (the amateur bands from 160 m to 10 m)");
   // The three ITU Radio Regulations regions (ITU Radio Regulations, Article 5).
-  EXPECT_EQ(ErrorOf([&] { NamingFlags(flags, [] { FindBand("40m", 4); }); }),
+  EXPECT_EQ(testing::ErrorText([&] { NamingFlags(flags, [] { FindBand("40m", 4); }); }),
             "--region:1:1: error: --region must be 1, 2 or 3 (the ITU regions: 1 Europe, Africa "
             "and the Middle East; 2 the Americas; 3 Asia and the Pacific); got 4");
 }
@@ -127,17 +118,17 @@ TEST(AboutFlag, TheBandTablesErrorsAreSaidAboutBandAndRegion) {
 TEST(OptionChecks, TuneAndBatchOptionsNameTheFieldAndItsBound) {
   TuneOptions tune;
   tune.scan_samples = 2;
-  EXPECT_EQ(ErrorOf([&] { tune.Validate(); }),
+  EXPECT_EQ(testing::ErrorText([&] { tune.Validate(); }),
             "scan_samples:1:1: error: scan_samples must be from 3 to 200; got 2");
   tune = TuneOptions{};
   tune.tolerance = 0.5;
-  EXPECT_EQ(ErrorOf([&] { tune.Validate(); }),
+  EXPECT_EQ(testing::ErrorText([&] { tune.Validate(); }),
             "tolerance:1:1: error: tolerance must be greater than 0 and less than 0.1; got 0.5");
-  EXPECT_EQ(ErrorOf([] { TuneOptions{}.Validate(); }), "no error");
+  EXPECT_EQ(testing::ErrorText([] { TuneOptions{}.Validate(); }), "no error");
   BatchOptions batch;
   batch.elevation_deg = -5.0;
-  EXPECT_EQ(ErrorOf([&] { batch.Validate(/*over_ground=*/false); }), "no error");
-  EXPECT_EQ(ErrorOf([&] {
+  EXPECT_EQ(testing::ErrorText([&] { batch.Validate(/*over_ground=*/false); }), "no error");
+  EXPECT_EQ(testing::ErrorText([&] {
               NamingFlags({{"elevation_deg", "--elevation"}}, [&] { batch.Validate(true); });
             }),
             "--elevation:1:1: error: --elevation must lie between 0 and 90 degrees over a ground "

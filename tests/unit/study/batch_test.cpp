@@ -6,9 +6,10 @@
 
 #include <gtest/gtest.h>
 
-#include <functional>
 #include <string>
 #include <vector>
+
+#include "unit/error_text.hpp"
 
 namespace wirefield {
 namespace {
@@ -31,15 +32,6 @@ BatchOptions SmallOptions() {
   options.spans.push_back(span);
   options.pattern_step_deg = 10.0;
   return options;
-}
-
-std::string InputErrorText(const std::function<void()>& run) {
-  try {
-    run();
-  } catch (const InputError& error) {
-    return error.what();
-  }
-  return "(no InputError)";
 }
 
 // --- --vary ---------------------------------------------------------------------------------
@@ -96,32 +88,32 @@ TEST(BatchVary, ListKeepsOrderAndShowsFrequenciesInMegahertz) {
 }
 
 TEST(BatchVary, ErrorsSayWhatToChange) {
-  EXPECT_EQ(InputErrorText([] { ParseVary("length"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("length"); }),
             "--vary:1:1: error: expected NAME=A:B:STEP or NAME=V1,V2,... (such as --vary "
             "length=19.5m:20.5m:0.25m); got 'length'");
-  EXPECT_EQ(InputErrorText([] { ParseVary("2x=1,2"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("2x=1,2"); }),
             "--vary:1:1: error: '2x' is not a variable name (letters, digits and _, not starting "
             "with a digit); write --vary NAME=A:B:STEP");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m:2m"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m"); }),
             "--vary a:1:1: error: a range needs three parts A:B:STEP (first, last, step, such as "
             "19.5m:20.5m:0.25m); got '1m:2m'");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m:2MHz:1m"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2MHz:1m"); }),
             "--vary a:1:1: error: A, B and STEP must be of one quantity; got a length (m), a "
             "frequency (Hz) and a length (m)");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m:2m:0m"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m:0m"); }),
             "--vary a:1:1: error: the step must be positive; got 0m");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=2m:1m:0.5m"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=2m:1m:0.5m"); }),
             "--vary a:1:1: error: the last value (1m) must not be below the first (2m)");
   // The model language's own message, at the column of the unit.
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m:2m:1nm"); }).substr(0, 57),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m:1nm"); }).substr(0, 57),
             "--vary a:1:2: error: unknown unit 'nm'; did you mean 'm'?");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=0:1:0.00001"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=0:1:0.00001"); }),
             "--vary a:1:1: error: the range gives 100001 values (at most 10000); use a larger "
             "step");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m,2MHz"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m,2MHz"); }),
             "--vary a:1:1: error: every value must be of one quantity; '2MHz' is a frequency "
             "(Hz), the first is a length (m)");
-  EXPECT_EQ(InputErrorText([] { ParseVary("a=1m,"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m,"); }),
             "--vary a:1:1: error: a value is empty; write --vary NAME=A:B:STEP or --vary "
             "NAME=V1,V2");
 }
@@ -151,11 +143,11 @@ TEST(BatchGrounds, ListMixesPresetsFreeAndPerfect) {
 TEST(BatchGrounds, UnknownNameListsTheChoices) {
   std::string names;
   for (const GroundPreset& p : GroundPresets()) names += p.name + ", ";
-  EXPECT_EQ(InputErrorText([] { ParseGroundList("swamp"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseGroundList("swamp"); }),
             "--grounds:1:1: error: unknown ground 'swamp'; use all, or a comma-separated list "
             "of " +
                 names + "free, perfect");
-  EXPECT_EQ(InputErrorText([] { ParseGroundList("free,free"); }),
+  EXPECT_EQ(testing::ErrorText([] { ParseGroundList("free,free"); }),
             "--grounds:1:1: error: ground 'free' is listed twice; list each ground once");
 }
 
@@ -203,7 +195,7 @@ TEST(BatchGrid, GridPastTheHardCapIsRefusedEvenWithYesLarge) {
   options.allow_large = true;
   const std::string model = std::string(kDipole) + "let spare = 1\n";
   int rows_run = 0;
-  const std::string text = InputErrorText(
+  const std::string text = testing::ErrorText(
       [&] { RunBatch(model, "dipole.wire", options, [&](int, int) { ++rows_run; }); });
   EXPECT_EQ(rows_run, 0);
   EXPECT_NE(text.find("more than 2147483647, the most one batch runs even with --yes-large"),
@@ -245,7 +237,7 @@ TEST(BatchGrid, UnknownVariableIsAnInputErrorBeforeAnyRow) {
   BatchOptions options = SmallOptions();
   options.variables.push_back(ParseVary("lenght=9m,10m"));
   int rows_run = 0;
-  EXPECT_EQ(InputErrorText(
+  EXPECT_EQ(testing::ErrorText(
                 [&] { RunBatch(kDipole, "dipole.wire", options, [&](int, int) { ++rows_run; }); }),
             "variables lenght: error: the model has no variable 'lenght' (its variables: total, "
             "height)");
@@ -256,14 +248,14 @@ TEST(BatchGrid, SetAndVaryOfOneVariableIsRefused) {
   BatchOptions options = SmallOptions();
   options.variables.push_back(ParseVary("total=9m,10m"));
   options.fixed_overrides.push_back(ParseOverride("total=9m"));
-  EXPECT_EQ(InputErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
+  EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
             "variables total: error: this variable is also given to --set; drop one of them");
 }
 
 TEST(BatchGrid, LargeGridNeedsConfirmation) {
   BatchOptions options = SmallOptions();
   options.variables.push_back(ParseVary("total=1m:3001m:1m"));
-  EXPECT_EQ(InputErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
+  EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
             "batch: error: the grid has 3001 rows (1 ground x 3001 values of total), more than "
             "2000; each row is a sweep and a pattern. Use fewer grounds or coarser --vary steps, "
             "or pass --yes-large to run it anyway");
@@ -273,7 +265,7 @@ TEST(BatchGrid, ElevationBelowTheHorizonIsRefusedOverAGround) {
   BatchOptions options = SmallOptions();
   options.grounds = ParseGroundList("perfect");
   options.elevation_deg = -5.0;
-  EXPECT_EQ(InputErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
+  EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
             "elevation_deg:1:1: error: elevation_deg must lie between 0 and 90 degrees over a "
             "ground (there is no far field below it); got -5");
 }
@@ -297,7 +289,7 @@ TEST(BatchRows, AFailingRowKeepsItsReasonAndTheOthersRun) {
 TEST(BatchRows, EveryRowFailingThrowsTheFirstRowsError) {
   BatchOptions options = SmallOptions();
   options.variables.push_back(ParseVary("total=0m,0m"));
-  EXPECT_NE(InputErrorText([&] {
+  EXPECT_NE(testing::ErrorText([&] {
               RunBatch(kDipole, "dipole.wire", options);
             }).find("wire 'd' has zero length"),
             std::string::npos);
