@@ -125,9 +125,28 @@ struct FeedSpec {
 
 enum class LoadTopology { kSeries, kParallel };
 
-// A lumped load: the present elements of R, L, C in series or in parallel, or a physical
-// coil (then R, L, C are absent and the coil's L, R_ac and self-capacitance are computed at
-// each frequency, wirefield/coil.hpp).
+// One measured or published point of a choke's series impedance, R + jX at a frequency.
+struct ChokePoint {
+  double frequency_hz = 0.0;
+  double resistance_ohm = 0.0;  // R >= 0: the loss of the core and winding
+  double reactance_ohm = 0.0;   // X, either sign
+};
+
+// A choke on a wire (a coax shield's outside, a counterpoise): a series impedance that holds
+// back the current through it, given by points of its impedance curve or by its winding on a
+// ferrite core. With points, the impedance between two points is interpolated linearly in
+// frequency (R and X each); one point holds at every frequency; with two or more, a run outside
+// them is an InputError. With a winding, L = turns^2 * A_L and Z = X / Q + jX, X = 2 pi f L.
+struct ChokeSpec {
+  std::vector<ChokePoint> points;  // increasing frequency; empty for a winding
+  double turns = 0.0;              // winding: turns through the core
+  double al_nh = 0.0;              // winding: the core's A_L, nH per turn^2
+  std::optional<double> q;         // winding: the Q of its inductance; none: lossless
+};
+
+// A lumped load: the present elements of R, L, C in series or in parallel, a physical coil
+// (then R, L, C are absent and the coil's L, R_ac and self-capacitance are computed at each
+// frequency, wirefield/coil.hpp), or a choke (ChokeSpec).
 struct LoadSpec {
   std::string name;
   WirePointSpec at;
@@ -136,6 +155,7 @@ struct LoadSpec {
   std::optional<double> inductance_h;
   std::optional<double> capacitance_f;
   std::optional<CoilSpec> coil;
+  std::optional<ChokeSpec> choke;
   SourceLocation location;
 };
 

@@ -8,6 +8,8 @@
 // i <= j are integrated.
 #include "fill/assemble.hpp"
 
+#include <fmt/format.h>
+
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
@@ -59,10 +61,36 @@ Eigen::MatrixXcd AssembleSelected(const geometry::Mesh& mesh, double frequency_h
 
 }  // namespace
 
+Complex ChokeImpedance(const LoadSpec& load, double frequency_hz) {
+  const ChokeSpec& choke = *load.choke;
+  if (choke.points.empty()) {
+    const double x =
+        2.0 * core::kPi * frequency_hz * choke.turns * choke.turns * choke.al_nh * 1e-9;
+    return {choke.q ? x / *choke.q : 0.0, x};
+  }
+  const std::vector<ChokePoint>& p = choke.points;
+  if (p.size() == 1) return {p[0].resistance_ohm, p[0].reactance_ohm};
+  if (frequency_hz < p.front().frequency_hz || frequency_hz > p.back().frequency_hz) {
+    throw InputError(load.location,
+                     fmt::format("load '{}': the choke's impedance is given from {:.6g} to {:.6g} "
+                                 "MHz, and the run is at {:.6g} MHz; add a point of its curve "
+                                 "at or beyond that frequency",
+                                 load.name, p.front().frequency_hz / 1e6,
+                                 p.back().frequency_hz / 1e6, frequency_hz / 1e6));
+  }
+  size_t i = 1;
+  while (i + 1 < p.size() && p[i].frequency_hz < frequency_hz) ++i;
+  const double t =
+      (frequency_hz - p[i - 1].frequency_hz) / (p[i].frequency_hz - p[i - 1].frequency_hz);
+  return {p[i - 1].resistance_ohm + t * (p[i].resistance_ohm - p[i - 1].resistance_ohm),
+          p[i - 1].reactance_ohm + t * (p[i].reactance_ohm - p[i - 1].reactance_ohm)};
+}
+
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open) {
   const double w = 2.0 * core::kPi * frequency_hz;
   *open = false;
   if (load.coil) return CoilImpedance(*load.coil, frequency_hz);
+  if (load.choke) return ChokeImpedance(load, frequency_hz);
   if (load.topology == LoadTopology::kSeries) {
     Complex z = 0.0;
     if (load.resistance_ohm) z += *load.resistance_ohm;

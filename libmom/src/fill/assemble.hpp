@@ -16,7 +16,8 @@
 namespace wirefield::fill {
 
 // Impedance of a lumped load at a frequency (a coil load: its (R_ac + j omega L) in parallel
-// with its self-capacitance, wirefield/coil.hpp). *open is set when the element is an ideal open
+// with its self-capacitance, wirefield/coil.hpp; a choke: ChokeSpec's rule, InputError at the
+// load for a frequency outside its points). *open is set when the element is an ideal open
 // circuit there (parallel L and C at exact resonance, nothing else in parallel); the returned
 // impedance is then a finite stand-in of 1e12 ohm.
 Complex LoadImpedance(const LoadSpec& load, double frequency_hz, bool* open);

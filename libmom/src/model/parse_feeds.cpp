@@ -143,12 +143,19 @@ void Parser::Load(const Token& keyword) {
     model_.loads.push_back(std::move(load));
     return;
   }
+  if (IsWord("choke")) {
+    Next();
+    load.choke = ChokeClauses(context);
+    load_lines_[load.name] = load.location;
+    model_.loads.push_back(std::move(load));
+    return;
+  }
   if (IsWord("series")) {
     load.topology = LoadTopology::kSeries;
   } else if (IsWord("parallel")) {
     load.topology = LoadTopology::kParallel;
   } else {
-    throw Expected(context, "'series' or 'parallel'");
+    throw Expected(context, "'series', 'parallel', 'coil' or 'choke'");
   }
   Next();
   while (Peek().kind != TokenKind::kEnd) {
@@ -354,6 +361,116 @@ CoilSpec Parser::CheckCoil(const std::string& context, CoilSpec coil,
   const std::string problem = CoilProblem(coil);
   if (!problem.empty()) throw Error(winding, fmt::format("{}: {}", context, problem));
   return coil;
+}
+
+// The clauses of a choke load: its impedance curve as points `(F, R, X), (F, R, X), ...` with
+// increasing F, or its winding `turns=N al=A_L [q=Q]` on a ferrite core.
+ChokeSpec Parser::ChokeClauses(const std::string& context) {
+  const std::string usage =
+      "(F, R, X) points of its impedance, such as (7MHz, 1.2kohm, 300ohm), "
+      "or turns=N al=A_L [q=Q]";
+  ChokeSpec choke;
+  if (IsPunct("(")) {
+    while (true) {
+      const Token& start = Peek();
+      const ChokePoint point = ChokeTablePoint(context);
+      if (!choke.points.empty() && !(point.frequency_hz > choke.points.back().frequency_hz)) {
+        throw Error(start, fmt::format("{}: the choke's points must go up in frequency; {} "
+                                       "Hz follows {} Hz",
+                                       context, FormatNumber(point.frequency_hz),
+                                       FormatNumber(choke.points.back().frequency_hz)));
+      }
+      choke.points.push_back(point);
+      if (!IsPunct(",")) break;
+      Next();
+    }
+    if (Peek().kind != TokenKind::kEnd) {
+      throw Error(Peek(), fmt::format("{}: unexpected {} after the choke's points; separate "
+                                      "points with commas",
+                                      context, Quote(Peek())));
+    }
+    return choke;
+  }
+  std::map<std::string, Token> given;
+  while (Peek().kind != TokenKind::kEnd) {
+    const Token& word = Peek();
+    if (word.kind != TokenKind::kName ||
+        (word.text != "turns" && word.text != "al" && word.text != "q")) {
+      throw Error(word, fmt::format("{}: unexpected {} in the choke; give {}", context, Quote(word),
+                                    usage));
+    }
+    if (given.count(word.text) != 0) {
+      throw Error(word, fmt::format("{}: {} is given twice", context, word.text));
+    }
+    given.emplace(word.text, word);
+    Next();
+    ExpectPunct("=", context, fmt::format("'=' after {}", word.text));
+    const Measured m = Expression();
+    const std::string what = fmt::format("{}: choke {}", context, word.text);
+    if (word.text == "turns") {
+      choke.turns = Plain(m, what, "a number of turns through the core");
+      if (!(choke.turns >= 1.0)) {
+        throw Error(m.start, fmt::format("{}: the choke needs at least 1 turn; got {}", context,
+                                         FormatNumber(choke.turns)));
+      }
+      InRange(ValueKind::kTransformerTurns, choke.turns, m, what);
+    } else if (word.text == "al") {
+      if (m.value.dimension == kInductance) {
+        choke.al_nh = m.value.si / 1e-9;
+      } else if (m.value.dimension.IsNone()) {
+        choke.al_nh = m.value.si;
+      } else {
+        throw Error(m.start, fmt::format("{}: al needs A_L in nH/turn^2 (a plain number, or "
+                                         "with nH); got {}",
+                                         context, Describe(m.value.dimension)));
+      }
+      if (!(choke.al_nh > 0.0)) {
+        throw Error(m.start, fmt::format("{}: al must be positive; got {} nH/turn^2", context,
+                                         FormatNumber(choke.al_nh)));
+      }
+      InRange(ValueKind::kAlNanohenryPerTurn2, choke.al_nh, m, what);
+    } else {
+      const double q = Plain(m, what, "the Q of the choke's inductance");
+      if (!(q > 0.0)) {
+        throw Error(m.start,
+                    fmt::format("{}: q must be positive; got {}", context, FormatNumber(q)));
+      }
+      InRange(ValueKind::kQuality, q, m, what);
+      choke.q = q;
+    }
+  }
+  if (given.count("turns") == 0 || given.count("al") == 0) {
+    throw Expected(context, fmt::format("the choke's {}", usage));
+  }
+  return choke;
+}
+
+// One `(F, R, X)` point of a choke's impedance: a frequency, a resistance (not negative) and a
+// reactance (either sign).
+ChokePoint Parser::ChokeTablePoint(const std::string& context) {
+  ExpectPunct("(", context, "'(' before a choke point (F, R, X)");
+  ChokePoint point;
+  const Measured f = Expression();
+  point.frequency_hz = As(f, FrequencyQuantity(), 1.0, context + ": choke point frequency");
+  if (!(point.frequency_hz > 0.0)) {
+    throw Error(f.start, fmt::format("{}: a choke point's frequency must be positive; got {} Hz",
+                                     context, FormatNumber(point.frequency_hz)));
+  }
+  InRange(ValueKind::kFrequencyHz, point.frequency_hz, f, context + ": choke point frequency");
+  ExpectPunct(",", context, "',' after the frequency (F, R, X)");
+  const Measured r = Expression();
+  point.resistance_ohm = As(r, ResistanceQuantity(), 1.0, context + ": choke point R");
+  if (point.resistance_ohm < 0.0) {
+    throw Error(r.start, fmt::format("{}: a choke point's R must not be negative; got {} ohm",
+                                     context, FormatNumber(point.resistance_ohm)));
+  }
+  InRange(ValueKind::kResistanceOhm, point.resistance_ohm, r, context + ": choke point R");
+  ExpectPunct(",", context, "',' after R (F, R, X)");
+  const Measured x = Expression();
+  point.reactance_ohm = As(x, ResistanceQuantity(), 1.0, context + ": choke point X");
+  InRange(ValueKind::kResistanceOhm, std::abs(point.reactance_ohm), x, context + ": choke point X");
+  ExpectPunct(")", context, "')' after X (F, R, X)");
+  return point;
 }
 
 // `close-wound` at Peek(): three tokens written without spaces.

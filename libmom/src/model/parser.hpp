@@ -174,6 +174,8 @@ class Parser {
   void Feed(const Token& keyword);
   void Load(const Token& keyword);
   CoilSpec CoilClauses(const std::string& context);
+  ChokeSpec ChokeClauses(const std::string& context);
+  ChokePoint ChokeTablePoint(const std::string& context);
   CoilSpec CheckCoil(const std::string& context, CoilSpec coil,
                      const std::map<std::string, Token>& given, std::optional<double> target_h);
   bool IsCloseWound() const;

@@ -176,8 +176,8 @@ StressResult ComputeStress(const Model& model, const SolveResult& solved,
     ls.voltage_v = FromPeak(load.open ? 0.0 : std::abs(load.voltage_v) * s);
     ls.power_w = load.power_w * s * s;
     if (spec != nullptr && !load.open) {
-      ls.has_coil_or_other = spec->coil.has_value() || spec->resistance_ohm.has_value() ||
-                             spec->inductance_h.has_value();
+      ls.has_coil_or_other = spec->coil.has_value() || spec->choke.has_value() ||
+                             spec->resistance_ohm.has_value() || spec->inductance_h.has_value();
       if (spec->capacitance_f && !spec->coil) {
         const bool series = spec->topology == LoadTopology::kSeries;
         ls.capacitor_voltage_v =

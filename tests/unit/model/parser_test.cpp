@@ -510,7 +510,7 @@ TEST(ParseError, MissingArgumentsAreNamed) {
             "Z) radius R)");
   EXPECT_EQ(ErrorOf(kKit + "feed f2\n"), "kit.wire:3:8: error: feed 'f2': missing 'at WIRE@POS'");
   EXPECT_EQ(ErrorOf(kKit + "load x at dip@50%\n"),
-            "kit.wire:3:18: error: load 'x': missing 'series' or 'parallel'");
+            "kit.wire:3:18: error: load 'x': missing 'series', 'parallel', 'coil' or 'choke'");
   EXPECT_EQ(ErrorOf(kKit + "units\n"),
             "kit.wire:3:6: error: units: missing the length unit (m, cm, mm, ft or in)");
   EXPECT_EQ(ErrorOf("let a =\n"),
