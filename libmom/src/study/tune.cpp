@@ -119,7 +119,8 @@ class Trials {
       if (seen[t.variable]++ > 0) {
         throw InputError(
             SourceLocation{"variable", 0, 0},
-            fmt::format("'{}' is varied twice; give each --vary its own variable", t.variable));
+            fmt::format("'{}' is varied twice; give each target (`variable`) its own variable",
+                        t.variable));
       }
       const bool named = !it->unit.empty();
       const bool plain = it->dimension == std::array<int, 4>{};
@@ -151,7 +152,7 @@ class Trials {
     std::vector<Override> overrides = fixed_;
     for (size_t k = 0; k < specs_.size(); ++k) {
       overrides.push_back(
-          Override{specs_[k].name, OverrideText(specs_[k], k == i ? value_si : values_[k])});
+          Override{specs_[k].name, OverrideText(specs_[k], k == i ? value_si : values_[k]), ""});
     }
     Model model = ParseModelText(text_, file_, overrides);
     if (options_.z0_ohm) model.z0_ohm = options_.z0_ohm;
@@ -354,12 +355,12 @@ std::vector<Root> RootsOf(Trials& trials, size_t i, double frequency_hz,
   }
   if (!other_kind.empty()) {
     message += fmt::format(
-        "; a {} resonance lies at {} = {} (--kind {} takes it)", ToString(other_kind.front().kind),
+        "; a {} resonance lies at {} = {} (`kind` {} takes it)", ToString(other_kind.front().kind),
         spec.name, ShowValue(spec, other_kind.front().value_si), ToString(other_kind.front().kind));
   }
-  message += "; widen --min/--max, check --target";
-  if (kind != ResonanceKind::kAuto) message += " and --kind";
-  message += ", or use --goal min-swr";
+  message += "; widen `min_si`/`max_si`, check `frequency_hz`";
+  if (kind != ResonanceKind::kAuto) message += " and `kind`";
+  message += ", or use `goal` min-swr";
   throw InputError(spec.location, message);
 }
 
