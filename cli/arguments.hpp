@@ -91,13 +91,16 @@ InputError AboutFlag(const InputError& error, const std::vector<FieldFlag>& fiel
 // The text with every field it names in backquotes (`min_si`) said as its flag (--min).
 std::string SayFlags(std::string text, const std::vector<FieldFlag>& fields);
 
-// Runs `work`, its InputErrors said about the flags of their fields (AboutFlag).
+// Runs `work`, its InputErrors said about the flags of their fields (AboutFlag) and its
+// ComputationErrors with their fields in backquotes said as flags (SayFlags).
 template <typename Work>
 decltype(auto) NamingFlags(const std::vector<FieldFlag>& fields, Work&& work) {
   try {
     return work();
   } catch (const InputError& error) {
     throw AboutFlag(error, fields);
+  } catch (const ComputationError& error) {
+    throw ComputationError(SayFlags(error.what(), fields));
   }
 }
 

@@ -17,6 +17,7 @@
 #include "cli/program_runner.hpp"
 #include "output_files.hpp"
 #include "wirefield/batch.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield::cli_test {
 namespace {

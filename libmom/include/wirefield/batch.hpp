@@ -272,21 +272,4 @@ BatchSummary SummarizeBatch(const BatchResult& result, std::optional<int> band =
 // the reports then show and summarise each band on its own.
 bool BatchHasBandPatterns(const BatchResult& result);
 
-// Reports. Every number is checked to be finite first (ComputationError otherwise).
-// A table with units in its headers, the failed rows with their reasons, the summary and a
-// safety note.
-std::string FormatBatchText(const BatchResult& result);
-// One JSON document: {"model", "rows": [...], "summary", ...} (keys in docs/commands.md).
-std::string FormatBatchJson(const BatchResult& result);
-// One CSV row per grid row (failed rows too, with their error), header row with units.
-std::string FormatBatchCsv(const BatchResult& result);
-// FormatBatchCsv in pieces, for rows that stream (BatchOptions::row_sink): the header line,
-// then one line per row (the row is checked to be finite first).
-std::string FormatBatchCsvHeader(const BatchResult& result);
-std::string FormatBatchCsvRow(const BatchResult& result, const BatchRow& row);
-// The text report of a run whose rows streamed to the CSV file csv_path (BatchOptions::
-// row_sink): the grid, the count of rows and failures, the warnings and the safety note; no
-// table and no summary, which would need every row.
-std::string FormatBatchStreamedText(const BatchResult& result, const std::string& csv_path);
-
 }  // namespace wirefield

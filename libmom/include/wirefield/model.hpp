@@ -259,7 +259,7 @@ struct Override {
   std::string expression;
   // Where the value comes from, named as the "file" of its errors (the command line gives
   // "--set NAME"); empty: "override NAME".
-  std::string origin;
+  std::string origin = {};
 };
 
 // Reads and parses a model file. Throws InputError for any defect of the input.

@@ -529,7 +529,8 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
   const auto start = std::chrono::steady_clock::now();
   if (targets.empty()) {
     throw InputError(SourceLocation{"variable", 0, 0},
-                     "give the variable to tune and its frequency: --vary NAME --target F");
+                     "give a target: the variable to tune (`variable`) and its frequency "
+                     "(`frequency_hz`)");
   }
   options.Validate();
   auto progress = [&](const std::string& line) {
@@ -557,9 +558,9 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
           SourceLocation{t.min_si || t.max_si ? "min_si" : "variable", 0, 0},
           spec.value_si == 0.0 && !t.min_si && !t.max_si
               ? fmt::format("'{}' is 0 in the model, so the default bounds (-/+{:g}% of it) are "
-                            "empty; give --min and --max",
+                            "empty; give `min_si` and `max_si`",
                             spec.name, options.default_span * 100)
-              : fmt::format("the bounds of '{}' must have --min below --max; got {} to {}",
+              : fmt::format("the bounds of '{}' must have `min_si` below `max_si`; got {} to {}",
                             spec.name, ShowValue(spec, low), ShowValue(spec, high)));
     }
     bounds.emplace_back(low, high);
@@ -627,7 +628,7 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     throw ComputationError(fmt::format(
         "tune: the {} variables did not settle within {:g} (relative) after {} alternations "
         "(last values {}); the variables may act on both targets alike: choose variables that "
-        "each set one band, or narrow --min/--max",
+        "each set one band, or narrow `min_si`/`max_si`",
         targets.size(), options.tolerance, options.max_iterations, where));
   }
 

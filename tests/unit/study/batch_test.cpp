@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "unit/error_text.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace {
