@@ -351,8 +351,11 @@ void RegisterAll(const std::vector<int>& sizes) {
         fmt::format("batch20/{}", interpolate ? "interpolated" : "exact").c_str(),
         [interpolate](benchmark::State& state) {
           wirefield::BatchOptions options;
-          options.grounds = wirefield::ParseGroundList("free,perfect,average,very_dry");
-          options.variables.push_back(wirefield::ParseVary("len=9.9m:10.3m:0.1m"));
+          for (const char* ground : {"free", "perfect", "average", "very_dry"}) {
+            options.grounds.push_back(*wirefield::BatchGroundNamed(ground, "grounds"));
+          }
+          options.variables.push_back(
+              wirefield::BatchVariableFromRange("len", "9.9m", "10.3m", "0.1m"));
           options.spans.push_back(
               {"range", wirefield::FrequencyRange(14.0e6, 14.35e6, 10e3), "10 kHz steps"});
           options.interpolate = interpolate;

@@ -2,11 +2,14 @@
 #include "arguments.hpp"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <cerrno>
 #include <cmath>
 #include <cstdlib>
 #include <utility>
+
+#include "wirefield/names.hpp"
 
 namespace wirefield::cli {
 namespace {
@@ -25,6 +28,23 @@ void TrimBlanks(std::string& s) {
   size_t first = 0;
   while (first < s.size() && (s[first] == ' ' || s[first] == '\t')) ++first;
   s.erase(0, first);
+}
+
+std::string Trimmed(std::string s) {
+  TrimBlanks(s);
+  return s;
+}
+
+// The parts of text between separators, each trimmed.
+std::vector<std::string> Split(const std::string& text, char separator) {
+  std::vector<std::string> parts;
+  size_t start = 0;
+  while (true) {
+    const size_t at = text.find(separator, start);
+    parts.push_back(Trimmed(text.substr(start, at == std::string::npos ? at : at - start)));
+    if (at == std::string::npos) return parts;
+    start = at + 1;
+  }
 }
 
 }  // namespace
@@ -170,22 +190,134 @@ std::optional<ResonanceKind> ParseResonanceKind(const std::string& text) {
   return std::nullopt;
 }
 
+std::vector<Override> ParseOverrides(const std::vector<std::string>& texts) {
+  std::vector<Override> overrides;
+  for (const std::string& text : texts) {
+    const size_t eq = text.find('=');
+    if (eq == std::string::npos) {
+      throw InputError({"--set", 0, 0},
+                       fmt::format("expected NAME=VALUE (such as --set height=10m); got '{}'",
+                                   ShortenForMessage(text)));
+    }
+    std::string name = text.substr(0, eq);
+    TrimBlanks(name);
+    if (!IsModelName(name)) {
+      throw InputError({"--set", 0, 0},
+                       fmt::format("'{}' is not a variable name (letters, digits and _, not "
+                                   "starting with a digit); write --set NAME=VALUE",
+                                   ShortenForMessage(name)));
+    }
+    Override o{name, text.substr(eq + 1), "--set " + name};
+    std::string value = o.expression;
+    TrimBlanks(value);
+    if (value.empty()) FailOption(o.origin, "the value is empty; write --set NAME=VALUE");
+    for (const Override& earlier : overrides) {
+      if (earlier.name == name) {
+        throw InputError({o.origin, 0, 0},
+                         "this variable is set twice on the command line; set it once");
+      }
+    }
+    overrides.push_back(std::move(o));
+  }
+  return overrides;
+}
+
+std::vector<BatchGround> ParseGroundList(const std::string& text) {
+  const std::vector<std::string> known = BatchGroundNames();
+  const std::string trimmed = Trimmed(text);
+  std::vector<BatchGround> grounds;
+  if (trimmed == "all") {
+    for (const std::string& name : known) {
+      if (name != "free" && name != "perfect")
+        grounds.push_back(*BatchGroundNamed(name, "--grounds"));
+    }
+    return grounds;
+  }
+  for (const std::string& name : Split(trimmed, ',')) {
+    std::optional<BatchGround> ground = BatchGroundNamed(name, "--grounds");
+    if (!ground && name == "all") {
+      std::vector<std::string> presets(known.begin(), known.end() - 2);
+      FailOption("--grounds",
+                 fmt::format("'all' stands alone: --grounds all runs every ground preset "
+                             "and nothing else; to add free or perfect, list the presets "
+                             "by name: --grounds {},free,perfect",
+                             fmt::join(presets, ",")));
+    }
+    if (!ground) {
+      FailOption("--grounds", fmt::format("unknown ground '{}'{}; use all, or a comma-separated "
+                                          "list of {}",
+                                          ShortenForMessage(name), DidYouMean(name, known),
+                                          fmt::join(known, ", ")));
+    }
+    for (const BatchGround& earlier : grounds) {
+      if (earlier.name == name) {
+        FailOption("--grounds",
+                   fmt::format("ground '{}' is listed twice; list each ground once", name));
+      }
+    }
+    grounds.push_back(std::move(*ground));
+  }
+  return grounds;
+}
+
+BatchVariable ParseVary(const std::string& text) {
+  const size_t eq = text.find('=');
+  if (eq == std::string::npos) {
+    FailOption("--vary", fmt::format("expected NAME=A:B:STEP or NAME=V1,V2,... (such as --vary "
+                                     "length=19.5m:20.5m:0.25m); got '{}'",
+                                     ShortenForMessage(text)));
+  }
+  const std::string name = Trimmed(text.substr(0, eq));
+  if (!IsModelName(name)) {
+    FailOption("--vary", fmt::format("'{}' is not a variable name (letters, digits and _, not "
+                                     "starting with a digit); write --vary NAME=A:B:STEP",
+                                     ShortenForMessage(name)));
+  }
+  const std::string where = "--vary " + name;
+  const std::string body = text.substr(eq + 1);
+  const bool range = body.find(':') != std::string::npos;
+  const std::vector<std::string> parts = Split(body, range ? ':' : ',');
+  for (const std::string& part : parts) {
+    if (part.empty()) {
+      FailOption(where, "a value is empty; write --vary NAME=A:B:STEP or --vary NAME=V1,V2");
+    }
+  }
+  if (!range) return BatchVariableFromValues(name, parts, where);
+  if (parts.size() != 3) {
+    FailOption(where, fmt::format("a range needs three parts A:B:STEP (first, last, step, "
+                                  "such as 19.5m:20.5m:0.25m); got '{}'",
+                                  ShortenForMessage(body)));
+  }
+  return BatchVariableFromRange(name, parts[0], parts[1], parts[2], where);
+}
+
 InputError AboutFlag(const InputError& error, const std::vector<FieldFlag>& fields) {
+  SourceLocation where = error.location();
+  std::string message = error.message();
   const std::string& file = error.location().file;
   for (const FieldFlag& f : fields) {
     const bool same = file == f.field;
     const bool named = file.size() > f.field.size() &&
                        file.compare(0, f.field.size(), f.field) == 0 && file[f.field.size()] == ' ';
     if (!same && !named) continue;
-    SourceLocation where = error.location();
     where.file = std::string(f.flag) + file.substr(f.field.size());
-    std::string message = error.message();
     if (message.compare(0, f.field.size(), f.field) == 0) {
       message = std::string(f.flag) + message.substr(f.field.size());
     }
-    return InputError(where, message);
+    break;
   }
-  return error;
+  return InputError(where, SayFlags(message, fields));
+}
+
+std::string SayFlags(std::string text, const std::vector<FieldFlag>& fields) {
+  for (const FieldFlag& f : fields) {
+    const std::string quoted = fmt::format("`{}`", f.field);
+    for (size_t at = text.find(quoted); at != std::string::npos;
+         at = text.find(quoted, at + f.flag.size())) {
+      text.replace(at, quoted.size(), f.flag);
+    }
+  }
+  return text;
 }
 
 }  // namespace wirefield::cli

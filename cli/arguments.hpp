@@ -9,6 +9,7 @@
 #include <string_view>
 #include <vector>
 
+#include "wirefield/batch.hpp"
 #include "wirefield/wirefield.hpp"
 
 namespace wirefield::cli {
@@ -60,6 +61,21 @@ TransmitMode ParseTransmitMode(const std::string& text, const std::string& optio
 std::optional<TuneGoal> ParseTuneGoal(const std::string& text);
 std::optional<ResonanceKind> ParseResonanceKind(const std::string& text);
 
+// The --set flags, each "NAME=VALUE", as overrides whose errors name "--set NAME". InputError
+// at "--set" when a text has no '=' or its name is not a variable name, at "--set NAME" when
+// the value is empty or a name is set twice.
+std::vector<Override> ParseOverrides(const std::vector<std::string>& texts);
+
+// A --grounds list: "all" (every ground preset) or comma-separated names, each a ground preset,
+// "free" or "perfect". InputError (file "--grounds") listing the names for an unknown or
+// repeated name.
+std::vector<BatchGround> ParseGroundList(const std::string& text);
+
+// A --vary NAME=A:B:STEP (A, A+STEP, ... up to B) or NAME=V1,V2,... , each value a constant of
+// the model language with its unit (19.5m, 7.1MHz, 2.5). InputError (file "--vary" or
+// "--vary NAME") saying what to change.
+BatchVariable ParseVary(const std::string& text);
+
 // A field of a library options struct and the flag that sets it.
 struct FieldFlag {
   std::string_view field;  // "step_deg", or the start of a file name: "variables NAME"
@@ -68,16 +84,23 @@ struct FieldFlag {
 
 // The error, said about the flag of its field when its file is one of the fields (or begins
 // with one and a space): the flag becomes the file, and a message that begins with the field's
-// name begins with the flag's instead. Else the error unchanged.
+// name begins with the flag's instead. A field the message names in backquotes (`min_si`),
+// whatever the file, becomes its flag (--min). Else the error unchanged.
 InputError AboutFlag(const InputError& error, const std::vector<FieldFlag>& fields);
 
-// Runs `work`, its InputErrors said about the flags of their fields (AboutFlag).
+// The text with every field it names in backquotes (`min_si`) said as its flag (--min).
+std::string SayFlags(std::string text, const std::vector<FieldFlag>& fields);
+
+// Runs `work`, its InputErrors said about the flags of their fields (AboutFlag) and its
+// ComputationErrors with their fields in backquotes said as flags (SayFlags).
 template <typename Work>
 decltype(auto) NamingFlags(const std::vector<FieldFlag>& fields, Work&& work) {
   try {
     return work();
   } catch (const InputError& error) {
     throw AboutFlag(error, fields);
+  } catch (const ComputationError& error) {
+    throw ComputationError(SayFlags(error.what(), fields));
   }
 }
 

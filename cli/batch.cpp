@@ -130,10 +130,10 @@ void ShowProgress(int done, int total) {
 }
 
 // The fields of BatchOptions and the flags that set them.
-const std::vector<FieldFlag> kBatchFlags{{"variables", "--vary"},
-                                         {"pattern_step_deg", "--pattern-step"},
-                                         {"elevation_deg", "--elevation"},
-                                         {"at_hz", "--at"}};
+const std::vector<FieldFlag> kBatchFlags{
+    {"variables", "--vary"},          {"fixed_overrides", "--set"},
+    {"allow_large", "--yes-large"},   {"pattern_step_deg", "--pattern-step"},
+    {"elevation_deg", "--elevation"}, {"at_hz", "--at"}};
 
 int RunBatchCommand(const BatchFlags& flags) {
   // Check every flag before the file read and the rows.
@@ -142,9 +142,7 @@ int RunBatchCommand(const BatchFlags& flags) {
   options.spans = ChosenSpans(flags.frequencies, "batch", ChosenRegion(flags.frequencies), bands);
   if (flags.grounds.given()) options.grounds = ParseGroundList(flags.grounds.text);
   for (const std::string& text : flags.vary) options.variables.push_back(ParseVary(text));
-  for (const std::string& text : flags.model.overrides) {
-    options.fixed_overrides.push_back(ParseOverride(text));
-  }
+  options.fixed_overrides = ParseOverrides(flags.model.overrides);
   if (Given(flags.model.z0_option)) {
     options.z0_ohm = ParseResistanceArgument(flags.model.z0, "--z0");
   }

@@ -212,6 +212,11 @@ void AddPowerFlags(CLI::App& command, PowerFlags& flags) {
       "kV. Default: 2kV.");
 }
 
+// The fields of StressOptions and the flags that set them.
+const std::vector<FieldFlag> kStressFlags{{"power_w", "--power"},
+                                          {"capacitor_rating_v", "--rating-cap"},
+                                          {"load_rating_v", "--rating-load"}};
+
 std::optional<StressOptions> ChosenStress(const PowerFlags& flags) {
   if (!Given(flags.power_option)) {
     for (const CLI::Option* option : {flags.rating_cap_option, flags.rating_load_option}) {
@@ -232,11 +237,14 @@ std::optional<StressOptions> ChosenStress(const PowerFlags& flags) {
   if (Given(flags.rating_load_option)) {
     options.load_rating_v = ParseVoltageArgument(flags.rating_load, "--rating-load");
   }
-  NamingFlags({{"power_w", "--power"},
-               {"capacitor_rating_v", "--rating-cap"},
-               {"load_rating_v", "--rating-load"}},
-              [&] { options.Validate(); });
+  NamingFlags(kStressFlags, [&] { options.Validate(); });
   return options;
+}
+
+StressResult StressAt(const Model& model, const SolveResult& solved, const StressOptions& options) {
+  StressResult stress = ComputeStress(model, solved, options);
+  for (std::string& caution : stress.cautions) caution = SayFlags(caution, kStressFlags);
+  return stress;
 }
 
 std::optional<double> FrequencyFlag(const ModelFlags& flags) {
@@ -249,10 +257,7 @@ Model LoadModel(const ModelFlags& flags) {
   if (flags.z0_option != nullptr && flags.z0_option->count() > 0) {
     z0_ohm = ParseResistanceArgument(flags.z0, "--z0");
   }
-  std::vector<Override> overrides;
-  overrides.reserve(flags.overrides.size());
-  for (const std::string& text : flags.overrides) overrides.push_back(ParseOverride(text));
-  Model model = ParseModelFile(flags.model_path, overrides);
+  Model model = ParseModelFile(flags.model_path, ParseOverrides(flags.overrides));
   if (z0_ohm) model.z0_ohm = z0_ohm;
   return model;
 }

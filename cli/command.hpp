@@ -158,6 +158,8 @@ void AddPowerFlags(CLI::App& command, PowerFlags& flags);
 // The stress options of --power, empty without it. InputError for a malformed or
 // non-positive value, or for a rating given without --power.
 std::optional<StressOptions> ChosenStress(const PowerFlags& flags);
+// The stress of a solved model (ComputeStress), its cautions naming the flags of the ratings.
+StressResult StressAt(const Model& model, const SolveResult& solved, const StressOptions& options);
 
 // The commands, one file each.
 Command AddSolveCommand(CLI::App& program);

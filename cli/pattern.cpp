@@ -118,7 +118,7 @@ int RunPattern(const PatternFlags& flags) {
   std::optional<StressResult> stress;
   std::optional<ExposureResult> exposure;
   if (stress_options) {
-    stress = ComputeStress(simulation.model(), solved, *stress_options);
+    stress = StressAt(simulation.model(), solved, *stress_options);
     exposure = EstimateExposure(frequency_hz, pattern.max_gain_dbi, *exposure_options);
   }
   const StressResult* stress_shown = stress ? &*stress : nullptr;

@@ -40,7 +40,7 @@ int RunSolve(const SolveFlags& all) {
                                                   : SolveWithMeshEstimate(simulation, frequency_hz);
   if (result.mesh_estimate) PrintWarnings(result.mesh_estimate->warnings);
   std::optional<StressResult> stress;
-  if (stress_options) stress = ComputeStress(simulation.model(), result, *stress_options);
+  if (stress_options) stress = StressAt(simulation.model(), result, *stress_options);
   const StressResult* shown = stress ? &*stress : nullptr;
   // Format in full before writing, so a failure never leaves half a document on stdout.
   const std::string output = flags.json ? FormatSolveJson(simulation, result, shown)

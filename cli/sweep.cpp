@@ -15,7 +15,7 @@
 
 #include "command.hpp"
 #include "wirefield/bands.hpp"
-#include "wirefield/sweep_report.hpp"
+#include "wirefield/report.hpp"
 #include "wirefield/touchstone.hpp"
 
 namespace wirefield::cli {

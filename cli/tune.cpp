@@ -39,6 +39,11 @@ struct TuneFlags {
   bool no_mesh_estimate = false;
 };
 
+// The fields of TuneTarget and TuneOptions and the flags that set them.
+const std::vector<FieldFlag> kTuneFlags{{"variable", "--vary"}, {"frequency_hz", "--target"},
+                                        {"min_si", "--min"},    {"max_si", "--max"},
+                                        {"kind", "--kind"},     {"goal", "--goal"}};
+
 int RunTune(const TuneFlags& flags) {
   // Check every flag before the model is read and the (possibly long) tune starts.
   if (flags.vary.size() != flags.target.size()) {
@@ -82,9 +87,7 @@ int RunTune(const TuneFlags& flags) {
   if (Given(flags.model.z0_option)) {
     options.z0_ohm = ParseResistanceArgument(flags.model.z0, "--z0");
   }
-  for (const std::string& text : flags.model.overrides) {
-    options.overrides.push_back(ParseOverride(text));
-  }
+  options.overrides = ParseOverrides(flags.model.overrides);
 
   // The bounds take the unit of their variable, so they are read against the model.
   const std::string text = ReadModelFileText(flags.model.model_path);
@@ -105,8 +108,7 @@ int RunTune(const TuneFlags& flags) {
     };
   }
   const TuneResult result =
-      NamingFlags({{"variable", "--vary"}, {"frequency_hz", "--target"}, {"min_si", "--min"}},
-                  [&] { return Tune(text, flags.model.model_path, targets, options); });
+      NamingFlags(kTuneFlags, [&] { return Tune(text, flags.model.model_path, targets, options); });
   PrintWarnings(result.warnings);
   WriteStdout(flags.model.json ? FormatTuneJson(result) : FormatTuneText(result));
   return 0;

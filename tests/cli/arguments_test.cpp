@@ -81,6 +81,37 @@ TEST(TuneArguments, GoalAndKindReadTheirOwnSpellingsOnly) {
   EXPECT_FALSE(ParseResonanceKind("Parallel").has_value());
 }
 
+TEST(SetFlag, SplitsNameAndValueAtTheFirstEqualsAndNamesTheFlagAsOrigin) {
+  const std::vector<Override> o = ParseOverrides({"L=10.2m", " ratio =a=b"});
+  ASSERT_EQ(o.size(), 2u);
+  EXPECT_EQ(o[0].name, "L");
+  EXPECT_EQ(o[0].expression, "10.2m");
+  EXPECT_EQ(o[0].origin, "--set L");
+  EXPECT_EQ(o[1].name, "ratio");
+  EXPECT_EQ(o[1].expression, "a=b");
+}
+
+TEST(SetFlag, ErrorsSayWhatToWrite) {
+  EXPECT_EQ(testing::ErrorText([] { ParseOverrides({"height"}); }),
+            "--set: error: expected NAME=VALUE (such as --set height=10m); got 'height'");
+  EXPECT_EQ(testing::ErrorText([] { ParseOverrides({"2h=3"}); }),
+            "--set: error: '2h' is not a variable name (letters, digits and _, not "
+            "starting with a digit); write --set NAME=VALUE");
+  EXPECT_EQ(testing::ErrorText([] { ParseOverrides({"h="}); }),
+            "--set h:1:1: error: the value is empty; write --set NAME=VALUE");
+  EXPECT_EQ(testing::ErrorText([] {
+              ParseOverrides({"h=1", "h=2"});
+            }),
+            "--set h: error: this variable is set twice on the command line; set it once");
+}
+
+TEST(AboutFlag, FieldsInBackquotesBecomeTheirFlags) {
+  // The library names the fields it advises on in backquotes; the program says its flags.
+  const InputError error({"model.wire", 3, 1}, "widen `min_si`/`max_si`, or use `goal` min-swr");
+  EXPECT_EQ(AboutFlag(error, {{"min_si", "--min"}, {"max_si", "--max"}, {"goal", "--goal"}}).what(),
+            std::string("model.wire:3:1: error: widen --min/--max, or use --goal min-swr"));
+}
+
 TEST(AboutFlag, AFieldsErrorIsSaidAboutItsFlag) {
   PatternOptions options;
   options.step_deg = 12.0;

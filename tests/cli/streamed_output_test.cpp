@@ -17,6 +17,7 @@
 #include "cli/program_runner.hpp"
 #include "output_files.hpp"
 #include "wirefield/batch.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield::cli_test {
 namespace {
@@ -47,8 +48,8 @@ BatchOptions GridOptions() {
   options.pattern_frequency_hz = 14.2e6;
   options.mesh_estimate = false;
   options.threads = 2;
-  options.variables.push_back(ParseVary("height=3m,5m,8m"));
-  options.variables.push_back(ParseVary("total=9.5m:10.68m:0.02m"));
+  options.variables.push_back(BatchVariableFromValues("height", {"3m", "5m", "8m"}));
+  options.variables.push_back(BatchVariableFromRange("total", "9.5m", "10.68m", "0.02m"));
   return options;
 }
 

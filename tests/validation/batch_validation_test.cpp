@@ -29,7 +29,7 @@ TEST(BatchValidation, ResonanceFallsInProportionToTheDipoleLength) {
   span.name = "range";
   span.frequencies_hz = FrequencyRange(12.0e6, 16.5e6, 0.1e6);  // 46 points
   options.spans.push_back(span);
-  options.variables.push_back(ParseVary("total=9.5m:10.5m:0.5m"));
+  options.variables.push_back(BatchVariableFromRange("total", "9.5m", "10.5m", "0.5m"));
   options.pattern_step_deg = 10.0;
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);
   ASSERT_EQ(result.rows.size(), 3u);

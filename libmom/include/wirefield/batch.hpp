@@ -1,6 +1,6 @@
 // wirefield public API, part 10: one model over a grid of grounds, `let` values and
 // frequencies (the `batch` command). Each grid point (row) re-parses the model with its
-// values as --set overrides, sweeps it and computes one pattern; rows run on worker threads
+// values as overrides, sweeps it and computes one pattern; rows run on worker threads
 // and come back in grid order. Implemented in libmom/src/study/batch_grid.cpp, batch_run.cpp
 // and batch_summary.cpp (reports in libmom/src/report/batch_report.cpp).
 #pragma once
@@ -24,17 +24,18 @@ struct BatchGround {
   std::optional<GroundSpec> spec;
 };
 
-// Parses a --grounds list: "all" (every ground preset) or comma-separated names, each a ground
-// preset, "free" or "perfect". Throws InputError (file "--grounds") listing the names for an
-// unknown or repeated name.
-std::vector<BatchGround> ParseGroundList(const std::string& text);
+// The ground of a grid called `name`: a ground preset, "free" or "perfect", its spec located
+// at `origin` (at 1:1) for the errors it may raise; empty for any other name.
+std::optional<BatchGround> BatchGroundNamed(const std::string& name, const std::string& origin);
+// The names BatchGroundNamed takes: every ground preset, then free and perfect.
+std::vector<std::string> BatchGroundNames();
 
 // One value of a varied `let`.
 struct BatchValue {
   double si = 0.0;         // SI number (m, Hz, ohm, H, F, V, or a plain number)
   std::string label;       // as shown in reports: "19.75m", "7.1MHz", "2.5"
   std::string shown;       // the number of the label alone: "19.75", "7.1", "2.5"
-  std::string expression;  // the --set VALUE applied to the model (exact, SI unit)
+  std::string expression;  // the override applied to the model (exact, SI unit)
 };
 
 // A varied `let` and its values, in the order they are run.
@@ -46,25 +47,34 @@ struct BatchVariable {
   // True for the `model` column of RunBatchFiles: each value is a model's name (its label),
   // not a number (its `si` is 0 and unused), and reports print the name.
   bool names = false;
+  // Where the values come from, named as the "file" of errors about them (the command line
+  // gives "--vary NAME"); empty: "variables NAME".
+  std::string origin;
 };
 
-// The most values one --vary may give (a range finer than this is surely a typing slip).
+// The most values one variable may take (a range finer than this is surely a typing slip).
 inline constexpr int kMaxVaryValues = 10000;
 
-// Parses --vary NAME=A:B:STEP (A, A+STEP, ... up to B inclusive within 1e-9 of a step; A <= B,
-// STEP > 0, all of one quantity) or NAME=V1,V2,... . Each value is a constant of the model
-// language with its unit (19.5m, 7.1MHz, 2.5). Throws InputError (file "--vary" or
-// "--vary NAME") saying what to change.
-BatchVariable ParseVary(const std::string& text);
+// A varied `let` from its values, each a constant of the model language with its unit (19.5m,
+// 7.1MHz, 2.5), all of one quantity; labels in the unit they read best in (MHz, uH, pF).
+// Throws InputError at `origin` (empty: "variables NAME") saying what to change.
+BatchVariable BatchVariableFromValues(const std::string& name,
+                                      const std::vector<std::string>& values,
+                                      const std::string& origin = {});
+// The same for a range: first, first + step, ... up to last, inclusive within 1e-9 of a step
+// (first <= last, step > 0, all of one quantity).
+BatchVariable BatchVariableFromRange(const std::string& name, const std::string& first,
+                                     const std::string& last, const std::string& step,
+                                     const std::string& origin = {});
 
-// Grids larger than this need BatchOptions::allow_large (the CLI's --yes-large).
+// Grids larger than this need BatchOptions::allow_large.
 inline constexpr int kMaxBatchRows = 2000;
-// No grid runs with more rows than this, --yes-large or not: a row's index is an int. At a
+// No grid runs with more rows than this, allow_large or not: a row's index is an int. At a
 // millisecond a row such a grid would run for weeks.
 inline constexpr double kMaxBatchRowsEver = 2147483647.0;
 
 // The rows of a grid, each computed from its index alone, so that no row costs memory before
-// it runs: the ground varies slowest, then each dimension in the order given (the --vary
+// it runs: the ground varies slowest, then each dimension in the order given (the
 // variables; RunBatchFiles puts the models first), the last fastest.
 class BatchGrid {
  public:
@@ -94,7 +104,7 @@ struct BatchOptions {
   // Varied `let`s; the grid is the product of all, the first varying slowest (after the
   // ground, which varies slowest of all).
   std::vector<BatchVariable> variables;
-  // --set overrides applied to every row (a variable may not be both set and varied).
+  // Overrides applied to every row (a variable may not be both set and varied).
   std::vector<Override> fixed_overrides;
   // Reference impedance of the SWR; default the model's z0, else 50 ohm.
   std::optional<double> z0_ohm;
@@ -214,7 +224,7 @@ struct BatchResult {
 double BatchRowCount(const BatchOptions& options);
 
 // Runs the grid over the model text (file_name is for diagnostics). Checks everything it can
-// before any row: the model parses with the --set overrides, every varied name is a `let` of
+// before any row: the model parses with the fixed overrides, every varied name is a `let` of
 // the model, the grid size, the angles; those throw InputError. A row that fails (InputError
 // or ComputationError from parsing, meshing or solving) keeps its reason and the rest go on.
 // When every row fails, throws the first row's error (not when interrupted). progress(done,
@@ -228,15 +238,15 @@ BatchResult RunBatchFile(const std::string& path, const BatchOptions& options,
 
 // Several models over the same grid, compared row by row: the result has a first variable
 // "model" (the file name without its folder and extension, or the path as given when two
-// files share that name; BatchVariable::names) before the --vary ones, so reports
+// files share that name; BatchVariable::names) before the others, so reports
 // and the summary treat each model as a setting ("which shape is best whatever the ground").
-// Every model must accept the same --vary names. One path: RunBatchFile.
+// Every model must accept the same varied names. One path: RunBatchFile.
 BatchResult RunBatchFiles(const std::vector<std::string>& paths, const BatchOptions& options,
                           const std::function<void(int, int)>& progress = {});
 
 // What a user acts on: the best row, and with several grounds how much the ground matters.
 struct BatchSetting {
-  std::vector<std::string> labels;  // the variables' values (empty without --vary)
+  std::vector<std::string> labels;  // the variables' values (empty without variables)
   int rows_ok = 0;                  // rows of this setting that succeeded (one per ground)
   double worst_gain_dbi = 0.0;      // lowest gain at the elevation over the grounds
   std::string worst_ground;
@@ -261,22 +271,5 @@ BatchSummary SummarizeBatch(const BatchResult& result, std::optional<int> band =
 // True when the rows carry a pattern per span (several spans and no fixed pattern frequency):
 // the reports then show and summarise each band on its own.
 bool BatchHasBandPatterns(const BatchResult& result);
-
-// Reports. Every number is checked to be finite first (ComputationError otherwise).
-// A table with units in its headers, the failed rows with their reasons, the summary and a
-// safety note.
-std::string FormatBatchText(const BatchResult& result);
-// One JSON document: {"model", "rows": [...], "summary", ...} (keys in docs/commands.md).
-std::string FormatBatchJson(const BatchResult& result);
-// One CSV row per grid row (failed rows too, with their error), header row with units.
-std::string FormatBatchCsv(const BatchResult& result);
-// FormatBatchCsv in pieces, for rows that stream (BatchOptions::row_sink): the header line,
-// then one line per row (the row is checked to be finite first).
-std::string FormatBatchCsvHeader(const BatchResult& result);
-std::string FormatBatchCsvRow(const BatchResult& result, const BatchRow& row);
-// The text report of a run whose rows streamed to the CSV file csv_path (BatchOptions::
-// row_sink): the grid, the count of rows and failures, the warnings and the safety note; no
-// table and no summary, which would need every row.
-std::string FormatBatchStreamedText(const BatchResult& result, const std::string& csv_path);
 
 }  // namespace wirefield

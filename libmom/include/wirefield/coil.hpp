@@ -89,12 +89,4 @@ std::complex<double> CoilImpedance(const CoilSpec& coil, double frequency_hz);
 inline constexpr double kMaxDesignTurns = 100000.0;
 CoilSpec DesignCoilTurns(CoilSpec coil, double target_inductance_h);
 
-// A readable report of an analysis (with units), and its JSON document (keys carry units:
-// inductance_h, self_capacitance_f, self_resonance_hz, ac_resistance_ohm, q, ...). When
-// target_inductance_h is given the reports say that the turns were designed for it.
-std::string FormatCoilText(const CoilSpec& coil, const CoilAnalysis& analysis,
-                           std::optional<double> target_inductance_h = std::nullopt);
-std::string FormatCoilJson(const CoilSpec& coil, const CoilAnalysis& analysis,
-                           std::optional<double> target_inductance_h = std::nullopt);
-
 }  // namespace wirefield

@@ -272,10 +272,14 @@ struct Model {
   std::vector<VariableSpec> variable_specs;   // the same variables with values, in order
 };
 
-// A --set NAME=VALUE override: VALUE is an expression of the model language.
+// A value given to a `let` from outside the model text (the command line's --set, a grid's
+// row): `expression` is an expression of the model language and replaces the model's own.
 struct Override {
   std::string name;
   std::string expression;
+  // Where the value comes from, named as the "file" of its errors (the command line gives
+  // "--set NAME"); empty: "override NAME".
+  std::string origin = {};
 };
 
 // Reads and parses a model file. Throws InputError for any defect of the input.
@@ -288,9 +292,6 @@ std::string ReadModelFileText(const std::string& path);
 // Parses model text; file_name is used in diagnostics only.
 Model ParseModelText(const std::string& text, const std::string& file_name,
                      const std::vector<Override>& overrides = {});
-
-// Splits "NAME=VALUE" into an Override; throws InputError (file "--set") when malformed.
-Override ParseOverride(const std::string& text);
 
 // The quantities ReadQuantity reads, each an expression of the model language with its unit
 // (a bare number is in the SI unit).

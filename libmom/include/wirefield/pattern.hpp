@@ -7,24 +7,11 @@
 #include <string>
 #include <vector>
 
+#include "wirefield/results.hpp"
 #include "wirefield/simulation.hpp"
 #include "wirefield/stress.hpp"
 
 namespace wirefield {
-
-// Far field in one direction. e_theta_v / e_phi_v are r e^{jkr} E (volts): the field at
-// distance r is that over r. Gains are relative to the power into the feeds (dBi); a gain of
-// no radiation is reported as kNoGainDbi, never minus infinity.
-struct FarFieldPoint {
-  double elevation_deg = 0.0;
-  double azimuth_deg = 0.0;
-  Complex e_theta_v;  // vertical polarization (in the plane of elevation)
-  Complex e_phi_v;    // horizontal polarization
-  double gain_dbi = 0.0;
-  double gain_vertical_dbi = 0.0;
-  double gain_horizontal_dbi = 0.0;
-};
-inline constexpr double kNoGainDbi = -999.0;
 
 // The elevations of the low-angle table, degrees: those that carry long-distance contacts,
 // the ones portable operators compare antennas at (common practice).
@@ -63,76 +50,6 @@ struct PatternOptions {
   void Validate(bool over_ground) const;
 };
 
-// The best gain over azimuth at one elevation: the maximum of the azimuth cut there, on the
-// pattern's grid (the first azimuth of equal ones), with its polarization parts.
-struct DirectionGain {
-  double elevation_deg = 0.0;
-  double azimuth_deg = 0.0;
-  double gain_dbi = 0.0;
-  double gain_vertical_dbi = 0.0;
-  double gain_horizontal_dbi = 0.0;
-};
-
-// Why a cut lies where it does.
-enum class CutChoice {
-  kGiven,               // the options fixed it (--azimuth, --elevation)
-  kStrongestLowAngle,   // elevation cut: through the azimuth of the strongest low-angle gain
-  kTakeoff,             // azimuth cut: at the take-off angle
-  kLowAngleNearZenith,  // azimuth cut: at kLowAzimuthCutElevation_deg, the maximum being
-                        // near the zenith
-};
-
-// One cut: gain against angle (elevation 0..180 through the azimuth of the maximum and its
-// back, or azimuth 0..360 at a fixed elevation).
-struct PatternCut {
-  std::string plane;       // "elevation" or "azimuth"
-  double fixed_angle_deg;  // the azimuth (elevation cut) or elevation (azimuth cut) held fixed
-  std::vector<double> angle_deg;
-  std::vector<double> gain_dbi;
-  std::vector<double> gain_vertical_dbi;
-  std::vector<double> gain_horizontal_dbi;
-  std::optional<double> beamwidth_deg;   // -3 dB width of the main lobe, when it closes
-  CutChoice choice = CutChoice::kGiven;  // why fixed_angle_deg is what it is
-};
-
-// Where the power goes. input = sum of 0.5 Re(V I*) over feeds.
-struct PowerBudget {
-  double input_w = 0.0;
-  double radiated_w = 0.0;  // integrated over the sphere (free) or the upper half-space
-  double loads_w = 0.0;
-  double wires_w = 0.0;
-  // Over a real ground: the power the ground absorbs, input - radiated - loads - wires (the
-  // balance cannot be checked then, and balance_error is 0). 0 otherwise.
-  double ground_w = 0.0;
-  // radiated / input, at most 1: a lossless antenna cannot radiate more than it takes in, and
-  // a ratio above 1 is the discretization's power-balance error (see efficiency_note).
-  double efficiency = 0.0;
-  double efficiency_computed = 0.0;  // radiated / input as computed, before the clamp to 1
-  // Why efficiency is not efficiency_computed: empty unless the ratio came out more than
-  // 0.005% above 1 (below that the clamp does not change the printed percentage).
-  std::string efficiency_note;
-  double balance_error = 0.0;  // (radiated + loads + wires - input) / input
-};
-
-struct PatternResult {
-  double frequency_hz = 0.0;
-  double step_deg = 1.0;  // used
-  double max_gain_dbi = 0.0;
-  double max_gain_elevation_deg = 0.0;
-  double max_gain_azimuth_deg = 0.0;
-  double max_gain_vertical_dbi = 0.0;  // the polarization parts in the direction of the maximum
-  double max_gain_horizontal_dbi = 0.0;
-  double takeoff_elevation_deg = 0.0;  // elevation of maximum radiation
-  // The best gain over azimuth at each of kLowAngleElevations_deg, in that order.
-  std::vector<DirectionGain> low_angle;
-  PatternCut elevation_cut;
-  PatternCut azimuth_cut;
-  std::optional<double> front_to_back_db;  // when the azimuth cut has a clear front
-  std::optional<double> front_to_side_db;
-  PowerBudget power;
-  std::vector<Warning> warnings;  // e.g. power balance off by more than 2%
-};
-
 // The far field of a solved model in one direction.
 FarFieldPoint FarField(const Simulation& simulation, const SolveResult& solved,
                        double elevation_deg, double azimuth_deg);
@@ -145,18 +62,5 @@ DirectionGain BestOverAzimuth(const PatternCut& azimuth_cut);
 // Gain search, cuts, figures of merit and the power budget.
 PatternResult ComputePattern(const Simulation& simulation, const SolveResult& solved,
                              const PatternOptions& options = {});
-
-// Reports (the command-line program prints these).
-// With `stress` and `exposure` (a --power run), their sections (text) or keys "stress" and
-// "exposure" (JSON).
-std::string FormatPatternText(const Simulation& simulation, const PatternResult& pattern,
-                              const StressResult* stress = nullptr,
-                              const ExposureResult* exposure = nullptr);
-std::string FormatPatternJson(const Simulation& simulation, const PatternResult& pattern,
-                              const StressResult* stress = nullptr,
-                              const ExposureResult* exposure = nullptr);
-std::string FormatPatternCsv(const PatternResult& pattern);
-// Two polar plots (elevation and azimuth cut, dB scale) as one self-contained SVG document.
-std::string FormatPatternSvg(const Simulation& simulation, const PatternResult& pattern);
 
 }  // namespace wirefield

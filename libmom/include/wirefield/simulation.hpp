@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "wirefield/model.hpp"
+#include "wirefield/results.hpp"
 
 namespace wirefield {
 
@@ -35,100 +36,6 @@ struct SimulationOptions {
   // Threads that fill the matrix in Solve(frequency). Default 0: one per core. The result is
   // the same, bit for bit, for any count (the fill is cut into fixed blocks).
   int fill_threads = 0;
-};
-
-struct FeedResult {
-  std::string name;
-  Complex impedance_ohm;  // at the feed's terminals
-  Complex current_a;      // peak phasor, into the antenna
-  Complex voltage_v;      // the source voltage
-  double swr = 0.0;       // at the transmitter (see below), against z0_ohm
-  double z0_ohm = kDefaultZ0Ohm;
-  double power_w = 0.0;  // 0.5 Re(V I*): power delivered to the antenna terminals
-  // At the antenna terminals: the SWR of impedance_ohm against z0_ohm.
-  double antenna_swr = 0.0;
-  // Whether a transformer or a feed line sits between the feed and the transmitter.
-  bool has_transformer = false;
-  bool has_line = false;
-  // At the transmitter, through the feed's transformer and line (equal to the terminals'
-  // values when the feed has neither). swr above is against z0_ohm at this point.
-  Complex transmitter_impedance_ohm;
-  double return_loss_db = 0.0;
-  // Shares of the transmitter's power lost in the transformer and the line (0..1).
-  double transformer_loss_fraction = 0.0;
-  double line_loss_fraction = 0.0;
-  // Powers at the solved excitation, W: what the transmitter delivers into the chain (power_w
-  // plus the two losses), and what the line and the transformer dissipate.
-  double transmitter_power_w = 0.0;
-  double line_loss_w = 0.0;
-  double transformer_loss_w = 0.0;
-  // How far impedance_ohm may be from the converged (infinitely fine mesh) value, ohm, from
-  // coarser solves of the same model (EstimateMeshError); empty when not estimated.
-  std::optional<double> mesh_error_ohm;
-};
-
-struct LoadResult {
-  std::string name;
-  Complex impedance_ohm;  // of the lumped element at this frequency
-  Complex current_a;      // peak phasor through the load
-  Complex voltage_v;      // peak phasor across the load, I * Z
-  double power_w = 0.0;   // 0.5 |I|^2 Re(Z)
-  bool open = false;      // true when the element is an ideal open circuit at this frequency
-};
-
-// Current on one segment (peak phasors, positive along the segment from its start to its
-// end). The current is linear along the segment, from current_start_a to current_end_a.
-struct SegmentCurrent {
-  int wire = 0;  // index into Model::wires
-  Point start_m{};
-  Point end_m{};
-  Complex current_a;  // at the centre
-  Complex current_start_a;
-  Complex current_end_a;
-};
-
-// A discretisation estimate of the feed impedances (docs/numerics.md, "Mesh error estimate"):
-// the model solved again with half and a quarter of the segments on every wire, and Richardson
-// extrapolation with the observed order of convergence (Roache's grid convergence index).
-struct FeedMeshError {
-  double error_ohm = 0.0;  // estimated |Z - Z_converged| of the feed's terminal impedance
-  // Observed order p of |Z_N - Z_N/2| ~ h^p; 0 when not observed (two levels only).
-  double observed_order = 0.0;
-  // True when p lay in the range where the extrapolation is trusted; false: the conservative
-  // fallback estimate (docs/numerics.md).
-  bool asymptotic = false;
-  Complex half_mesh_impedance_ohm;     // with half the segments
-  Complex quarter_mesh_impedance_ohm;  // with a quarter (equal to half's with two levels)
-};
-
-struct MeshEstimate {
-  std::vector<FeedMeshError> feeds;  // in the order of SolveResult::feeds
-  int segments = 0;                  // of the mesh estimated
-  int half_segments = 0;             // of the coarser meshes
-  int quarter_segments = 0;          // 0 with two levels only
-  double time_s = 0.0;               // the coarser meshes and solves
-  // What limits the estimate (a wire too short to halve, an order outside the trusted range).
-  std::vector<std::string> notes;
-  // An estimate above 2% of |Z|, saying what to change.
-  std::vector<Warning> warnings;
-};
-
-struct SolveResult {
-  double frequency_hz = 0.0;
-  int unknowns = 0;
-  int segments = 0;
-  std::vector<FeedResult> feeds;
-  std::vector<LoadResult> loads;
-  std::vector<SegmentCurrent> currents;
-  double wire_loss_w = 0.0;  // power dissipated in lossy conductors (skin effect), W
-  // Condition number of the moment-method matrix in the 1-norm, estimated from its LU
-  // factors (1 / LAPACK zgecon's rcond): each decade of it costs a digit of the currents'
-  // 16. The solve refuses the model above 1e14 (ComputationError).
-  double condition_number = 0.0;
-  double relative_residual = 0.0;  // |Z I - V| / |V| of the solved system
-  double fill_time_s = 0.0;
-  double solve_time_s = 0.0;
-  std::optional<MeshEstimate> mesh_estimate;  // set by EstimateMeshError
 };
 
 class Simulation {
@@ -176,16 +83,6 @@ SolveResult SolveWithMeshEstimate(const Simulation& simulation, double frequency
 // quarter of the segments per wire and filled anew (about a third of a fill more).
 void EstimateMeshError(const Simulation& simulation, SolveResult* result, int fill_threads = 0);
 
-// The first feed at one frequency with its mesh estimate (Solve, then EstimateMeshError): what a
-// sweep reports at each band's centre and a batch row at its first span's centre.
-struct FeedMeshEstimateAt {
-  std::string label;  // the band's name, "range", ... (the caller's)
-  double frequency_hz = 0.0;
-  Complex z_ohm;  // at the first feed's terminals, an exact fill
-  std::optional<double> mesh_error_ohm;
-  std::vector<std::string> notes;
-  std::vector<Warning> warnings;  // an estimate above 2% of |Z|
-};
 FeedMeshEstimateAt EstimateFirstFeedAt(const Simulation& simulation, double frequency_hz,
                                        const std::string& label, int fill_threads = 0);
 

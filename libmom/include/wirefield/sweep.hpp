@@ -30,6 +30,11 @@ struct SweepOptions {
   // the relative residual stays under 1e-8 (SweepResult::projected_points), which saves most
   // of the solve time; false turns this off too.
   bool interpolate = true;
+
+  // Checks the fields against their bounds (threads not negative, the stress options' own
+  // Validate); throws InputError (file: the field's name, at 1:1) whose message begins with
+  // that name and states the bound. RunSweep calls it first.
+  void Validate() const;
 };
 
 struct SweepPoint {

@@ -137,10 +137,4 @@ TuneResult TuneFile(const std::string& path, const std::vector<TuneTarget>& targ
 std::optional<double> FindResonanceNear(const Simulation& simulation, double frequency_hz,
                                         ResonanceKind kind, int* solves = nullptr);
 
-// The text report: each variable's value with its unit, the impedance and SWR at the target,
-// the sensitivity (kHz per cm, per uH or per pF) and a trimming hint, with a safety caution.
-std::string FormatTuneText(const TuneResult& result);
-// The JSON document of `tune` (docs/commands.md); every number finite.
-std::string FormatTuneJson(const TuneResult& result);
-
 }  // namespace wirefield

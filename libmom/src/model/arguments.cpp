@@ -1,7 +1,6 @@
-// Model stage: values given as text outside a model file (a quantity, a variable's value, an
-// override NAME=VALUE), read as expressions of the model language so that units work as in a
-// model. Inputs: the text; outputs: SI values or what is wrong with the text (ReadQuantity,
-// ReadVariableValue), overrides or an InputError (ParseOverride).
+// Model stage: values given as text outside a model file (a quantity, a variable's value),
+// read as expressions of the model language so that units work as in a model. Inputs: the
+// text; outputs: SI values or what is wrong with the text (ReadQuantity, ReadVariableValue).
 #include <fmt/format.h>
 
 #include <array>
@@ -71,25 +70,6 @@ ValueReading ReadPositive(const std::string& text, const Quantity& q, ValueKind 
 
 }  // namespace
 }  // namespace model
-
-Override ParseOverride(const std::string& text) {
-  const SourceLocation where{"--set", 0, 0};
-  const size_t eq = text.find('=');
-  if (eq == std::string::npos) {
-    throw InputError(where, fmt::format("expected NAME=VALUE (such as --set height=10m); got "
-                                        "'{}'",
-                                        model::Shorten(text)));
-  }
-  std::string name = text.substr(0, eq);
-  while (!name.empty() && (name.back() == ' ' || name.back() == '\t')) name.pop_back();
-  while (!name.empty() && (name.front() == ' ' || name.front() == '\t')) name.erase(0, 1);
-  if (!model::IsName(name)) {
-    throw InputError(where, fmt::format("'{}' is not a variable name (letters, digits and _, not "
-                                        "starting with a digit); write --set NAME=VALUE",
-                                        model::Shorten(name)));
-  }
-  return Override{name, text.substr(eq + 1)};
-}
 
 ValueReading ReadQuantity(const std::string& text, QuantityKind kind) {
   // Each kind's quantity, its allowed range and the example of its empty-text message, in the

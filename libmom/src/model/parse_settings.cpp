@@ -85,14 +85,15 @@ void Parser::Let() {
   model_.variable_specs.push_back(DescribeVariable(name, value, Loc(name_token)));
 }
 
-// The value a --set override gives the `let` being read, in place of the model's expression.
+// The value an override gives the `let` being read, in place of the model's expression.
 Value Parser::OverrideValue(const std::string& name, OverrideEntry* entry) {
   entry->used = true;
-  const LineSource set_source{"--set " + name, 1, 0};
+  const LineSource set_source{entry->origin, 1, 0};
   const std::vector<Token> set_tokens = LexLine(entry->expression, set_source);
   size_t set_pos = 0;
   if (set_tokens[0].kind == TokenKind::kEnd) {
-    throw InputError(At(set_source, 1), "the value is empty; write --set NAME=VALUE");
+    throw InputError(At(set_source, 1),
+                     fmt::format("the value of '{}' is empty; give an expression", name));
   }
   const Value value = EvaluateExpression(set_tokens, &set_pos, scope_, set_source);
   if (set_tokens[set_pos].kind != TokenKind::kEnd) {

@@ -37,14 +37,19 @@ const std::vector<std::string>& Keywords() {
 
 Parser::Parser(std::string file, const std::vector<Override>& overrides) : file_(std::move(file)) {
   for (const Override& o : overrides) {
-    const SourceLocation where{"--set " + o.name, 0, 0};
+    const std::string origin = o.origin.empty() ? "override " + o.name : o.origin;
+    const SourceLocation where{origin, 0, 0};
     if (!IsName(o.name)) {
-      throw InputError(where, fmt::format("'{}' is not a variable name", Shorten(o.name)));
+      throw InputError(where, fmt::format("'{}' is not a variable name (letters, digits and _, "
+                                          "not starting with a digit)",
+                                          Shorten(o.name)));
     }
     if (overrides_.count(o.name) != 0) {
-      throw InputError(where, "this variable is set twice on the command line; set it once");
+      throw InputError(where,
+                       "this variable is given two values from outside the model; give "
+                       "it one");
     }
-    overrides_[o.name] = OverrideEntry{o.expression, false};
+    overrides_[o.name] = OverrideEntry{o.expression, origin, false};
   }
 }
 
@@ -70,7 +75,7 @@ Model Parser::Parse(std::string_view text) {
     std::string list;
     for (const std::string& n : scope_.Names()) list += (list.empty() ? "" : ", ") + n;
     throw InputError(
-        SourceLocation{"--set " + name, 0, 0},
+        SourceLocation{entry.origin, 0, 0},
         list.empty()
             ? fmt::format("the model has no variable '{}' (it defines no variables)", name)
             : fmt::format("the model has no variable '{}' (its variables: {})", name, list));

@@ -28,6 +28,7 @@ class Parser {
  private:
   struct OverrideEntry {
     std::string expression;
+    std::string origin;  // the "file" of its errors: Override::origin, or "override NAME"
     bool used = false;
   };
   // A value as written, with its first token for messages about it.

@@ -105,7 +105,7 @@ std::string OverRatingCaution(const std::string& subject, double peak_v, const c
 
 // What a capacitor above its rating needs.
 constexpr const char* kCapacitorRatingAdvice =
-    "capacitors (--rating-cap); use a capacitor rated well above it";
+    "capacitors (`capacitor_rating_v`); use a capacitor rated well above it";
 
 }  // namespace
 
@@ -247,7 +247,7 @@ StressResult ComputeStress(const Model& model, const SolveResult& solved,
     if (ls.over_rating) {
       r.cautions.push_back(OverRatingCaution(
           "load " + ls.name + ": ", ls.voltage_v.peak, " across it", r.load_rating_v,
-          "coils and other loads (--rating-load); space its turns and leads and insulate it "
+          "coils and other loads (`load_rating_v`); space its turns and leads and insulate it "
           "for this voltage"));
     }
   }

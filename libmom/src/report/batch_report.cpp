@@ -18,6 +18,7 @@
 #include "report/text_table.hpp"
 #include "wirefield/batch.hpp"
 #include "wirefield/pattern.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace report {

@@ -10,6 +10,7 @@
 
 #include "wirefield/coil.hpp"
 #include "wirefield/model.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace {

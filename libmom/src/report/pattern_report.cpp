@@ -17,6 +17,7 @@
 #include "report/pattern_format.hpp"
 #include "report/text_table.hpp"
 #include "wirefield/pattern.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace report {

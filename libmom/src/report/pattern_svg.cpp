@@ -14,6 +14,7 @@
 #include "report/pattern_format.hpp"
 #include "report/svg_text.hpp"
 #include "wirefield/pattern.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace report {

@@ -9,6 +9,7 @@
 
 #include "report/json_values.hpp"
 #include "report/text_table.hpp"
+#include "wirefield/report.hpp"
 #include "wirefield/stress.hpp"
 
 namespace wirefield {

@@ -8,7 +8,7 @@
 #include <vector>
 
 #include "report/json_values.hpp"
-#include "wirefield/sweep_report.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield::report {
 

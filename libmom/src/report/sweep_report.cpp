@@ -2,8 +2,6 @@
 // the JSON document of `sweep` (docs/commands.md), as CSV and as a Touchstone one-port file.
 // Input: a SweepReport (sweep, bands, measured comparison); output: text. Every number is
 // checked to be finite first: a non-finite one throws ComputationError instead of printing.
-#include "wirefield/sweep_report.hpp"
-
 #include <fmt/format.h>
 
 #include <cmath>
@@ -17,6 +15,7 @@
 #include "report/notes.hpp"
 #include "report/sweep_format.hpp"
 #include "report/text_table.hpp"
+#include "wirefield/report.hpp"
 #include "wirefield/simulation.hpp"
 
 namespace wirefield {

@@ -15,7 +15,7 @@
 #include "core/constants.hpp"
 #include "report/svg_text.hpp"
 #include "report/sweep_format.hpp"
-#include "wirefield/sweep_report.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace report {

@@ -10,6 +10,7 @@
 
 #include "report/mesh_estimate_text.hpp"
 #include "report/notes.hpp"
+#include "wirefield/report.hpp"
 #include "wirefield/tune.hpp"
 
 namespace wirefield {

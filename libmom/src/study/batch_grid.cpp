@@ -1,7 +1,7 @@
-// Study layer: the grid of a batch (`wirefield batch`): the --grounds and --vary lists parsed,
-// the whole grid checked before any work, and the grid's rows numbered (ground slowest, then
-// each variable in the order given). The rows are run in batch_run.cpp and summarised in
-// batch_summary.cpp.
+// Study layer: the grid of a batch (`wirefield batch`): its grounds found by name and its
+// varied values read as constants of the model language, the whole grid checked before any work,
+// and the grid's rows numbered (ground slowest, then each variable in the order given). The rows
+// are run in batch_run.cpp and summarised in batch_summary.cpp.
 #include "study/batch_grid.hpp"
 
 #include <fmt/format.h>
@@ -18,24 +18,6 @@
 
 namespace wirefield {
 namespace {
-
-std::string Trim(const std::string& text) {
-  const size_t first = text.find_first_not_of(" \t");
-  if (first == std::string::npos) return "";
-  const size_t last = text.find_last_not_of(" \t");
-  return text.substr(first, last - first + 1);
-}
-
-std::vector<std::string> Split(const std::string& text, char separator) {
-  std::vector<std::string> parts;
-  size_t start = 0;
-  while (true) {
-    const size_t at = text.find(separator, start);
-    parts.push_back(Trim(text.substr(start, at == std::string::npos ? at : at - start)));
-    if (at == std::string::npos) return parts;
-    start = at + 1;
-  }
-}
 
 // The unit a value of `dimension` is written in: the SI unit (exact, for the override) and
 // the unit shown (MHz, uH, pF read better than Hz, H, F).
@@ -63,8 +45,7 @@ model::Value Constant(const std::string& text, const std::string& where) {
   const model::LineSource source{where, 1, 0};
   const std::vector<model::Token> tokens = model::LexLine(text, source);
   if (tokens.front().kind == model::TokenKind::kEnd) {
-    throw InputError(model::At(source, 1),
-                     "a value is empty; write --vary NAME=A:B:STEP or --vary NAME=V1,V2");
+    throw InputError(model::At(source, 1), "a value is empty; give a number with its unit");
   }
   model::Scope no_variables;
   size_t pos = 0;
@@ -136,12 +117,13 @@ void CheckBatchOptions(const BatchOptions& options, const Model& base) {
   for (const BatchVariable& variable : options.variables) {
     if (!varied.insert(variable.name).second) {
       throw InputError({"variables " + variable.name, 0, 0},
-                       "this variable is varied twice; give one --vary per variable");
+                       "this variable is varied twice; give one `variables` entry per "
+                       "variable");
     }
     for (const Override& fixed : options.fixed_overrides) {
       if (fixed.name == variable.name) {
         throw InputError({"variables " + variable.name, 0, 0},
-                         "this variable is also given to --set; drop one of them");
+                         "this variable is also given to `fixed_overrides`; drop one of them");
       }
     }
     if (std::find(base.variables.begin(), base.variables.end(), variable.name) ==
@@ -164,8 +146,8 @@ void CheckBatchOptions(const BatchOptions& options, const Model& base) {
     const std::string factors = GridFactors(options);
     throw InputError({"batch", 0, 0},
                      fmt::format("the grid has {:.0f} rows ({}), more than {}; each row is a "
-                                 "sweep and a pattern. Use fewer grounds or coarser --vary "
-                                 "steps, or pass --yes-large to run it anyway",
+                                 "sweep and a pattern. Use fewer grounds or coarser `variables` "
+                                 "steps, or pass `allow_large` to run it anyway",
                                  rows, factors, kMaxBatchRows));
   }
   bool any_ground = options.grounds.empty() && base.ground.kind != GroundKind::kFree;
@@ -204,126 +186,44 @@ void BatchOptions::Validate(bool over_ground) const {
   }
 }
 
-std::vector<BatchGround> ParseGroundList(const std::string& text) {
-  std::vector<std::string> known;
-  for (const GroundPreset& preset : GroundPresets()) known.push_back(preset.name);
-  known.push_back("free");
-  known.push_back("perfect");
-  const std::string trimmed = Trim(text);
-  std::vector<BatchGround> grounds;
-  if (trimmed == "all") {
-    for (const GroundPreset& preset : GroundPresets()) {
-      grounds.push_back(BatchGround{preset.name, RealGround(preset)});
-    }
-    return grounds;
-  }
-  for (const std::string& name : Split(trimmed, ',')) {
-    BatchGround ground{name, std::nullopt};
-    if (name == "free") {
-      ground.spec = GroundSpec{};
-      ground.spec->kind = GroundKind::kFree;
-    } else if (name == "perfect") {
-      ground.spec = GroundSpec{};
-      ground.spec->kind = GroundKind::kPerfect;
-    } else if (const GroundPreset* preset = FindGroundPreset(name)) {
-      ground.spec = RealGround(*preset);
-    } else if (name == "all") {
-      std::vector<std::string> presets(known.begin(), known.end() - 2);
-      throw InputError({"--grounds", 1, 1},
-                       fmt::format("'all' stands alone: --grounds all runs every ground preset "
-                                   "and nothing else; to add free or perfect, list the presets "
-                                   "by name: --grounds {},free,perfect",
-                                   fmt::join(presets, ",")));
-    } else {
-      throw InputError(
-          {"--grounds", 1, 1},
-          fmt::format("unknown ground '{}'{}; use all, or a comma-separated list "
-                      "of {}",
-                      model::Shorten(name), model::DidYouMean(name, known), ListNames(known)));
-    }
-    ground.spec->location = SourceLocation{"--grounds", 1, 1};
-    for (const BatchGround& earlier : grounds) {
-      if (earlier.name == name) {
-        throw InputError({"--grounds", 1, 1},
-                         fmt::format("ground '{}' is listed twice; list each ground once", name));
-      }
-    }
-    grounds.push_back(std::move(ground));
-  }
-  return grounds;
+std::vector<std::string> BatchGroundNames() {
+  std::vector<std::string> names;
+  for (const GroundPreset& preset : GroundPresets()) names.push_back(preset.name);
+  names.push_back("free");
+  names.push_back("perfect");
+  return names;
 }
 
-BatchVariable ParseVary(const std::string& text) {
-  const size_t eq = text.find('=');
-  if (eq == std::string::npos) {
-    throw InputError({"--vary", 1, 1},
-                     fmt::format("expected NAME=A:B:STEP or NAME=V1,V2,... (such as --vary "
-                                 "length=19.5m:20.5m:0.25m); got '{}'",
-                                 model::Shorten(text)));
-  }
-  BatchVariable variable;
-  variable.name = Trim(text.substr(0, eq));
-  if (!model::IsName(variable.name)) {
-    throw InputError({"--vary", 1, 1},
-                     fmt::format("'{}' is not a variable name (letters, digits and _, not "
-                                 "starting with a digit); write --vary NAME=A:B:STEP",
-                                 model::Shorten(variable.name)));
-  }
-  const std::string where = "--vary " + variable.name;
-  const std::string body = text.substr(eq + 1);
-  std::vector<model::Value> values;
-  if (body.find(':') != std::string::npos) {
-    const std::vector<std::string> parts = Split(body, ':');
-    if (parts.size() != 3) {
-      throw InputError({where, 1, 1},
-                       fmt::format("a range needs three parts A:B:STEP (first, last, step, "
-                                   "such as 19.5m:20.5m:0.25m); got '{}'",
-                                   model::Shorten(body)));
-    }
-    const model::Value from = Constant(parts[0], where);
-    const model::Value to = Constant(parts[1], where);
-    const model::Value step = Constant(parts[2], where);
-    if (!(to.dimension == from.dimension) || !(step.dimension == from.dimension)) {
-      throw InputError({where, 1, 1},
-                       fmt::format("A, B and STEP must be of one quantity; got {}, {} and {}",
-                                   model::Describe(from.dimension), model::Describe(to.dimension),
-                                   model::Describe(step.dimension)));
-    }
-    if (!(step.si > 0.0)) {
-      throw InputError({where, 1, 1},
-                       fmt::format("the step must be positive; got {}", model::Shorten(parts[2])));
-    }
-    if (!(to.si >= from.si)) {
-      throw InputError({where, 1, 1},
-                       fmt::format("the last value ({}) must not be below the first ({})",
-                                   model::Shorten(parts[1]), model::Shorten(parts[0])));
-    }
-    const double count = std::floor((to.si - from.si) / step.si + 1e-9) + 1.0;
-    if (!(count <= kMaxVaryValues)) {
-      throw InputError({where, 1, 1},
-                       fmt::format("the range gives {:.0f} values (at most {}); use a larger "
-                                   "step",
-                                   count, kMaxVaryValues));
-    }
-    for (int i = 0; i < static_cast<int>(count); ++i) {
-      double si = from.si + i * step.si;
-      if (std::abs(si - to.si) <= 1e-9 * step.si) si = to.si;  // the inclusive end, exactly
-      values.push_back(model::Value{si, from.dimension});
-    }
+std::optional<BatchGround> BatchGroundNamed(const std::string& name, const std::string& origin) {
+  BatchGround ground{name, std::nullopt};
+  if (name == "free") {
+    ground.spec = GroundSpec{};
+    ground.spec->kind = GroundKind::kFree;
+  } else if (name == "perfect") {
+    ground.spec = GroundSpec{};
+    ground.spec->kind = GroundKind::kPerfect;
+  } else if (const GroundPreset* preset = FindGroundPreset(name)) {
+    ground.spec = RealGround(*preset);
   } else {
-    for (const std::string& part : Split(body, ',')) {
-      values.push_back(Constant(part, where));
-      if (!(values.back().dimension == values.front().dimension)) {
-        throw InputError({where, 1, 1},
-                         fmt::format("every value must be of one quantity; '{}' is {}, the "
-                                     "first is {}",
-                                     model::Shorten(part), model::Describe(values.back().dimension),
-                                     model::Describe(values.front().dimension)));
-      }
-    }
-    if (values.size() > static_cast<size_t>(kMaxVaryValues)) {
-      throw InputError({where, 1, 1}, fmt::format("at most {} values", kMaxVaryValues));
-    }
+    return std::nullopt;
+  }
+  ground.spec->location = SourceLocation{origin, 1, 1};
+  return ground;
+}
+
+namespace {
+
+std::string Where(const std::string& name, const std::string& origin) {
+  return origin.empty() ? "variables " + name : origin;
+}
+
+// The variable of `values` (all of one quantity, at most kMaxVaryValues), its labels in the
+// unit it reads best in.
+BatchVariable MakeVariable(const std::string& name, const std::vector<model::Value>& values,
+                           const std::string& origin) {
+  const std::string where = Where(name, origin);
+  if (values.size() > static_cast<size_t>(kMaxVaryValues)) {
+    throw InputError({where, 1, 1}, fmt::format("at most {} values", kMaxVaryValues));
   }
   const std::optional<ValueUnit> unit = UnitOf(values.front().dimension);
   if (!unit) {
@@ -333,10 +233,73 @@ BatchVariable ParseVary(const std::string& text) {
                     "of the model language ({})",
                     model::Describe(values.front().dimension), model::KnownUnitsSummary()));
   }
+  BatchVariable variable;
+  variable.name = name;
+  variable.origin = origin;
   variable.unit = unit->si_unit;
   variable.shown_unit = unit->shown_unit;
   for (const model::Value& v : values) variable.values.push_back(MakeValue(v.si, *unit));
   return variable;
+}
+
+}  // namespace
+
+BatchVariable BatchVariableFromValues(const std::string& name,
+                                      const std::vector<std::string>& texts,
+                                      const std::string& origin) {
+  const std::string where = Where(name, origin);
+  if (texts.empty()) throw InputError({where, 1, 1}, "the variable has no values");
+  std::vector<model::Value> values;
+  for (const std::string& part : texts) {
+    values.push_back(Constant(part, where));
+    if (!(values.back().dimension == values.front().dimension)) {
+      throw InputError({where, 1, 1},
+                       fmt::format("every value must be of one quantity; '{}' is {}, the "
+                                   "first is {}",
+                                   model::Shorten(part), model::Describe(values.back().dimension),
+                                   model::Describe(values.front().dimension)));
+    }
+    if (values.size() > static_cast<size_t>(kMaxVaryValues)) break;
+  }
+  return MakeVariable(name, values, origin);
+}
+
+BatchVariable BatchVariableFromRange(const std::string& name, const std::string& first,
+                                     const std::string& last, const std::string& step_text,
+                                     const std::string& origin) {
+  const std::string where = Where(name, origin);
+  const model::Value from = Constant(first, where);
+  const model::Value to = Constant(last, where);
+  const model::Value step = Constant(step_text, where);
+  if (!(to.dimension == from.dimension) || !(step.dimension == from.dimension)) {
+    throw InputError({where, 1, 1},
+                     fmt::format("A, B and STEP must be of one quantity; got {}, {} and {}",
+                                 model::Describe(from.dimension), model::Describe(to.dimension),
+                                 model::Describe(step.dimension)));
+  }
+  if (!(step.si > 0.0)) {
+    throw InputError({where, 1, 1},
+                     fmt::format("the step must be positive; got {}", model::Shorten(step_text)));
+  }
+  if (!(to.si >= from.si)) {
+    throw InputError({where, 1, 1},
+                     fmt::format("the last value ({}) must not be below the first ({})",
+                                 model::Shorten(last), model::Shorten(first)));
+  }
+  const double count = std::floor((to.si - from.si) / step.si + 1e-9) + 1.0;
+  if (!(count <= kMaxVaryValues)) {
+    throw InputError({where, 1, 1},
+                     fmt::format("the range gives {:.0f} values (at most {}); use a larger "
+                                 "step",
+                                 count, kMaxVaryValues));
+  }
+  std::vector<model::Value> values;
+  for (int i = 0; i < static_cast<int>(count); ++i) {
+    double si = from.si + i * step.si;
+    if (std::abs(si - to.si) <= 1e-9 * step.si) si = to.si;  // the inclusive end, exactly
+    values.push_back(model::Value{si, from.dimension});
+  }
+  return MakeVariable(name, values, origin);
 }
 
 double BatchRowCount(const BatchOptions& options) {

@@ -38,7 +38,8 @@ BatchRow RunRow(const std::string& text, const std::string& file, const BatchOpt
   row.values = plan.values;
   std::vector<Override> overrides = options.fixed_overrides;
   for (size_t v = 0; v < options.variables.size(); ++v) {
-    overrides.push_back(Override{options.variables[v].name, plan.values[v].expression});
+    overrides.push_back(Override{options.variables[v].name, plan.values[v].expression,
+                                 options.variables[v].origin});
   }
   Model model = ParseModelText(text, file, overrides);
   if (plan.ground->spec) model.ground = *plan.ground->spec;
@@ -189,8 +190,8 @@ BatchResult RunGrid(const std::vector<std::string>& texts, const std::vector<std
     if (model_variable) factors += fmt::format(" x {} models", model_variable->values.size());
     throw InputError({"batch", 0, 0},
                      fmt::format("the grid has {:.0f} rows ({}), more than {:.0f}, the most one "
-                                 "batch runs even with --yes-large; split it into several "
-                                 "batches over parts of the --vary ranges",
+                                 "batch runs even with `allow_large`; split it into several "
+                                 "batches over parts of the `variables` ranges",
                                  grid.rows(), factors, kMaxBatchRowsEver));
   }
   const int total = static_cast<int>(grid.rows());

@@ -1,5 +1,5 @@
-// Study layer: the model stage's "did you mean" rule (model/lexer.cpp) offered to front ends
-// (wirefield/names.hpp). Input: a word and the names it may be a slip of; output: a hint.
+// Study layer: the model stage's name rules (model/lexer.cpp) offered to front ends
+// (wirefield/names.hpp): the "did you mean" hint, the name rule and quoted text.
 #include "wirefield/names.hpp"
 
 #include "model/lexer.hpp"
@@ -9,5 +9,13 @@ namespace wirefield {
 std::string DidYouMeanAside(std::string_view word, const std::vector<std::string>& candidates) {
   return model::DidYouMeanAside(word, candidates);
 }
+
+std::string DidYouMean(std::string_view word, const std::vector<std::string>& candidates) {
+  return model::DidYouMean(word, candidates);
+}
+
+bool IsModelName(std::string_view text) { return model::IsName(text); }
+
+std::string ShortenForMessage(std::string_view text) { return model::Shorten(text); }
 
 }  // namespace wirefield

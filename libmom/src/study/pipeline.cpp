@@ -72,7 +72,7 @@ double Pipeline::DefaultFrequency() const {
   if (!model_.frequency_hz) {
     throw InputError({model_.file, 0, 0},
                      "the model gives no frequency: add a line such as 'frequency 14.2MHz' or "
-                     "pass --freq");
+                     "give `max_frequency_hz` in the simulation options");
   }
   return *model_.frequency_hz;
 }

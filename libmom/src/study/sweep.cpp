@@ -137,8 +137,18 @@ std::vector<double> ReactanceZeros(const std::vector<const SweepPoint*>& sorted,
 
 }  // namespace
 
+void SweepOptions::Validate() const {
+  if (threads < 0) {
+    throw InputError(
+        {"threads", 1, 1},
+        fmt::format("threads must be 0 (one per core) or a positive count; got {}", threads));
+  }
+  if (stress) stress->Validate();
+}
+
 SweepResult RunSweep(const Simulation& simulation, const std::vector<double>& frequencies_hz,
                      const SweepOptions& options) {
+  options.Validate();
   if (frequencies_hz.empty()) throw InputError({"sweep", 0, 0}, "the sweep has no frequencies");
   for (double f : frequencies_hz) {
     if (!(f > 0.0) || !std::isfinite(f)) {

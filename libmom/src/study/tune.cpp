@@ -119,7 +119,8 @@ class Trials {
       if (seen[t.variable]++ > 0) {
         throw InputError(
             SourceLocation{"variable", 0, 0},
-            fmt::format("'{}' is varied twice; give each --vary its own variable", t.variable));
+            fmt::format("'{}' is varied twice; give each target (`variable`) its own variable",
+                        t.variable));
       }
       const bool named = !it->unit.empty();
       const bool plain = it->dimension == std::array<int, 4>{};
@@ -151,7 +152,7 @@ class Trials {
     std::vector<Override> overrides = fixed_;
     for (size_t k = 0; k < specs_.size(); ++k) {
       overrides.push_back(
-          Override{specs_[k].name, OverrideText(specs_[k], k == i ? value_si : values_[k])});
+          Override{specs_[k].name, OverrideText(specs_[k], k == i ? value_si : values_[k]), ""});
     }
     Model model = ParseModelText(text_, file_, overrides);
     if (options_.z0_ohm) model.z0_ohm = options_.z0_ohm;
@@ -354,12 +355,12 @@ std::vector<Root> RootsOf(Trials& trials, size_t i, double frequency_hz,
   }
   if (!other_kind.empty()) {
     message += fmt::format(
-        "; a {} resonance lies at {} = {} (--kind {} takes it)", ToString(other_kind.front().kind),
+        "; a {} resonance lies at {} = {} (`kind` {} takes it)", ToString(other_kind.front().kind),
         spec.name, ShowValue(spec, other_kind.front().value_si), ToString(other_kind.front().kind));
   }
-  message += "; widen --min/--max, check --target";
-  if (kind != ResonanceKind::kAuto) message += " and --kind";
-  message += ", or use --goal min-swr";
+  message += "; widen `min_si`/`max_si`, check `frequency_hz`";
+  if (kind != ResonanceKind::kAuto) message += " and `kind`";
+  message += ", or use `goal` min-swr";
   throw InputError(spec.location, message);
 }
 
@@ -528,7 +529,8 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
   const auto start = std::chrono::steady_clock::now();
   if (targets.empty()) {
     throw InputError(SourceLocation{"variable", 0, 0},
-                     "give the variable to tune and its frequency: --vary NAME --target F");
+                     "give a target: the variable to tune (`variable`) and its frequency "
+                     "(`frequency_hz`)");
   }
   options.Validate();
   auto progress = [&](const std::string& line) {
@@ -556,9 +558,9 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
           SourceLocation{t.min_si || t.max_si ? "min_si" : "variable", 0, 0},
           spec.value_si == 0.0 && !t.min_si && !t.max_si
               ? fmt::format("'{}' is 0 in the model, so the default bounds (-/+{:g}% of it) are "
-                            "empty; give --min and --max",
+                            "empty; give `min_si` and `max_si`",
                             spec.name, options.default_span * 100)
-              : fmt::format("the bounds of '{}' must have --min below --max; got {} to {}",
+              : fmt::format("the bounds of '{}' must have `min_si` below `max_si`; got {} to {}",
                             spec.name, ShowValue(spec, low), ShowValue(spec, high)));
     }
     bounds.emplace_back(low, high);
@@ -626,7 +628,7 @@ TuneResult Tune(const std::string& model_text, const std::string& file_name,
     throw ComputationError(fmt::format(
         "tune: the {} variables did not settle within {:g} (relative) after {} alternations "
         "(last values {}); the variables may act on both targets alike: choose variables that "
-        "each set one band, or narrow --min/--max",
+        "each set one band, or narrow `min_si`/`max_si`",
         targets.size(), options.tolerance, options.max_iterations, where));
   }
 

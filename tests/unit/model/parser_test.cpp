@@ -279,16 +279,7 @@ TEST(ParseText, Utf8InCommentsIsAcceptedAndAByteOrderMarkIsSkipped) {
   EXPECT_EQ(m.wires.size(), 1u);
 }
 
-// ---- --set overrides -------------------------------------------------------------------
-
-TEST(Override, SplitsNameAndValueAtTheFirstEquals) {
-  const Override o = ParseOverride("L=10.2m");
-  EXPECT_EQ(o.name, "L");
-  EXPECT_EQ(o.expression, "10.2m");
-  const Override p = ParseOverride("ratio=a=b");
-  EXPECT_EQ(p.name, "ratio");
-  EXPECT_EQ(p.expression, "a=b");
-}
+// ---- overrides (values given to a `let` from outside the model) ---------------------------
 
 TEST(Override, ReplacesTheLetExpressionInItsScope) {
   const std::string text =
@@ -296,57 +287,40 @@ TEST(Override, ReplacesTheLetExpressionInItsScope) {
       "let h = 10m\n"
       "wire mast from (0, 0, 0) to (0, 0, h) radius 1mm\n"
       "feed f at mast@start\n";
-  const Model m = Parse(text, {ParseOverride("h=base*2")});
+  const Model m = Parse(text, {Override{"h", "base*2", ""}});
   EXPECT_DOUBLE_EQ(m.wires[0].to_m[2], 8.0);
 }
 
 TEST(Override, APlainOverrideTakesTheUseSiteUnits) {
   const Model m =
       Parse("units cm\nlet h = 100\nwire a from (0,0,0) to (0,0,h) radius 1\nfeed f at a@0\n",
-            {ParseOverride("h=250")});
+            {Override{"h", "250", ""}});
   EXPECT_DOUBLE_EQ(m.wires[0].to_m[2], 2.5);
 }
 
-TEST(OverrideError, MissingEqualsIsRefused) {
-  try {
-    ParseOverride("height");
-    FAIL();
-  } catch (const InputError& e) {
-    EXPECT_STREQ(e.what(),
-                 "--set: error: expected NAME=VALUE (such as --set height=10m); got 'height'");
-  }
-}
-
-TEST(OverrideError, BadNameIsRefused) {
-  try {
-    ParseOverride("2h=3");
-    FAIL();
-  } catch (const InputError& e) {
-    EXPECT_STREQ(e.what(),
-                 "--set: error: '2h' is not a variable name (letters, digits and _, not "
-                 "starting with a digit); write --set NAME=VALUE");
-  }
-}
-
 TEST(OverrideError, NamingNoLetListsTheModelsVariables) {
-  EXPECT_EQ(ErrorOf("let a = 1\nlet b = 2\nlet c = 3\n" + kKit, {ParseOverride("L=2")}),
-            "--set L: error: the model has no variable 'L' (its variables: a, b, c)");
-  EXPECT_EQ(ErrorOf(kKit, {ParseOverride("L=2")}),
+  EXPECT_EQ(ErrorOf("let a = 1\nlet b = 2\nlet c = 3\n" + kKit, {Override{"L", "2", ""}}),
+            "override L: error: the model has no variable 'L' (its variables: a, b, c)");
+  EXPECT_EQ(ErrorOf(kKit, {Override{"L", "2", "--set L"}}),
             "--set L: error: the model has no variable 'L' (it defines no variables)");
 }
 
-TEST(OverrideError, DiagnosticsPointInsideTheValue) {
-  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {ParseOverride("h=3 + 2Mhz")}),
+TEST(OverrideError, DiagnosticsPointInsideTheValueAtItsOrigin) {
+  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"h", "3 + 2Mhz", "--set h"}}),
             "--set h:1:6: error: unknown unit 'Mhz'; did you mean 'MHz'? (units: lengths m cm mm "
             "ft in; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance H mH uH nH; "
             "capacitance F uF nF pF; voltage V mV kV; angle deg)");
-  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {ParseOverride("h=")}),
-            "--set h:1:1: error: the value is empty; write --set NAME=VALUE");
+  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"h", " ", ""}}),
+            "override h:1:1: error: the value of 'h' is empty; give an expression");
 }
 
-TEST(OverrideError, SettingAVariableTwiceIsRefused) {
-  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {ParseOverride("h=1"), ParseOverride("h=2")}),
-            "--set h: error: this variable is set twice on the command line; set it once");
+TEST(OverrideError, ABadNameOrAVariableGivenTwiceIsRefused) {
+  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"2h", "3", ""}}),
+            "override 2h: error: '2h' is not a variable name (letters, digits and _, not starting "
+            "with a digit)");
+  EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"h", "1", ""}, Override{"h", "2", ""}}),
+            "override h: error: this variable is given two values from outside the model; give "
+            "it one");
 }
 
 // ---- quantities read from text (ReadQuantity) ---------------------------------------------

@@ -43,7 +43,7 @@ TEST(VariableSpec, EachLetKeepsItsSiValueUnitAndLocation) {
 }
 
 TEST(VariableSpec, AnOverrideIsTheRecordedValue) {
-  const Model m = ParseModelText(kKit, "kit.wire", {ParseOverride("total=1034cm")});
+  const Model m = ParseModelText(kKit, "kit.wire", {Override{"total", "1034cm", ""}});
   EXPECT_DOUBLE_EQ(m.variable_specs[0].value_si, 10.34);
 }
 
@@ -52,8 +52,8 @@ TEST(VariableSpec, SeventeenDigitOverrideTextReadsBackExactly) {
   for (double value : {10.052345678901234, 8.2e-5, 1.0e-10 / 3.0}) {
     const std::string unit = value > 1 ? "m" : (value > 1e-8 ? "H" : "F");
     const std::string name = value > 1 ? "total" : (value > 1e-8 ? "coil" : "comp");
-    const Model m =
-        ParseModelText(kKit, "kit.wire", {Override{name, fmt::format("{:.17g} {}", value, unit)}});
+    const Model m = ParseModelText(kKit, "kit.wire",
+                                   {Override{name, fmt::format("{:.17g} {}", value, unit), ""}});
     for (const VariableSpec& v : m.variable_specs) {
       if (v.name == name) {
         EXPECT_EQ(v.value_si, value) << name;

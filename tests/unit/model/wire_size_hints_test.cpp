@@ -41,14 +41,14 @@ const std::string kReadmeDipole =
     "frequency 14.2MHz\n";
 
 TEST(OverrideWarning, AVariableOnlyTheReplacedExpressionUsedIsNotWarnedAbout) {
-  const Model m = Parse(kReadmeDipole, {Override{"total", "10.3m"}});
+  const Model m = Parse(kReadmeDipole, {Override{"total", "10.3m", ""}});
   EXPECT_TRUE(m.warnings.empty()) << ToString(m.warnings.at(0));
   ASSERT_EQ(m.wires.size(), 1u);
   EXPECT_DOUBLE_EQ(m.wires[0].to_m[0] - m.wires[0].from_m[0], 10.3);
 }
 
 TEST(OverrideWarning, AVariableNothingUsesIsStillWarnedAboutUnderAnOverride) {
-  const Model m = Parse("let spare = 3\n" + kReadmeDipole, {Override{"total", "10.3m"}});
+  const Model m = Parse("let spare = 3\n" + kReadmeDipole, {Override{"total", "10.3m", ""}});
   ASSERT_EQ(m.warnings.size(), 1u);
   EXPECT_EQ(ToString(m.warnings[0]), "kit.wire:1:5: warning: variable 'spare' is never used");
 }

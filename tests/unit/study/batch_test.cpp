@@ -1,15 +1,17 @@
-// Unit tests of the batch library (wirefield/batch.hpp): --vary parsing (ranges with units,
-// inclusive ends, lists, the exact error text), --grounds parsing, the grid's size and order,
+// Unit tests of the batch library (wirefield/batch.hpp): varied values read as constants
+// (ranges with units, lists, errors at their origin), grounds by name, the grid's size and order,
 // checks made before any row, a failing row beside good ones, and results that do not depend
 // on the thread count.
 #include "wirefield/batch.hpp"
 
 #include <gtest/gtest.h>
 
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "unit/error_text.hpp"
+#include "wirefield/report.hpp"
 
 namespace wirefield {
 namespace {
@@ -24,6 +26,13 @@ const char* kDipole =
     "feed src at d@50%\n"
     "ground free\n";
 
+// The grounds of these names (each known).
+std::vector<BatchGround> Grounds(const std::vector<std::string>& names) {
+  std::vector<BatchGround> grounds;
+  for (const std::string& name : names) grounds.push_back(*BatchGroundNamed(name, "grounds"));
+  return grounds;
+}
+
 BatchOptions SmallOptions() {
   BatchOptions options;
   SweepSpan span;
@@ -34,130 +43,51 @@ BatchOptions SmallOptions() {
   return options;
 }
 
-// --- --vary ---------------------------------------------------------------------------------
+// --- the varied values and the grounds ----------------------------------------------------
 
-TEST(BatchVary, RangeWithUnitsIncludesBothEnds) {
-  const BatchVariable v = ParseVary("length=19.5m:20.5m:0.25m");
-  EXPECT_EQ(v.name, "length");
-  EXPECT_EQ(v.unit, "m");
-  ASSERT_EQ(v.values.size(), 5u);
-  const std::vector<double> expected_m{19.5, 19.75, 20.0, 20.25, 20.5};
-  for (size_t i = 0; i < expected_m.size(); ++i) {
-    EXPECT_DOUBLE_EQ(v.values[i].si, expected_m[i]) << i;
-  }
-  EXPECT_EQ(v.values.back().si, 20.5);  // the inclusive end exactly, not 20.5 - rounding
-  EXPECT_EQ(v.values[1].label, "19.75m");
-  EXPECT_EQ(v.values[1].expression, "19.75m");
+TEST(BatchVariable, RangeAndListReadConstantsOfTheModelLanguage) {
+  // 1 cm = 0.01 m (SI Brochure, 9th ed., Table 7); the range's end is included.
+  const BatchVariable range = BatchVariableFromRange("h", "150cm", "250cm", "50cm");
+  ASSERT_EQ(range.values.size(), 3u);
+  EXPECT_DOUBLE_EQ(range.values[0].si, 1.5);
+  EXPECT_EQ(range.values[2].si, 2.5);
+  EXPECT_EQ(range.values[2].label, "2.5m");
+  const BatchVariable list = BatchVariableFromValues("f", {"7.1MHz", "7MHz"});
+  EXPECT_EQ(list.shown_unit, "MHz");
+  EXPECT_EQ(list.values[0].expression, "7100000Hz");
 }
 
-TEST(BatchVary, RangeInOtherUnitsIsStoredInSi) {
-  // 1 cm = 0.01 m, 1 ft = 0.3048 m exactly (international foot, 1959).
-  const BatchVariable cm = ParseVary("h=150cm:250cm:50cm");
-  ASSERT_EQ(cm.values.size(), 3u);
-  EXPECT_DOUBLE_EQ(cm.values[0].si, 1.5);
-  EXPECT_DOUBLE_EQ(cm.values[2].si, 2.5);
-  const BatchVariable ft = ParseVary("h=10ft,20ft");
-  EXPECT_DOUBLE_EQ(ft.values[1].si, 20 * 0.3048);
-}
-
-TEST(BatchVary, RangeEndReachedDespiteRounding) {
-  // 0.1 is not exact in binary: 1 + 10 * 0.1 must still give the end value 2 (within 1e-9 of
-  // a step), so the range has 11 values.
-  const BatchVariable v = ParseVary("k=1:2:0.1");
-  ASSERT_EQ(v.values.size(), 11u);
-  EXPECT_EQ(v.values.back().si, 2.0);
-  EXPECT_EQ(v.unit, "");
-  EXPECT_EQ(v.values[3].label, "1.3");
-}
-
-TEST(BatchVary, RangeStopsAtTheLastStepBelowTheEnd) {
-  const BatchVariable v = ParseVary("k=1:2:0.3");  // 1, 1.3, 1.6, 1.9
-  ASSERT_EQ(v.values.size(), 4u);
-  EXPECT_NEAR(v.values.back().si, 1.9, 1e-12);
-}
-
-TEST(BatchVary, ListKeepsOrderAndShowsFrequenciesInMegahertz) {
-  const BatchVariable v = ParseVary("f=7.1MHz, 7MHz");
-  EXPECT_EQ(v.unit, "Hz");
-  EXPECT_EQ(v.shown_unit, "MHz");
-  ASSERT_EQ(v.values.size(), 2u);
-  EXPECT_EQ(v.values[0].si, 7.1e6);
-  EXPECT_EQ(v.values[0].label, "7.1MHz");
-  EXPECT_EQ(v.values[0].expression, "7100000Hz");
-  EXPECT_EQ(v.values[1].si, 7e6);
-}
-
-TEST(BatchVary, ErrorsSayWhatToChange) {
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("length"); }),
-            "--vary:1:1: error: expected NAME=A:B:STEP or NAME=V1,V2,... (such as --vary "
-            "length=19.5m:20.5m:0.25m); got 'length'");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("2x=1,2"); }),
-            "--vary:1:1: error: '2x' is not a variable name (letters, digits and _, not starting "
-            "with a digit); write --vary NAME=A:B:STEP");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m"); }),
-            "--vary a:1:1: error: a range needs three parts A:B:STEP (first, last, step, such as "
-            "19.5m:20.5m:0.25m); got '1m:2m'");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2MHz:1m"); }),
-            "--vary a:1:1: error: A, B and STEP must be of one quantity; got a length (m), a "
-            "frequency (Hz) and a length (m)");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m:0m"); }),
-            "--vary a:1:1: error: the step must be positive; got 0m");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=2m:1m:0.5m"); }),
-            "--vary a:1:1: error: the last value (1m) must not be below the first (2m)");
-  // The model language's own message, at the column of the unit.
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m:2m:1nm"); }).substr(0, 57),
-            "--vary a:1:2: error: unknown unit 'nm'; did you mean 'm'?");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=0:1:0.00001"); }),
-            "--vary a:1:1: error: the range gives 100001 values (at most 10000); use a larger "
-            "step");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m,2MHz"); }),
-            "--vary a:1:1: error: every value must be of one quantity; '2MHz' is a frequency "
+TEST(BatchVariable, ErrorsAreAtTheOriginGivenElseAtTheVariablesField) {
+  EXPECT_EQ(testing::ErrorText([] { BatchVariableFromRange("a", "2m", "1m", "0.5m"); }),
+            "variables a:1:1: error: the last value (1m) must not be below the first (2m)");
+  EXPECT_EQ(testing::ErrorText([] {
+              BatchVariableFromValues("a", {"1m", "2MHz"}, "rows a");
+            }),
+            "rows a:1:1: error: every value must be of one quantity; '2MHz' is a frequency "
             "(Hz), the first is a length (m)");
-  EXPECT_EQ(testing::ErrorText([] { ParseVary("a=1m,"); }),
-            "--vary a:1:1: error: a value is empty; write --vary NAME=A:B:STEP or --vary "
-            "NAME=V1,V2");
+  EXPECT_EQ(testing::ErrorText([] { BatchVariableFromValues("a", {}); }),
+            "variables a:1:1: error: the variable has no values");
 }
 
-// --- --grounds ------------------------------------------------------------------------------
-
-TEST(BatchGrounds, AllIsEveryPresetInTheirOrder) {
-  const std::vector<BatchGround> all = ParseGroundList("all");
-  ASSERT_EQ(all.size(), GroundPresets().size());
-  for (size_t i = 0; i < all.size(); ++i) {
-    EXPECT_EQ(all[i].name, GroundPresets()[i].name);
-    ASSERT_TRUE(all[i].spec);
-    EXPECT_EQ(all[i].spec->kind, GroundKind::kReal);
-    EXPECT_EQ(all[i].spec->permittivity, GroundPresets()[i].permittivity);
-  }
-}
-
-TEST(BatchGrounds, ListMixesPresetsFreeAndPerfect) {
-  const std::vector<BatchGround> grounds = ParseGroundList("medium_dry, perfect,free");
-  ASSERT_EQ(grounds.size(), 3u);
-  EXPECT_EQ(grounds[0].name, "medium_dry");
-  EXPECT_EQ(grounds[0].spec->kind, GroundKind::kReal);
-  EXPECT_EQ(grounds[1].spec->kind, GroundKind::kPerfect);
-  EXPECT_EQ(grounds[2].spec->kind, GroundKind::kFree);
-}
-
-TEST(BatchGrounds, UnknownNameListsTheChoices) {
-  std::string names;
-  for (const GroundPreset& p : GroundPresets()) names += p.name + ", ";
-  EXPECT_EQ(testing::ErrorText([] { ParseGroundList("swamp"); }),
-            "--grounds:1:1: error: unknown ground 'swamp'; use all, or a comma-separated list "
-            "of " +
-                names + "free, perfect");
-  EXPECT_EQ(testing::ErrorText([] { ParseGroundList("free,free"); }),
-            "--grounds:1:1: error: ground 'free' is listed twice; list each ground once");
+TEST(BatchGround, NamesArePresetsThenFreeAndPerfect) {
+  const std::vector<std::string> names = BatchGroundNames();
+  ASSERT_EQ(names.size(), GroundPresets().size() + 2);
+  EXPECT_EQ(names.front(), GroundPresets().front().name);
+  EXPECT_EQ(names.back(), "perfect");
+  const std::optional<BatchGround> perfect = BatchGroundNamed("perfect", "grid");
+  ASSERT_TRUE(perfect && perfect->spec);
+  EXPECT_EQ(perfect->spec->kind, GroundKind::kPerfect);
+  EXPECT_EQ(perfect->spec->location.file, "grid");
+  EXPECT_FALSE(BatchGroundNamed("swamp", "grid"));
 }
 
 // --- the grid -------------------------------------------------------------------------------
 
 TEST(BatchGrid, IsTheProductWithGroundSlowestAndLastVariableFastest) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("free,perfect");
-  options.variables.push_back(ParseVary("total=9.5m,10.5m"));
-  options.variables.push_back(ParseVary("height=4m:6m:1m"));
+  options.grounds = Grounds({"free", "perfect"});
+  options.variables.push_back(BatchVariableFromValues("total", {"9.5m", "10.5m"}));
+  options.variables.push_back(BatchVariableFromRange("height", "4m", "6m", "1m"));
   EXPECT_EQ(BatchRowCount(options), 2.0 * 2.0 * 3.0);
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);
   ASSERT_EQ(result.rows.size(), 12u);
@@ -189,24 +119,24 @@ TEST(BatchGrid, RowsComeFromTheirIndexWithoutStoringTheGrid) {
 
 TEST(BatchGrid, GridPastTheHardCapIsRefusedEvenWithYesLarge) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("total=9m:10m:0.0002m"));
-  options.variables.push_back(ParseVary("height=1m:2m:0.0002m"));
-  options.variables.push_back(ParseVary("spare=1:10000:1"));
+  options.variables.push_back(BatchVariableFromRange("total", "9m", "10m", "0.0002m"));
+  options.variables.push_back(BatchVariableFromRange("height", "1m", "2m", "0.0002m"));
+  options.variables.push_back(BatchVariableFromRange("spare", "1", "10000", "1"));
   options.allow_large = true;
   const std::string model = std::string(kDipole) + "let spare = 1\n";
   int rows_run = 0;
   const std::string text = testing::ErrorText(
       [&] { RunBatch(model, "dipole.wire", options, [&](int, int) { ++rows_run; }); });
   EXPECT_EQ(rows_run, 0);
-  EXPECT_NE(text.find("more than 2147483647, the most one batch runs even with --yes-large"),
+  EXPECT_NE(text.find("more than 2147483647, the most one batch runs even with `allow_large`"),
             std::string::npos)
       << text;
 }
 
 TEST(BatchRows, RowSinkTakesEveryRowInGridOrderAndKeepsNone) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("free,perfect");
-  options.variables.push_back(ParseVary("total=9.5m,10m,10.5m"));
+  options.grounds = Grounds({"free", "perfect"});
+  options.variables.push_back(BatchVariableFromValues("total", {"9.5m", "10m", "10.5m"}));
   options.threads = 3;
   options.mesh_estimate = false;
   const BatchResult kept = RunBatch(kDipole, "dipole.wire", options);
@@ -235,7 +165,7 @@ TEST(BatchGrid, WithoutGroundsUsesTheModelsOwn) {
 
 TEST(BatchGrid, UnknownVariableIsAnInputErrorBeforeAnyRow) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("lenght=9m,10m"));
+  options.variables.push_back(BatchVariableFromValues("lenght", {"9m", "10m"}));
   int rows_run = 0;
   EXPECT_EQ(testing::ErrorText(
                 [&] { RunBatch(kDipole, "dipole.wire", options, [&](int, int) { ++rows_run; }); }),
@@ -246,24 +176,25 @@ TEST(BatchGrid, UnknownVariableIsAnInputErrorBeforeAnyRow) {
 
 TEST(BatchGrid, SetAndVaryOfOneVariableIsRefused) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("total=9m,10m"));
-  options.fixed_overrides.push_back(ParseOverride("total=9m"));
+  options.variables.push_back(BatchVariableFromValues("total", {"9m", "10m"}));
+  options.fixed_overrides.push_back(Override{"total", "9m", ""});
   EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
-            "variables total: error: this variable is also given to --set; drop one of them");
+            "variables total: error: this variable is also given to `fixed_overrides`; drop one of "
+            "them");
 }
 
 TEST(BatchGrid, LargeGridNeedsConfirmation) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("total=1m:3001m:1m"));
+  options.variables.push_back(BatchVariableFromRange("total", "1m", "3001m", "1m"));
   EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
             "batch: error: the grid has 3001 rows (1 ground x 3001 values of total), more than "
-            "2000; each row is a sweep and a pattern. Use fewer grounds or coarser --vary steps, "
-            "or pass --yes-large to run it anyway");
+            "2000; each row is a sweep and a pattern. Use fewer grounds or coarser `variables` "
+            "steps, or pass `allow_large` to run it anyway");
 }
 
 TEST(BatchGrid, ElevationBelowTheHorizonIsRefusedOverAGround) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("perfect");
+  options.grounds = Grounds({"perfect"});
   options.elevation_deg = -5.0;
   EXPECT_EQ(testing::ErrorText([&] { RunBatch(kDipole, "dipole.wire", options); }),
             "elevation_deg:1:1: error: elevation_deg must lie between 0 and 90 degrees over a "
@@ -272,7 +203,7 @@ TEST(BatchGrid, ElevationBelowTheHorizonIsRefusedOverAGround) {
 
 TEST(BatchRows, AFailingRowKeepsItsReasonAndTheOthersRun) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("total=10m,0m,9m"));
+  options.variables.push_back(BatchVariableFromValues("total", {"10m", "0m", "9m"}));
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);
   ASSERT_EQ(result.rows.size(), 3u);
   EXPECT_EQ(result.rows_failed, 1);
@@ -288,7 +219,7 @@ TEST(BatchRows, AFailingRowKeepsItsReasonAndTheOthersRun) {
 
 TEST(BatchRows, EveryRowFailingThrowsTheFirstRowsError) {
   BatchOptions options = SmallOptions();
-  options.variables.push_back(ParseVary("total=0m,0m"));
+  options.variables.push_back(BatchVariableFromValues("total", {"0m", "0m"}));
   EXPECT_NE(testing::ErrorText([&] {
               RunBatch(kDipole, "dipole.wire", options);
             }).find("wire 'd' has zero length"),
@@ -297,8 +228,8 @@ TEST(BatchRows, EveryRowFailingThrowsTheFirstRowsError) {
 
 TEST(BatchRows, ResultsDoNotDependOnTheThreadCount) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("free,perfect");
-  options.variables.push_back(ParseVary("total=9.5m:10.5m:0.5m"));
+  options.grounds = Grounds({"free", "perfect"});
+  options.variables.push_back(BatchVariableFromRange("total", "9.5m", "10.5m", "0.5m"));
   options.at_hz = {14.2e6};
   options.threads = 1;
   const BatchResult one = RunBatch(kDipole, "dipole.wire", options);
@@ -320,8 +251,8 @@ TEST(BatchRows, ResultsDoNotDependOnTheThreadCount) {
 
 TEST(BatchSummary, BestRowHasTheHighestLowAngleGain) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("perfect");
-  options.variables.push_back(ParseVary("height=3m,10m"));
+  options.grounds = Grounds({"perfect"});
+  options.variables.push_back(BatchVariableFromValues("height", {"3m", "10m"}));
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);
   const BatchSummary summary = SummarizeBatch(result);
   ASSERT_TRUE(summary.best_row);
@@ -333,7 +264,7 @@ TEST(BatchSummary, BestRowHasTheHighestLowAngleGain) {
 
 TEST(BatchRows, LossyGroundTakesPowerThatAPerfectGroundReflects) {
   BatchOptions options = SmallOptions();
-  options.grounds = ParseGroundList("perfect,medium_dry");
+  options.grounds = Grounds({"perfect", "medium_dry"});
   const BatchResult result = RunBatch(kDipole, "dipole.wire", options);
   ASSERT_EQ(result.rows.size(), 2u);
   ASSERT_FALSE(result.rows[0].error) << *result.rows[0].error;
@@ -363,8 +294,8 @@ TEST(BatchRows, EachWarningOnceHoweverManyBandsAndGrounds) {
   low.name = "low";
   low.frequencies_hz = FrequencyPoints(6.5e6, 7.5e6, 3);
   options.spans.insert(options.spans.begin(), low);
-  options.grounds = ParseGroundList("medium_dry,wet_ground");
-  options.fixed_overrides.push_back(Override{"height", "3m"});
+  options.grounds = Grounds({"medium_dry", "wet_ground"});
+  options.fixed_overrides.push_back(Override{"height", "3m", ""});
   const BatchResult result = RunBatch(kGroundedVertical, "low_vertical.wire", options);
   ASSERT_EQ(result.rows.size(), 2u);
   int connected = 0;

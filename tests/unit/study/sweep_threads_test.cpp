@@ -4,6 +4,7 @@
 // grouping across threads changes only the rounding.
 #include <gtest/gtest.h>
 
+#include "unit/error_text.hpp"
 #include "wirefield/sweep.hpp"
 #include "wirefield/wirefield.hpp"
 
@@ -46,6 +47,17 @@ TEST(SweepThreads, ExactSweepAgreesForOneAndTwoWorkersToRounding) {
     const Complex z1 = one.points[i].feed_impedance_ohm, z2 = two.points[i].feed_impedance_ohm;
     EXPECT_LE(std::abs(z2 - z1), 1e-10 * std::abs(z1)) << i;
   }
+}
+
+TEST(SweepThreads, ANegativeThreadCountIsRefusedNamingTheField) {
+  SweepOptions o;
+  o.threads = -2;
+  EXPECT_EQ(testing::ErrorText([&] { o.Validate(); }),
+            "threads:1:1: error: threads must be 0 (one per core) or a positive count; got -2");
+  o.threads = 0;
+  o.stress = StressOptions{};
+  o.stress->power_w = -1.0;
+  EXPECT_EQ(testing::ErrorText([&] { o.Validate(); }).rfind("power_w:1:1: error: power_w", 0), 0u);
 }
 
 }  // namespace
