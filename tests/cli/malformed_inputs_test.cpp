@@ -271,7 +271,7 @@ std::vector<MalformedCase> Cases() {
       {"choke_points_going_down",
        kGood + "load l at dip@25% choke (14MHz, 5ohm, 100ohm), (7MHz, 5ohm, 100ohm)\n", 5, 48,
        "must go up in frequency"},
-      {"choke_winding_without_al", kGood + "load l at dip@25% choke turns=8\n", 5, 33,
+      {"choke_winding_without_al", kGood + "load l at dip@25% choke turns=8\n", 5, 32,
        "turns=N al=A_L"},
       {"load_without_elements", kGood + "load l at dip@25% series\n", 5, 25, "none of R, L, C"},
       {"trailing_words", kBody + "frequency 14.2MHz please\n", 4, 19, "unexpected 'please'"},

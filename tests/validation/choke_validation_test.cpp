@@ -26,9 +26,15 @@ std::string EndFed(const std::string& choke) {
   return text;
 }
 
+// The model meshed for frequency_hz.
+Simulation Meshed(const std::string& text, double frequency_hz) {
+  SimulationOptions options;
+  options.max_frequency_hz = frequency_hz;
+  return Simulation(ParseModelText(text, "endfed.wire"), options);
+}
+
 SolveResult SolveText(const std::string& text, double frequency_hz) {
-  const Simulation sim(ParseModelText(text, "endfed.wire"));
-  return sim.Solve(frequency_hz);
+  return Meshed(text, frequency_hz).Solve(frequency_hz);
 }
 
 TEST(ChokeLoad, PointsAreInterpolatedLinearlyInFrequency) {
@@ -60,7 +66,7 @@ TEST(ChokeLoad, ItsLossClosesThePowerBalance) {
   // Energy conservation (Poynting's theorem): in free space the feed power is what the far
   // field carries away plus what the loads dissipate; the choke's 0.5 |I|^2 R is in the loads.
   // Required: within 1%.
-  const Simulation sim(ParseModelText(EndFed("(7.1MHz, 300ohm, 400ohm)"), "endfed.wire"));
+  const Simulation sim = Meshed(EndFed("(7.1MHz, 300ohm, 400ohm)"), 7.1e6);
   const SolveResult r = sim.Solve(7.1e6);
   const LoadResult& l = r.loads[0];
   EXPECT_NEAR(l.power_w, 0.5 * std::norm(l.current_a) * 300.0, 1e-12 * l.power_w);
@@ -93,8 +99,8 @@ TEST(ChokeLoad, AVeryHighImpedanceCutsTheWire) {
 }
 
 TEST(ChokeLoad, ARunOutsideItsPointsNamesTheLoad) {
-  const Simulation sim(
-      ParseModelText(EndFed("(7MHz, 1000ohm, 600ohm), (14MHz, 2000ohm, -200ohm)"), "endfed.wire"));
+  const Simulation sim =
+      Meshed(EndFed("(7MHz, 1000ohm, 600ohm), (14MHz, 2000ohm, -200ohm)"), 21.2e6);
   try {
     sim.Solve(21.2e6);
     FAIL() << "no error";

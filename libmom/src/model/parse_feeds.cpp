@@ -375,10 +375,10 @@ ChokeSpec Parser::ChokeClauses(const std::string& context) {
       const Token& start = Peek();
       const ChokePoint point = ChokeTablePoint(context);
       if (!choke.points.empty() && !(point.frequency_hz > choke.points.back().frequency_hz)) {
-        throw Error(start, fmt::format("{}: the choke's points must go up in frequency; {} "
-                                       "Hz follows {} Hz",
-                                       context, FormatNumber(point.frequency_hz),
-                                       FormatNumber(choke.points.back().frequency_hz)));
+        throw Error(start, fmt::format("{}: the choke's points must go up in frequency; "
+                                       "{:.6g} MHz follows {:.6g} MHz",
+                                       context, point.frequency_hz / 1e6,
+                                       choke.points.back().frequency_hz / 1e6));
       }
       choke.points.push_back(point);
       if (!IsPunct(",")) break;

@@ -55,7 +55,7 @@ TEST(ChokeParse, ErrorsSayWhatToChange) {
             "ohm");
   EXPECT_EQ(ErrorOf("load cm at cp@1m choke (14MHz, 5ohm, 1ohm), (7MHz, 5ohm, 1ohm)"),
             "camp.wire:4:45: error: load 'cm': the choke's points must go up in frequency; "
-            "7000000 Hz follows 14000000 Hz");
+            "7 MHz follows 14 MHz");
   EXPECT_EQ(ErrorOf("load cm at cp@1m choke (7MHz, 5ohm)"),
             "camp.wire:4:35: error: load 'cm': expected ',' after R (F, R, X); got ')'");
   EXPECT_EQ(ErrorOf("load cm at cp@1m choke turns=8"),
@@ -65,9 +65,9 @@ TEST(ChokeParse, ErrorsSayWhatToChange) {
             "camp.wire:4:35: error: load 'cm': al needs A_L in nH/turn^2 (a plain number, or "
             "with nH); got a capacitance (F)");
   EXPECT_EQ(ErrorOf("load cm at cp@1m choke turns=8 al=100 q=0"),
-            "camp.wire:4:43: error: load 'cm': q must be positive; got 0");
+            "camp.wire:4:41: error: load 'cm': q must be positive; got 0");
   EXPECT_EQ(ErrorOf("load cm at cp@1m choke (7MHz, 5ohm, 1ohm) extra"),
-            "camp.wire:4:42: error: load 'cm': unexpected 'extra' after the choke's points; "
+            "camp.wire:4:43: error: load 'cm': unexpected 'extra' after the choke's points; "
             "separate points with commas");
 }
 
