@@ -155,6 +155,15 @@ std::string LoadElements(const LoadSpec* load, double frequency_hz) {
                        load->coil->turns, coil.inductance_h * 1e6, coil.ac_resistance_ohm,
                        coil.self_capacitance_f * 1e12, coil.q);
   }
+  if (load->choke) {
+    const ChokeSpec& choke = *load->choke;
+    if (!choke.points.empty()) {
+      return fmt::format("choke, curve of {} point{}", choke.points.size(),
+                         choke.points.size() == 1 ? "" : "s");
+    }
+    return fmt::format("choke {:.6g} turns on A_L={:.6g}nH{}", choke.turns, choke.al_nh,
+                       choke.q ? fmt::format(" Q={:.4g}", *choke.q) : std::string(" lossless"));
+  }
   std::vector<std::string> parts;
   if (load->resistance_ohm) parts.push_back(fmt::format("R={:.6g}ohm", *load->resistance_ohm));
   if (load->inductance_h) parts.push_back(fmt::format("L={:.6g}uH", *load->inductance_h * 1e6));
