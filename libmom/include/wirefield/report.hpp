@@ -35,6 +35,26 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
 std::string FormatSolveJson(const Simulation& simulation, const SolveResult& result,
                             const StressResult* stress = nullptr);
 
+// ---- the current on every segment (solve --currents) ----------------------------------------
+
+// What the currents of a solve are scaled to: the solved ones (a source of 1 V peak at each
+// feed unless the model gives another voltage) have factor 1; at a transmitter power, the
+// stress's scale (StressResult::scale).
+struct CurrentsScale {
+  double factor = 1.0;
+  std::string excitation;  // said beside every value: "1 V peak at each feed", "100 W ..."
+};
+// One CSV row per segment, each wire's segments in order from its start: the wire, the
+// segment's number on it (from 1), its distance from the wire's start (from_m, to_m), its ends,
+// and the current's peak magnitude (A) and phase (degrees) at its start, centre and end (the
+// current flows positive from start to end), with the excitation. Non-finite currents:
+// ComputationError.
+std::string FormatCurrentsCsv(const Simulation& simulation, const SolveResult& result,
+                              const CurrentsScale& scale);
+// The same as one JSON document {"model", "frequency_hz", "excitation", "segments": [...]}.
+std::string FormatCurrentsJson(const Simulation& simulation, const SolveResult& result,
+                               const CurrentsScale& scale);
+
 // ---- pattern -------------------------------------------------------------------------------
 
 // Reports (the command-line program prints these).
