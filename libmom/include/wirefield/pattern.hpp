@@ -100,7 +100,7 @@ struct PowerBudget {
   double input_w = 0.0;
   double radiated_w = 0.0;  // integrated over the sphere (free) or the upper half-space
   double loads_w = 0.0;
-  double wires_w = 0.0;
+  double wires_w = 0.0;  // skin effect of lossy wires plus dielectric loss of insulated ones
   // Over a real ground: the power the ground absorbs, input - radiated - loads - wires (the
   // balance cannot be checked then, and balance_error is 0). 0 otherwise.
   double ground_w = 0.0;

@@ -120,7 +120,9 @@ struct SolveResult {
   std::vector<FeedResult> feeds;
   std::vector<LoadResult> loads;
   std::vector<SegmentCurrent> currents;
-  double wire_loss_w = 0.0;  // power dissipated in lossy conductors (skin effect), W
+  // Power dissipated along the wires, W: the skin effect of lossy conductors and the
+  // dielectric loss of insulated wires' jackets.
+  double wire_loss_w = 0.0;
   // Condition number of the moment-method matrix in the 1-norm, estimated from its LU
   // factors (1 / LAPACK zgecon's rcond): each decade of it costs a digit of the currents'
   // 16. The solve refuses the model above 1e14 (ComputationError).
