@@ -515,30 +515,28 @@ void Parser::InsulationPart(const std::string& context, InsulationClauses* c) {
                                   "permittivity= and loss_tangent= by hand",
                                   context, c->preset->text, word, c->preset->text));
   }
-  if (word == "permittivity") {
-    if (c->permittivity) throw twice();
-    const double eps = Plain(m, what, "relative to vacuum");
-    not_finite(eps);
-    if (eps < 1.0) {
-      throw Error(m.start, fmt::format("{} must be at least 1 (relative to vacuum; plastics "
-                                       "are about 2 to 5); got {}",
-                                       what, FormatNumber(eps)));
+  // A plain number of at least `least`; below it an error saying what the part needs.
+  auto plain_value = [&](std::optional<Measured>* slot, const char* meaning, double least,
+                         const char* need) {
+    if (*slot) throw twice();
+    const double v = Plain(m, what, meaning);
+    not_finite(v);
+    if (v < least) {
+      throw Error(m.start, fmt::format("{} {}; got {}", what, need, FormatNumber(v)));
     }
-    InRange(ValueKind::kPermittivity, eps, m, what);
-    c->relative_permittivity = eps;
-    c->permittivity = m;
+    *slot = m;
+    return v;
+  };
+  if (word == "permittivity") {
+    c->relative_permittivity =
+        plain_value(&c->permittivity, "relative to vacuum", 1.0,
+                    "must be at least 1 (relative to vacuum; plastics are about 2 to 5)");
+    InRange(ValueKind::kPermittivity, c->relative_permittivity, m, what);
     return;
   }
-  if (c->loss_tangent) throw twice();
-  const double tan_d = Plain(m, what, "tan delta; 0 for a lossless plastic");
-  not_finite(tan_d);
-  if (tan_d < 0.0) {
-    throw Error(m.start, fmt::format("{} must not be negative (0 for a lossless plastic, "
-                                     "about 0.0003 for polyethylene); got {}",
-                                     what, FormatNumber(tan_d)));
-  }
-  c->loss_tangent_value = tan_d;
-  c->loss_tangent = m;
+  c->loss_tangent_value =
+      plain_value(&c->loss_tangent, "tan delta; 0 for a lossless plastic", 0.0,
+                  "must not be negative (0 for a lossless plastic, about 0.0003 for polyethylene)");
 }
 
 // Completes the insulation against the wire's radius: its size and its plastic, checked.
