@@ -76,6 +76,16 @@ struct WirePointSpec {
   SourceLocation location;  // of the WIRE@POS text
 };
 
+// A plastic jacket on a wire, read from the `insulation` clause of `wire` and `shape`; the
+// solve adds its thin-coating series impedance along the wire (docs/numerics.md).
+struct InsulationSpec {
+  std::string preset;                  // "pvc", "pe" or "ptfe" as written; empty when given by hand
+  double thickness_m = 0.0;            // radial: the jacket's outer radius minus the conductor's
+  double relative_permittivity = 1.0;  // real part, at HF
+  double loss_tangent = 0.0;           // tan delta, at HF; 0 for a lossless jacket
+  SourceLocation location;             // of the word `insulation`
+};
+
 struct WireSpec {
   std::string name;
   Point from_m{};  // the start (the first point of a bent wire)
@@ -97,6 +107,7 @@ struct WireSpec {
   std::string material;                        // e.g. "copper", as written in the model
   std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
   double relative_permeability = 1.0;          // steel > 1
+  std::optional<InsulationSpec> insulation;    // empty: a bare wire
   SourceLocation location;
   // Where each corner of WirePath was written (the '(' of its point), in path order; empty
   // when the corners were computed (a `shape`).

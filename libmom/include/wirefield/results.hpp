@@ -101,7 +101,9 @@ struct SolveResult {
   std::vector<FeedResult> feeds;
   std::vector<LoadResult> loads;
   std::vector<SegmentCurrent> currents;
-  double wire_loss_w = 0.0;  // power dissipated in lossy conductors (skin effect), W
+  // Power dissipated along the wires, W: the skin effect of lossy conductors and the
+  // dielectric loss of insulated wires' jackets.
+  double wire_loss_w = 0.0;
   // Condition number of the moment-method matrix in the 1-norm, estimated from its LU
   // factors (1 / LAPACK zgecon's rcond): each decade of it costs a digit of the currents'
   // 16. The solve refuses the model above 1e14 (ComputationError).
@@ -176,7 +178,7 @@ struct PowerBudget {
   double input_w = 0.0;
   double radiated_w = 0.0;  // integrated over the sphere (free) or the upper half-space
   double loads_w = 0.0;
-  double wires_w = 0.0;
+  double wires_w = 0.0;  // skin effect of lossy wires plus dielectric loss of insulated ones
   // Over a real ground: the power the ground absorbs, input - radiated - loads - wires (the
   // balance cannot be checked then, and balance_error is 0). 0 otherwise.
   double ground_w = 0.0;

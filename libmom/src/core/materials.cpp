@@ -1,6 +1,7 @@
-// Core: the conductor material table. Figures are handbook and standard values for wire at
-// about 20 degC; those not checked against the document cited are marked "(from memory)".
-// See docs/model-language.md ("Conductor materials") for the table as users read it.
+// Core: the conductor material table and the jacket plastics' table. Figures are handbook and
+// standard values for wire at about 20 degC; those not checked against the document cited are
+// marked "(from memory)". See docs/model-language.md ("Conductor materials", "Insulation") for
+// the tables as users read them.
 #include "core/materials.hpp"
 
 #include <array>
@@ -51,7 +52,39 @@ struct Alias {
 };
 constexpr std::array<Alias, 1> kAliases = {{{"aluminum", "aluminium"}}};
 
+// Jacket plastics at HF (1 to 30 MHz), room temperature. All from memory: handbook tables of
+// plastics give these at 1 MHz and they change little across HF, except PVC, whose
+// plasticiser sets both figures.
+constexpr std::array<Dielectric, 3> kDielectrics = {{
+    // Plasticised PVC (from memory): relative permittivity about 3 to 5 and loss tangent
+    // about 0.02 to 0.1 at 1 to 10 MHz, depending on the plasticiser; a mid value of each.
+    {"pvc", 4.0, 0.05,
+     "plasticised PVC, relative permittivity about 4 and loss tangent about 0.05 at HF; "
+     "the plasticiser moves them within about 3 to 5 and 0.02 to 0.1 (from memory)"},
+    // Solid low-density polyethylene (from memory): 2.3 and about 3e-4, flat across HF.
+    {"pe", 2.3, 3e-4,
+     "solid polyethylene, relative permittivity 2.3, loss tangent about 0.0003 at HF "
+     "(from memory)"},
+    // Solid PTFE (from memory): 2.1 and about 2e-4, flat across HF.
+    {"ptfe", 2.1, 2e-4,
+     "solid PTFE, relative permittivity 2.1, loss tangent about 0.0002 at HF (from memory)"},
+}};
+
 }  // namespace
+
+const Dielectric* FindDielectric(std::string_view name) {
+  for (const Dielectric& d : kDielectrics) {
+    if (name == d.name) return &d;
+  }
+  return nullptr;
+}
+
+std::vector<std::string> DielectricNames() {
+  std::vector<std::string> names;
+  names.reserve(kDielectrics.size());
+  for (const Dielectric& d : kDielectrics) names.emplace_back(d.name);
+  return names;
+}
 
 const Material* FindMaterial(std::string_view name) {
   for (const Alias& a : kAliases) {

@@ -15,7 +15,7 @@
 #include <cstdint>
 #include <optional>
 
-#include "conductor/wire_impedance.hpp"
+#include "conductor/coating.hpp"
 #include "core/constants.hpp"
 #include "core/fresh_memory.hpp"
 #include "core/parallel.hpp"
@@ -475,9 +475,8 @@ void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double fre
   for (size_t s = 0; s < mesh.segments.size(); ++s) {
     const geometry::Segment& seg = mesh.segments[s];
     const WireSpec& wire = model.wires[seg.wire];
-    if (!wire.conductivity_s_per_m) continue;
-    const Complex per_metre = conductor::WireImpedancePerMetre(
-        seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz);
+    if (!conductor::HasSeriesImpedance(wire)) continue;
+    const Complex per_metre = conductor::SeriesImpedancePerMetre(wire, seg.radius_m, frequency_hz);
     const Complex zs = per_metre * seg.length_m();
     // int_0^1 (a_m + b_m t)(a_n + b_n t) dt for the two pieces' linear currents.
     for (const PieceRef& pm : on_segment[s]) {

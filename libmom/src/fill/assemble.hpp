@@ -67,7 +67,8 @@ void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_h
 void AddLoads(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
               const MatrixAddition& add);
 
-// Adds the skin-effect impedance of lossy wires (Model::wires[].conductivity_s_per_m) as a
+// Adds the series impedance of lossy wires (Model::wires[].conductivity_s_per_m, skin effect)
+// and of insulated ones (Model::wires[].insulation, the thin-coating impedance) as a
 // distributed series impedance: Z_mn += Z' int f_m . f_n dl over each segment.
 void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double frequency_hz,
                       Eigen::MatrixXcd* z);

@@ -230,6 +230,27 @@ constexpr const char* kMixedGroundMeasured =
     "on a 14.2 MHz end-fed sloper from 2 m to 9 m over medium dry ground, with exact_below at 0.3 "
     "wavelength";
 
+// The thin-coating approximation of an insulated wire takes the field across the jacket as
+// static, which needs the jacket thin against the wavelength in the plastic: at a hundredth of
+// it, k t = 0.063 (docs/numerics.md, "Insulated wire").
+constexpr double kMaxCoatingWavelengths = 0.01;
+
+// An insulated wire whose jacket is not thin against the wavelength in it: say so.
+void InsulationWarning(const WireSpec& spec, double frequency_hz, std::vector<Warning>* warnings) {
+  if (!spec.insulation) return;
+  const InsulationSpec& jacket = *spec.insulation;
+  const double wavelength_m =
+      core::kSpeedOfLight_m_per_s / (frequency_hz * std::sqrt(jacket.relative_permittivity));
+  if (jacket.thickness_m <= kMaxCoatingWavelengths * wavelength_m) return;
+  warnings->push_back(
+      {jacket.location,
+       fmt::format("wire '{}': the insulation, {:.3g} m thick, is {:.3g} of the wavelength in "
+                   "it at {:.6g} MHz (more than {:g}): the thin-coating approximation needs a "
+                   "jacket thin against that wavelength; check the thickness",
+                   spec.name, jacket.thickness_m, jacket.thickness_m / wavelength_m,
+                   frequency_hz / 1e6, kMaxCoatingWavelengths)});
+}
+
 // A wire low over a real ground, or connected to it: say what the model misses. exact_m:
 // the height below which the matrix uses the exact half-space (0 when it does not).
 void RealGroundWarning(const WireSpec& spec, bool connected, double zmin_m, double wavelength_m,
@@ -619,6 +640,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                        "segments or a thinner wire",
                        spec.name, shortest_seg, kMinSegmentRadii, spec.radius_m)});
     }
+    InsulationWarning(spec, options.max_frequency_hz, &mesh.warnings);
     if (longest_seg > kMaxSegmentWavelengths * wavelength_m) {
       mesh.warnings.push_back(
           {spec.location,

@@ -60,7 +60,9 @@ bool IsClauseWord(std::string_view name) {
       "conductivity", "from", "to", "at", "material", "permeability", "diameter",
       // a coil's close-wound, a transformer's refused ratio, transformer and line clauses
       "close", "ratio", "turns", "magnetizing", "al", "leakage", "compensation", "coreloss", "q",
-      "length", "cable", "z0", "velocity", "loss"};
+      "length", "cable", "z0", "velocity", "loss",
+      // a wire's insulation and its parts
+      "insulation", "thickness", "outer_diameter", "loss_tangent"};
   for (std::string_view w : kWords) {
     if (w == name) return true;
   }

@@ -1,8 +1,10 @@
 // Model stage: the statements that put up the wires: `wire` (straight, from/to, or bent,
 // through points) and `shape` (a wire laid out the way it is put up in the field), with the
-// clauses they share: radius or diameter, segments, and the conductor (material or
-// conductivity and permeability). Inputs: the statement's tokens; output: the Model's wires.
+// clauses they share: radius or diameter, segments, the conductor (material or conductivity
+// and permeability) and the insulation. Inputs: the statement's tokens; output: the Model's
+// wires.
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <algorithm>
 #include <cmath>
@@ -24,6 +26,12 @@ constexpr size_t kMaxWires = 10000;
 constexpr double kMaxSegmentsPerWire = 100000.0;
 // Bytes per matrix entry (a complex double), for the memory estimate in messages.
 constexpr double kBytesPerMatrixEntry = 16.0;
+// The parts of an insulation clause that follow the word `insulation`, each written PART=VALUE.
+constexpr const char* kInsulationParts[] = {"thickness", "outer_diameter", "permittivity",
+                                            "loss_tangent"};
+// An outer radius above this many conductor radii makes the thin-coating approximation rough
+// (docs/numerics.md, "Insulated wire": its error grows with ln(b/a)).
+constexpr double kMaxThinCoatingRatio = 10.0;
 
 }  // namespace
 
@@ -137,6 +145,7 @@ void Parser::WireClauses(const std::string& context, std::optional<double> known
   std::optional<double> radius_m;
   bool have_segments = false;
   ConductorClauses conductor;
+  InsulationClauses insulation;
   while (Peek().kind != TokenKind::kEnd) {
     const Token& clause = Peek();
     if (IsWord("radius") || IsWord("diameter")) {
@@ -186,6 +195,8 @@ void Parser::WireClauses(const std::string& context, std::optional<double> known
       have_segments = true;
     } else if (IsWord("material") || IsWord("conductivity") || IsWord("permeability")) {
       Conductor(context, &conductor);
+    } else if (IsInsulationWord()) {
+      Insulation(context, &insulation);
     } else if (!extra_clause || !extra_clause()) {
       if (IsDecimalComma()) throw DecimalCommaError();
       throw Error(clause,
@@ -208,6 +219,7 @@ void Parser::WireClauses(const std::string& context, std::optional<double> known
     wire->conductivity_s_per_m = *conductor.conductivity;
     wire->relative_permeability = conductor.permeability.value_or(1.0);
   }
+  if (insulation.word) ApplyInsulation(context, insulation, wire);
 }
 
 // The number of the expression that starts at tokens_[from] and ends at pos_ when it is
@@ -321,7 +333,7 @@ void Parser::Shape(const Token& keyword) {
       context, std::nullopt, &wire, shape_clause,
       "after the kind come top=H, length=L, radius R (or diameter D) and the optional low=HL, "
       "toward=AZ, at (X, Y), 'segments N', 'material NAME' or 'conductivity=SIGMA "
-      "[permeability=MU_R]'");
+      "[permeability=MU_R]', and 'insulation PLASTIC thickness=T'");
   if (!top) throw Expected(context, "'top=H' (the height of the support's top)");
   if (!length) throw Expected(context, "'length=L' (the length of the wire)");
   request.top_m = *top;
@@ -422,6 +434,158 @@ std::string Parser::MaterialList() {
     }
   }
   return list;
+}
+
+// True at `insulation` or at one of its parts (thickness=, outer_diameter=, ...).
+bool Parser::IsInsulationWord() const {
+  if (IsWord("insulation")) return true;
+  return std::any_of(std::begin(kInsulationParts), std::end(kInsulationParts),
+                     [this](const char* part) { return IsWord(part); });
+}
+
+// Reads `insulation [PLASTIC]` or one of its parts, PART=VALUE. A part given before the word
+// `insulation` is an error: it belongs to that clause.
+void Parser::Insulation(const std::string& context, InsulationClauses* c) {
+  const Token word = Peek();
+  if (word.text != "insulation") {
+    if (!c->word) {
+      throw Error(word, fmt::format("{}: {}= is part of the insulation clause; write "
+                                    "'insulation PLASTIC {}=...' (or 'insulation "
+                                    "permittivity=EPS_R ...')",
+                                    context, word.text, word.text));
+    }
+    return InsulationPart(context, c);
+  }
+  if (c->word) throw Error(word, fmt::format("{}: insulation is given twice", context));
+  Next();
+  c->word = word;
+  // A plastic's name follows, unless the next word starts another clause.
+  const Token& name = Peek();
+  const bool next_is_clause =
+      IsInsulationWord() || IsWord("radius") || IsWord("diameter") || IsWord("segments") ||
+      IsWord("material") || IsWord("at") ||
+      (pos_ + 1 < tokens_.size() && tokens_[pos_ + 1].kind == TokenKind::kPunct &&
+       tokens_[pos_ + 1].text == "=");
+  if (name.kind != TokenKind::kName || next_is_clause) return;
+  const std::vector<std::string> plastics = core::DielectricNames();
+  const std::string list = fmt::format("{}", fmt::join(plastics, ", "));
+  if (core::FindDielectric(name.text) == nullptr) {
+    throw Error(
+        name, fmt::format("{}: unknown insulation '{}'{}; the plastics are {}, or give "
+                          "your own with permittivity=EPS_R [loss_tangent=TAN_D]",
+                          context, Shorten(name.text), DidYouMeanAside(name.text, plastics), list));
+  }
+  c->preset = name;
+  Next();
+}
+
+// Reads one part of the insulation clause, PART=VALUE, checked on its own.
+void Parser::InsulationPart(const std::string& context, InsulationClauses* c) {
+  const Token part = Next();
+  const std::string& word = part.text;
+  ExpectPunct("=", context, fmt::format("'=' after {}", word));
+  const Measured m = Expression();
+  const std::string what = fmt::format("{}: insulation {}", context, word);
+  auto twice = [&] { return Error(part, fmt::format("{} is given twice", what)); };
+  auto not_finite = [&](double v) {
+    if (!std::isfinite(v)) throw Error(m.start, fmt::format("{} is not a finite number", what));
+  };
+  if (word == "thickness" || word == "outer_diameter") {
+    const bool is_thickness = word == "thickness";
+    std::optional<Measured>& slot = is_thickness ? c->thickness : c->outer_diameter;
+    if (slot) throw twice();
+    if (c->thickness || c->outer_diameter) {
+      throw Error(part, fmt::format("{}: give the insulation either thickness=T (radial) or "
+                                    "outer_diameter=D, not both",
+                                    context));
+    }
+    const double size_m = As(m, LengthQuantity(), length_factor_, what);
+    not_finite(size_m);
+    if (!(size_m > 0.0)) {
+      throw Error(m.start, fmt::format("{} must be positive; got {} m (leave out insulation "
+                                       "for a bare wire)",
+                                       what, FormatNumber(size_m)));
+    }
+    (is_thickness ? c->thickness_m : c->outer_diameter_m) = size_m;
+    slot = m;
+    return;
+  }
+  if (c->preset && (word == "permittivity" || word == "loss_tangent")) {
+    throw Error(part, fmt::format("{}: insulation {} sets its own {}; leave out '{}' to give "
+                                  "permittivity= and loss_tangent= by hand",
+                                  context, c->preset->text, word, c->preset->text));
+  }
+  // A plain number of at least `least`; below it an error saying what the part needs.
+  auto plain_value = [&](std::optional<Measured>* slot, const char* meaning, double least,
+                         const char* need) {
+    if (*slot) throw twice();
+    const double v = Plain(m, what, meaning);
+    not_finite(v);
+    if (v < least) {
+      throw Error(m.start, fmt::format("{} {}; got {}", what, need, FormatNumber(v)));
+    }
+    *slot = m;
+    return v;
+  };
+  if (word == "permittivity") {
+    c->relative_permittivity =
+        plain_value(&c->permittivity, "relative to vacuum", 1.0,
+                    "must be at least 1 (relative to vacuum; plastics are about 2 to 5)");
+    InRange(ValueKind::kPermittivity, c->relative_permittivity, m, what);
+    return;
+  }
+  c->loss_tangent_value =
+      plain_value(&c->loss_tangent, "tan delta; 0 for a lossless plastic", 0.0,
+                  "must not be negative (0 for a lossless plastic, about 0.0003 for polyethylene)");
+}
+
+// Completes the insulation against the wire's radius: its size and its plastic, checked.
+void Parser::ApplyInsulation(const std::string& context, const InsulationClauses& c,
+                             WireSpec* wire) {
+  if (!c.thickness && !c.outer_diameter) {
+    throw Error(*c.word, fmt::format("{}: insulation needs the jacket's size: thickness=T "
+                                     "(radial) or outer_diameter=D",
+                                     context));
+  }
+  if (!c.preset && !c.permittivity) {
+    throw Error(*c.word, fmt::format("{}: insulation needs its plastic ({}) or "
+                                     "permittivity=EPS_R [loss_tangent=TAN_D]",
+                                     context, fmt::join(core::DielectricNames(), ", ")));
+  }
+  InsulationSpec spec;
+  spec.location = Loc(*c.word);
+  if (c.preset) {
+    const core::Dielectric* plastic = core::FindDielectric(c.preset->text);
+    spec.preset = plastic->name;
+    spec.relative_permittivity = plastic->relative_permittivity;
+    spec.loss_tangent = plastic->loss_tangent;
+  } else {
+    spec.relative_permittivity = c.relative_permittivity;
+    spec.loss_tangent = c.loss_tangent_value;
+  }
+  const double a_m = wire->radius_m;
+  if (c.outer_diameter) {
+    if (!(c.outer_diameter_m > 2.0 * a_m)) {
+      throw Error(c.outer_diameter->start,
+                  fmt::format("{}: insulation outer_diameter {} m is not more than the wire's "
+                              "diameter {} m; give the jacket's outside diameter, or its "
+                              "thickness=T",
+                              context, FormatNumber(c.outer_diameter_m), FormatNumber(2.0 * a_m)));
+    }
+    spec.thickness_m = c.outer_diameter_m / 2.0 - a_m;
+  } else {
+    spec.thickness_m = c.thickness_m;
+  }
+  const double ratio = (a_m + spec.thickness_m) / a_m;
+  if (ratio > kMaxThinCoatingRatio) {
+    model_.warnings.push_back(Warning{
+        spec.location,
+        fmt::format("{}: the insulation's outer radius is {:.3g} times the conductor's (more "
+                    "than {:g}): the thin-coating approximation is rough for so thick a jacket; "
+                    "check the thickness (a bare number is in the `units` length)",
+                    context, ratio, kMaxThinCoatingRatio)});
+  }
+  wire->insulation = spec;
 }
 
 }  // namespace wirefield::model

@@ -44,6 +44,17 @@ class Parser {
     std::optional<double> permeability;
     std::optional<Token> permeability_token;
   };
+  // The insulation clause of a wire, as read (parse_wires.cpp): checked as its parts come,
+  // completed against the wire's radius once all its clauses are read.
+  struct InsulationClauses {
+    std::optional<Token> word;  // `insulation`, once given
+    std::optional<Token> preset;
+    std::optional<Measured> thickness, outer_diameter, permittivity, loss_tangent;
+    double thickness_m = 0.0;
+    double outer_diameter_m = 0.0;
+    double relative_permittivity = 1.0;
+    double loss_tangent_value = 0.0;
+  };
   // How a clause of the feed chain is checked (parse_chain.cpp).
   enum class ClauseCheck {
     kPositive,       // a value of `quantity` above 0, in the range of `kind`
@@ -161,13 +172,17 @@ class Parser {
                    const std::string& clause_help =
                        "after the points come 'radius R' (or 'diameter D') and the optional "
                        "'segments N', 'material NAME' or 'conductivity=SIGMA "
-                       "[permeability=MU_R]'");
+                       "[permeability=MU_R]', and 'insulation PLASTIC thickness=T'");
   std::optional<double> WrittenNumber(size_t from) const;
   void CheckRadius(const std::string& context, const WireSpec& wire, double length_m) const;
   void AddWire(WireSpec wire);
   void Shape(const Token& keyword);
   void Conductor(const std::string& context, ConductorClauses* c);
   static std::string MaterialList();
+  bool IsInsulationWord() const;
+  void Insulation(const std::string& context, InsulationClauses* c);
+  void InsulationPart(const std::string& context, InsulationClauses* c);
+  void ApplyInsulation(const std::string& context, const InsulationClauses& c, WireSpec* wire);
 
   // ---- feeds and loads (parse_feeds.cpp) -----------------------------------------------
   WirePointSpec WirePoint(const std::string& context);

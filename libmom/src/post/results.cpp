@@ -5,7 +5,7 @@
 
 #include <cmath>
 
-#include "conductor/wire_impedance.hpp"
+#include "conductor/coating.hpp"
 #include "fill/assemble.hpp"
 #include "network/chain.hpp"
 #include "network/reflection.hpp"
@@ -107,11 +107,11 @@ double WireLossW(const Model& model, const geometry::Mesh& mesh,
   for (size_t s = 0; s < mesh.segments.size(); ++s) {
     const geometry::Segment& seg = mesh.segments[s];
     const WireSpec& wire = model.wires[seg.wire];
-    if (!wire.conductivity_s_per_m) continue;
+    if (!conductor::HasSeriesImpedance(wire)) continue;
     const Complex at_start = segment_currents[s].current_start_a;
     const Complex at_end = segment_currents[s].current_end_a;
-    const double r_per_m = std::real(conductor::WireImpedancePerMetre(
-        seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz));
+    const double r_per_m =
+        std::real(conductor::SeriesImpedancePerMetre(wire, seg.radius_m, frequency_hz));
     const double mean_square =
         (std::norm(at_start) + std::norm(at_end) + std::real(at_start * std::conj(at_end))) / 3.0;
     loss_w += 0.5 * r_per_m * seg.length_m() * mean_square;

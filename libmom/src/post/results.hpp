@@ -26,8 +26,10 @@ std::vector<LoadResult> LoadResults(const Model& model, const geometry::Mesh& me
 std::vector<SegmentCurrent> SegmentCurrents(const geometry::Mesh& mesh,
                                             const Eigen::VectorXcd& currents);
 
-// The skin-effect loss of the wires with a conductivity, watts: 0.5 Re(Z') L int_0^1 |I(t)|^2 dt
-// for the linear current of each segment (`segment_currents` as SegmentCurrents gives them).
+// The loss along the wires, watts: the skin effect of those with a conductivity and the
+// dielectric loss of their jackets, 0.5 Re(Z') L int_0^1 |I(t)|^2 dt for the linear current of
+// each segment, Z' the wire's series impedance per metre (conductor/coating.hpp), with
+// `segment_currents` as SegmentCurrents gives them.
 double WireLossW(const Model& model, const geometry::Mesh& mesh,
                  const std::vector<SegmentCurrent>& segment_currents, double frequency_hz);
 

@@ -13,6 +13,7 @@
 
 #include "core/constants.hpp"
 #include "report/ground_text.hpp"
+#include "report/insulation_text.hpp"
 #include "report/json_values.hpp"
 #include "report/mesh_estimate_text.hpp"
 #include "report/text_table.hpp"
@@ -262,6 +263,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
                      simulation.wire_mesh().size(), simulation.wire_mesh().size() == 1 ? "" : "s",
                      result.segments, result.unknowns);
   out += fmt::format("  ground          {}\n", report::GroundText(model.ground));
+  out += report::InsulationLines(model);
 
   out += report::AntennaHeading(result);
   TextTable feeds;
@@ -360,6 +362,10 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   doc["condition_number"] = result.condition_number;
   doc["relative_residual"] = result.relative_residual;
   doc["ground"] = report::GroundJson(simulation.model().ground);
+  // Only for a model with insulated wires, so the documents of bare models keep their keys.
+  if (report::AnyInsulation(simulation.model())) {
+    doc["insulation"] = report::InsulationJson(simulation.model());
+  }
   doc["feeds"] = nlohmann::json::array();
   for (const FeedResult& feed : result.feeds) {
     doc["feeds"].push_back({{"name", feed.name},

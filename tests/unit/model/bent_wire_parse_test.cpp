@@ -265,7 +265,8 @@ TEST(ParseShapeError, ClausesAreCheckedLikeAWiresClauses) {
             "kit.wire:1:18: error: shape 'kit': unexpected 'height'; after the kind come top=H, "
             "length=L, radius R (or diameter D) and the optional low=HL, toward=AZ, at (X, Y), "
             "'segments N', "
-            "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]'");
+            "'material NAME' or 'conductivity=SIGMA [permeability=MU_R]', and 'insulation PLASTIC "
+            "thickness=T'");
   EXPECT_EQ(ErrorOf("shape kit sloper top=6 length=10 at (1, 2, 3) radius 1mm\n" + kFeed),
             "kit.wire:1:42: error: shape 'kit': the at point has more than 2 coordinates; "
             "write (X, Y)");

@@ -525,7 +525,7 @@ TEST(ParseError, ExtraTokensAreUnexpected) {
   EXPECT_EQ(ErrorOf("wire a from (0,0,0) to (1,0,0) radius 1mm colour red\n"),
             "kit.wire:1:43: error: wire 'a': unexpected 'colour'; after the points come 'radius "
             "R' (or 'diameter D') and the optional 'segments N', 'material NAME' or "
-            "'conductivity=SIGMA [permeability=MU_R]'");
+            "'conductivity=SIGMA [permeability=MU_R]', and 'insulation PLASTIC thickness=T'");
   EXPECT_EQ(ErrorOf("units m cm\n"),
             "kit.wire:1:9: error: unexpected 'cm' at the end of the units statement; remove it "
             "or start a new line");
