@@ -89,6 +89,7 @@ int RunSweepCommand(const SweepFlags& flags) {
   SweepReport report;
   report.model_file = simulation.model().file;
   report.ground = simulation.model().ground;
+  report.wires = simulation.model().wires;
   report.feed_name = feed_name;
   report.sweep = RunSpans(simulation, spans, options, progress);
   report.spans = spans;

@@ -87,6 +87,8 @@ struct SweepReport {
   std::string model_file;
   std::string feed_name;  // the first feed, whose points these are
   GroundSpec ground;      // the model's ground, stated in the report
+  // The model's wires: the report states the insulated ones (their jacket and the method).
+  std::vector<WireSpec> wires;
   SweepResult sweep;
   std::vector<SweepSpan> spans;      // how the frequencies were chosen, in order
   std::vector<BandSummary> bands;    // one per --band, in the order given (empty for a range)

@@ -7,14 +7,14 @@
 
 namespace wirefield::report {
 
-bool AnyInsulation(const Model& model) {
-  return std::any_of(model.wires.begin(), model.wires.end(),
+bool AnyInsulation(const std::vector<WireSpec>& wires) {
+  return std::any_of(wires.begin(), wires.end(),
                      [](const WireSpec& w) { return w.insulation.has_value(); });
 }
 
-std::string InsulationLines(const Model& model) {
+std::string InsulationLines(const std::vector<WireSpec>& wires) {
   std::string out;
-  for (const WireSpec& wire : model.wires) {
+  for (const WireSpec& wire : wires) {
     if (!wire.insulation) continue;
     const InsulationSpec& jacket = *wire.insulation;
     out += fmt::format(
@@ -27,9 +27,9 @@ std::string InsulationLines(const Model& model) {
   return out;
 }
 
-nlohmann::json InsulationJson(const Model& model) {
+nlohmann::json InsulationJson(const std::vector<WireSpec>& wires) {
   nlohmann::json list = nlohmann::json::array();
-  for (const WireSpec& wire : model.wires) {
+  for (const WireSpec& wire : wires) {
     if (!wire.insulation) continue;
     const InsulationSpec& jacket = *wire.insulation;
     list.push_back({{"wire", wire.name},

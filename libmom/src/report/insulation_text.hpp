@@ -4,6 +4,7 @@
 
 #include <nlohmann/json.hpp>
 #include <string>
+#include <vector>
 
 #include "wirefield/model.hpp"
 
@@ -12,11 +13,11 @@ namespace wirefield::report {
 // One line per insulated wire, each "  insulation      dip: pvc, 0.5 mm thick, relative
 // permittivity 4, loss tangent 0.05 (thin-coating approximation)\n" (the label on the first
 // only); empty when no wire is insulated, so the reports of bare models do not change.
-std::string InsulationLines(const Model& model);
+std::string InsulationLines(const std::vector<WireSpec>& wires);
 // [{"wire": .., "preset": "pvc" (or null), "thickness_m": .., "relative_permittivity": ..,
 //   "loss_tangent": ..}, ...], one per insulated wire in model order.
-nlohmann::json InsulationJson(const Model& model);
+nlohmann::json InsulationJson(const std::vector<WireSpec>& wires);
 // True when some wire of the model is insulated.
-bool AnyInsulation(const Model& model);
+bool AnyInsulation(const std::vector<WireSpec>& wires);
 
 }  // namespace wirefield::report

@@ -263,7 +263,7 @@ std::string FormatSolveText(const Simulation& simulation, const SolveResult& res
                      simulation.wire_mesh().size(), simulation.wire_mesh().size() == 1 ? "" : "s",
                      result.segments, result.unknowns);
   out += fmt::format("  ground          {}\n", report::GroundText(model.ground));
-  out += report::InsulationLines(model);
+  out += report::InsulationLines(model.wires);
 
   out += report::AntennaHeading(result);
   TextTable feeds;
@@ -363,8 +363,8 @@ std::string FormatSolveJson(const Simulation& simulation, const SolveResult& res
   doc["relative_residual"] = result.relative_residual;
   doc["ground"] = report::GroundJson(simulation.model().ground);
   // Only for a model with insulated wires, so the documents of bare models keep their keys.
-  if (report::AnyInsulation(simulation.model())) {
-    doc["insulation"] = report::InsulationJson(simulation.model());
+  if (report::AnyInsulation(simulation.model().wires)) {
+    doc["insulation"] = report::InsulationJson(simulation.model().wires);
   }
   doc["feeds"] = nlohmann::json::array();
   for (const FeedResult& feed : result.feeds) {

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "report/ground_text.hpp"
+#include "report/insulation_text.hpp"
 #include "report/mesh_estimate_text.hpp"
 #include "report/notes.hpp"
 #include "report/sweep_format.hpp"
@@ -202,6 +203,7 @@ std::string FormatSweepText(const SweepReport& report) {
               "beside them"
             : "(no transformer or feed line: the transmitter connects at the antenna terminals)");
   out += fmt::format("  ground: {}\n", report::GroundText(report.ground));
+  out += report::InsulationLines(report.wires);
   if (!report.bands.empty()) {
     out += fmt::format("  bands: {}", report::SweepTitle(report));
     out += report.region_given
@@ -311,6 +313,7 @@ std::string FormatSweepJson(const SweepReport& report) {
   doc["feed"] = report.feed_name;
   doc["z0_ohm"] = sweep.z0_ohm;
   doc["ground"] = report::GroundJson(report.ground);
+  if (report::AnyInsulation(report.wires)) doc["insulation"] = report::InsulationJson(report.wires);
   nlohmann::json points = nlohmann::json::array();
   for (const SweepPoint& p : sweep.points) {
     nlohmann::json point;
