@@ -449,7 +449,7 @@ void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double fre
     const WireSpec& wire = model.wires[seg.wire];
     if (!wire.conductivity_s_per_m) continue;
     const Complex per_metre = conductor::WireImpedancePerMetre(
-        seg.radius_m, *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz);
+        LossRadius(wire), *wire.conductivity_s_per_m, wire.relative_permeability, frequency_hz);
     const Complex zs = per_metre * seg.length_m();
     // int_0^1 (a_m + b_m t)(a_n + b_n t) dt for the two pieces' linear currents.
     for (const PieceRef& pm : on_segment[s]) {

@@ -338,8 +338,8 @@ TEST(OverrideError, NamingNoLetListsTheModelsVariables) {
 TEST(OverrideError, DiagnosticsPointInsideTheValue) {
   EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {ParseOverride("h=3 + 2Mhz")}),
             "--set h:1:6: error: unknown unit 'Mhz'; did you mean 'MHz'? (units: lengths m cm mm "
-            "ft in; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance H mH uH nH; "
-            "capacitance F uF nF pF; voltage V mV kV; angle deg)");
+            "ft in; areas mm2 cm2 m2; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance "
+            "H mH uH nH; capacitance F uF nF pF; voltage V mV kV; angle deg)");
   EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {ParseOverride("h=")}),
             "--set h:1:1: error: the value is empty; write --set NAME=VALUE");
 }
