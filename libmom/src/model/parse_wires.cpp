@@ -64,7 +64,10 @@ void Parser::Coordinates(const std::string& context, const std::string& which, s
 // wire's path, recorded in taps as the corner-th corner, for the mesher to join there).
 Point Parser::Corner(const std::string& context, const std::string& which, size_t corner,
                      std::vector<WireTap>* taps) {
-  if (Peek().kind != TokenKind::kName) return ParsePoint(context, which);
+  const bool wire_point = Peek().kind == TokenKind::kName && pos_ + 1 < tokens_.size() &&
+                          tokens_[pos_ + 1].kind == TokenKind::kPunct &&
+                          tokens_[pos_ + 1].text == "@";
+  if (!wire_point) return ParsePoint(context, which);
   const WirePointSpec on = WirePoint(context);
   const WireSpec& host = model_.wires[wire_index_.at(on.wire)];
   taps->push_back({corner, on});

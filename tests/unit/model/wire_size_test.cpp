@@ -157,7 +157,7 @@ TEST(WireSizeError, MessagesNameTheClause) {
             "concentric lay; use 1 (solid), 7, 19, 37, 61, 91 or 127 (a centre strand and L "
             "layers of 6, 12, 18, ... round it: 1 + 3 L (L + 1), up to 1261)");
   EXPECT_EQ(ErrorOf("wire kit from (0, 0, 5) to (10, 0, 5) size 1mm2 strands=7 strands=7\n"),
-            "kit.wire:1:60: error: wire 'kit': strands is given twice");
+            "kit.wire:1:59: error: wire 'kit': strands is given twice");
   EXPECT_EQ(ErrorOf("wire kit from (0, 0, 5) to (10, 0, 5) strand=0.3mm\n"),
             "kit.wire:1:39: error: wire 'kit': strand=d is the diameter of one strand of a "
             "stranded wire; give strands=N beside it, or 'diameter D' for a solid wire");
@@ -170,7 +170,7 @@ TEST(WireSizeError, ThinWireBoundUsesTheEquivalentRadius) {
   // radius is 22.5 mm.
   EXPECT_EQ(
       ErrorOf("wire kit from (0, 0, 5) to (0.2, 0, 5) diameter 60mm strands=7\n").substr(0, 81),
-      "kit.wire:1:50: error: wire 'kit': the radius 0.0240187 m is not small against the ");
+      "kit.wire:1:49: error: wire 'kit': the radius 0.0240187 m is not small against the");
   EXPECT_EQ(ErrorOf("wire kit from (0, 0, 5) to (0.2, 0, 5) strands=7 strand=15mm\n"
                     "feed src at kit@50%\n"),
             "no error");

@@ -13,7 +13,11 @@
 namespace wirefield {
 namespace {
 
-Model Parse(const std::string& text) { return ParseModelText(text, "kit.wire"); }
+// Parses the model with a feed on its first wire, which is named rad or kit.
+Model Parse(const std::string& text) {
+  const std::string first = text.substr(5, 3);
+  return ParseModelText(text + "feed src at " + first + "@50%\n", "kit.wire");
+}
 
 std::string ErrorOf(const std::string& text) {
   return testing::ErrorText([&] { Parse(text); });
@@ -89,11 +93,11 @@ TEST(WireTapError, PositionOffTheWire) {
             "kit.wire:2:20: error: wire 'tail': position 25 m is beyond the end of wire 'rad' "
             "(its length is 20 m); use a position from 0 to 20 m, or a percent");
   EXPECT_EQ(ErrorOf(kRad + "wire tail from (0, 0, 1) to rad@120% radius 1mm\n"),
-            "kit.wire:2:32: error: wire 'tail': position 120% is outside 0% to 100% of wire "
+            "kit.wire:2:33: error: wire 'tail': position 120% is outside 0% to 100% of wire "
             "'rad'");
   EXPECT_EQ(ErrorOf(kRad + "wire tail from rad to (20, 0, 0) radius 1mm\n"),
-            "kit.wire:2:20: error: wire 'tail': expected '@' and a position after the wire name "
-            "(dip@50%); got 'to'");
+            "kit.wire:2:16: error: wire 'tail': expected '(' to open the from point (X, Y, Z); "
+            "got 'rad'");
 }
 
 TEST(WireTapError, ZeroLengthFromTwoPoints) {
