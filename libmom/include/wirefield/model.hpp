@@ -86,6 +86,14 @@ struct InsulationSpec {
   SourceLocation location;             // of the word `insulation`
 };
 
+// A corner of a wire written as a point on an earlier wire (`from rad@60%`): the corner's
+// index in WirePath order (0 is from_m) and the point it names. The mesher joins the two wires
+// there, also in the middle of the earlier wire (a T-junction).
+struct WireTap {
+  size_t corner = 0;
+  WirePointSpec on;
+};
+
 struct WireSpec {
   std::string name;
   Point from_m{};  // the start (the first point of a bent wire)
@@ -103,6 +111,14 @@ struct WireSpec {
   std::string radius_clause = "radius";
   std::optional<double> radius_written_number;
   int segments = 0;  // 0: the mesher chooses
+  // A stranded conductor (`strands=N`, concentric lay): the count of its round strands, 1 for
+  // a solid wire. radius_m is then the equivalent radius of the bundle for the thin-wire
+  // kernel, and loss_radius_m its outer radius, at which the skin-effect loss is computed
+  // (docs/numerics.md, "Stranded wire").
+  int strands = 1;
+  std::optional<double> loss_radius_m;
+  // The cross-section of the metal, m^2, when the wire was given by it (`size 1.5mm2`).
+  std::optional<double> cross_section_m2;
   // Conductor: empty material and no conductivity = perfect conductor (the default).
   std::string material;                        // e.g. "copper", as written in the model
   std::optional<double> conductivity_s_per_m;  // set for any lossy conductor
@@ -112,12 +128,21 @@ struct WireSpec {
   // Where each corner of WirePath was written (the '(' of its point), in path order; empty
   // when the corners were computed (a `shape`).
   std::vector<SourceLocation> point_locations;
+  // The corners written as WIRE@POS, in path order.
+  std::vector<WireTap> taps;
 };
 
 // The corners of a wire from its start to its end: from_m, the bends, to_m.
 std::vector<Point> WirePath(const WireSpec& wire);
 // The length of a wire along its path, metres (the sum of its legs).
 double WireLength(const WireSpec& wire);
+// The distance from a wire's start, metres, of a WIRE@POS point on a wire of that length.
+double PositionAlong(const WirePointSpec& at, double length_m);
+// The point at distance s_m along a wire's path from its start: exactly its start, end or a
+// corner at their distances.
+Point PointAlong(const WireSpec& wire, double s_m);
+// The radius the skin-effect loss of a wire is computed at (loss_radius_m, else radius_m).
+double LossRadius(const WireSpec& wire);
 
 // Segment counts per wire: what the model gave (0 = none) and what the mesher used
 // (Simulation::wire_mesh, wirefield/simulation.hpp).

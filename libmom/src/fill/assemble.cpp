@@ -476,7 +476,8 @@ void AddConductorLoss(const geometry::Mesh& mesh, const Model& model, double fre
     const geometry::Segment& seg = mesh.segments[s];
     const WireSpec& wire = model.wires[seg.wire];
     if (!conductor::HasSeriesImpedance(wire)) continue;
-    const Complex per_metre = conductor::SeriesImpedancePerMetre(wire, seg.radius_m, frequency_hz);
+    const Complex per_metre =
+        conductor::SeriesImpedancePerMetre(wire, LossRadius(wire), frequency_hz);
     const Complex zs = per_metre * seg.length_m();
     // int_0^1 (a_m + b_m t)(a_n + b_n t) dt for the two pieces' linear currents.
     for (const PieceRef& pm : on_segment[s]) {

@@ -84,19 +84,19 @@ struct WireLayout {
   }
 };
 
-// Positions along a wire where a feed or load asks for a node.
-double PositionOnWire(const WirePointSpec& at, double length_m) {
-  switch (at.kind) {
-    case PointKind::kStart:
-      return 0.0;
-    case PointKind::kEnd:
-      return length_m;
-    case PointKind::kDistance:
-      return at.value;
-    case PointKind::kPercent:
-      return at.value / 100.0 * length_m;
+// A node of a wire: its index in WireLayout::nodes_m.
+struct NodeRef {
+  int wire = 0;
+  int node = 0;
+};
+
+// The index of the node nearest to the distance s_m along a wire.
+int NearestNode(const std::vector<double>& nodes_m, double s_m) {
+  int k = 0;
+  for (size_t i = 0; i < nodes_m.size(); ++i) {
+    if (std::abs(nodes_m[i] - s_m) < std::abs(nodes_m[k] - s_m)) k = static_cast<int>(i);
   }
-  return 0.0;
+  return k;
 }
 
 int FindWire(const Model& model, const std::string& name, const SourceLocation& where) {
@@ -360,10 +360,18 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   std::vector<std::vector<double>> required(wire_count);
   auto require = [&](const WirePointSpec& at) {
     const int w = FindWire(model, at.wire, at.location);
-    required[w].push_back(PositionOnWire(at, layout[w].length_m));
+    required[w].push_back(PositionAlong(at, layout[w].length_m));
   };
   for (const auto& f : model.feeds) require(f.at);
   for (const auto& l : model.loads) require(l.at);
+  // And the points inside an earlier wire where a wire's corner was written as WIRE@POS.
+  for (const WireSpec& spec : model.wires) {
+    for (const WireTap& tap : spec.taps) {
+      const int h = FindWire(model, tap.on.wire, tap.on.location);
+      const double s_m = PositionAlong(tap.on, layout[h].length_m);
+      if (s_m > 0.0 && s_m < layout[h].length_m) required[h].push_back(s_m);
+    }
+  }
 
   // The thin-wire kernel needs wires thin against the wavelength (k a << 1): a radius above
   // model::kMaxRadiusOfWavelength of the shortest wavelength is refused at the radius value,
@@ -478,19 +486,8 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                   : layout[w].first_segment;
   };
 
-  // Interior nodes: one triangle basis each, current along the wire.
-  for (int w = 0; w < wire_count; ++w) {
-    const int n = static_cast<int>(layout[w].nodes_m.size()) - 1;
-    for (int k = 1; k < n; ++k) {
-      Basis b;
-      b.pieces[0] = {layout[w].first_segment + k - 1, true, +1.0};
-      b.pieces[1] = {layout[w].first_segment + k, false, -1.0};
-      b.piece_count = 2;
-      mesh.bases.push_back(b);
-    }
-  }
-
-  // Joints: cluster wire ends; each cluster of m ends gets m - 1 bases through its first end.
+  // Joints: cluster wire ends, and join the nodes of taps; each joint of m pieces (one per end
+  // and two per node inside a wire) gets m - 1 bases through its first piece.
   std::vector<std::vector<EndRef>> joints;
   std::vector<int> end_joint(2 * static_cast<size_t>(wire_count),
                              -1);  // index 2w + at_end -> joint
@@ -511,27 +508,96 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
       end_joint[2 * w + e] = found;
     }
   }
+  // Taps: a corner written as WIRE@POS joins the wire named there. Where both are wire ends
+  // they coincide and are clustered above; a node inside a wire joins as a mid node, whose two
+  // pieces take the place of its own triangle basis, so that the current may turn into the
+  // other wire (a T-junction).
+  std::vector<std::vector<NodeRef>> joint_mids(joints.size());
+  std::set<std::pair<int, int>> mid_nodes;
+  auto joint_of = [&](const NodeRef& r) {
+    const int last = static_cast<int>(layout[r.wire].nodes_m.size()) - 1;
+    if (r.node == 0 || r.node == last) return end_joint[2 * r.wire + (r.node == last ? 1 : 0)];
+    for (size_t j = 0; j < joint_mids.size(); ++j) {
+      for (const NodeRef& m : joint_mids[j]) {
+        if (m.wire == r.wire && m.node == r.node) return static_cast<int>(j);
+      }
+    }
+    return -1;
+  };
+  for (int w = 0; w < wire_count; ++w) {
+    for (const WireTap& tap : model.wires[w].taps) {
+      const int h = FindWire(model, tap.on.wire, tap.on.location);
+      const NodeRef on{h,
+                       NearestNode(layout[h].nodes_m, PositionAlong(tap.on, layout[h].length_m))};
+      const NodeRef corner{w, NearestNode(layout[w].nodes_m, layout[w].corner_m[tap.corner])};
+      int into = std::max(joint_of(on), joint_of(corner));
+      if (into < 0) {
+        into = static_cast<int>(joints.size());
+        joints.emplace_back();
+        joint_mids.emplace_back();
+      }
+      for (const NodeRef& r : {on, corner}) {
+        const int j = joint_of(r);
+        if (j == into) continue;
+        if (j < 0) {
+          joint_mids[into].push_back(r);
+          mid_nodes.insert({r.wire, r.node});
+          continue;
+        }
+        // Two joints meet: the members of j move into `into`, leaving j empty.
+        for (const EndRef& e : joints[j]) {
+          joints[into].push_back(e);
+          end_joint[2 * e.wire + (e.at_end ? 1 : 0)] = into;
+        }
+        joint_mids[into].insert(joint_mids[into].end(), joint_mids[j].begin(), joint_mids[j].end());
+        joints[j].clear();
+        joint_mids[j].clear();
+      }
+    }
+  }
+
+  // Interior nodes: one triangle basis each, current along the wire, but for those in a joint.
+  for (int w = 0; w < wire_count; ++w) {
+    const int n = static_cast<int>(layout[w].nodes_m.size()) - 1;
+    for (int k = 1; k < n; ++k) {
+      if (mid_nodes.count({w, k}) != 0) continue;
+      Basis b;
+      b.pieces[0] = {layout[w].first_segment + k - 1, true, +1.0};
+      b.pieces[1] = {layout[w].first_segment + k, false, -1.0};
+      b.piece_count = 2;
+      mesh.bases.push_back(b);
+    }
+  }
+
   std::vector<bool> joint_on_ground(joints.size(), false);
   for (size_t j = 0; j < joints.size(); ++j) {
-    const EndRef& r = joints[j].front();
-    const Vec3 p = r.at_end ? layout[r.wire].to : layout[r.wire].from;
-    joint_on_ground[j] = has_ground && std::abs(p.z()) <= join_tol_m;
     const auto& ends = joints[j];
-    auto piece_of = [&](const EndRef& end, double sign) {
-      return Piece{segment_at(end.wire, end.at_end), end.at_end, sign};
-    };
+    const auto& mids = joint_mids[j];
+    if (ends.empty() && mids.empty()) continue;  // merged into another joint
+    const Vec3 p = !ends.empty() ? (ends.front().at_end ? layout[ends.front().wire].to
+                                                        : layout[ends.front().wire].from)
+                                 : layout[mids.front().wire].PointAt(
+                                       layout[mids.front().wire].nodes_m[mids.front().node]);
+    joint_on_ground[j] = has_ground && std::abs(p.z()) <= join_tol_m;
+    std::vector<Piece> pieces;  // each with sign +1
+    for (const EndRef& end : ends) pieces.push_back({segment_at(end.wire, end.at_end), end.at_end});
+    for (const NodeRef& m : mids) {
+      pieces.push_back({layout[m.wire].first_segment + m.node - 1, true});
+      pieces.push_back({layout[m.wire].first_segment + m.node, false});
+    }
     if (joint_on_ground[j]) {
-      for (const EndRef& end : ends) {
+      for (const Piece& piece : pieces) {
         Basis b;
-        b.pieces[0] = piece_of(end, +1.0);
+        b.pieces[0] = piece;
         b.piece_count = 1;
         mesh.bases.push_back(b);
       }
     } else {
-      for (size_t k = 1; k < ends.size(); ++k) {
+      for (size_t k = 1; k < pieces.size(); ++k) {
         Basis b;
-        b.pieces[0] = piece_of(ends[0], +1.0);
-        b.pieces[1] = piece_of(ends[k], -1.0);
+        b.pieces[0] = pieces[0];
+        b.pieces[1] = pieces[k];
+        b.pieces[1].sign = -1.0;
         b.piece_count = 2;
         mesh.bases.push_back(b);
       }
@@ -541,17 +607,15 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
   // Ports: the bases whose pieces touch the gap, signed by their current along the wire.
   auto make_port = [&](const WirePointSpec& at, const std::string& what, const std::string& name) {
     const int w = FindWire(model, at.wire, at.location);
-    const double pos = PositionOnWire(at, layout[w].length_m);
-    const auto& nodes = layout[w].nodes_m;
-    int k = 0;
-    for (size_t i = 0; i < nodes.size(); ++i) {
-      if (std::abs(nodes[i] - pos) < std::abs(nodes[k] - pos)) k = static_cast<int>(i);
-    }
-    const int n = static_cast<int>(nodes.size()) - 1;
+    const double pos = PositionAlong(at, layout[w].length_m);
+    const int k = NearestNode(layout[w].nodes_m, pos);
+    const int n = static_cast<int>(layout[w].nodes_m.size()) - 1;
     if (k == 0 || k == n) {
       const bool at_end = k == n;
       const int joint = end_joint[2 * w + (at_end ? 1 : 0)];
-      if (joints[joint].size() < 2 && !joint_on_ground[joint]) {
+      // The wire pieces that meet at the joint: one per end, two per node inside a wire.
+      const size_t members = joints[joint].size() + 2 * joint_mids[joint].size();
+      if (members < 2 && !joint_on_ground[joint]) {
         // At the WIRE@POS text: the position is what to change.
         throw InputError(at.location,
                          fmt::format("{} '{}' is at the free {} of wire '{}', where nothing is "
@@ -560,7 +624,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                                      what, name, EndName(at_end), model.wires[w].name,
                                      model.wires[w].name, has_ground ? " or the ground" : ""));
       }
-      if (what == "feed" && joints[joint].size() >= 3) {
+      if (what == "feed" && members >= 3) {
         // The gap sits at the end of wire w only: the source drives wire w against all the
         // others joined there. That is meant at a mast's base among radials; it is likely a
         // slip when another wire continues wire w straight through the joint (a dipole's two
@@ -681,19 +745,36 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
     int wire = 0;
     Vec3 from, to;
     int from_id = 0, to_id = 0;  // a joint index, or a bend's own id past the joints
+    std::vector<int> on_leg;     // the joints at nodes along the leg (of taps)
   };
   std::vector<Leg> legs;
   int next_bend_id = static_cast<int>(joints.size());
   for (int w = 0; w < wire_count; ++w) {
     const auto& corners = layout[w].corners;
     for (size_t i = 0; i + 1 < corners.size(); ++i) {
-      Leg leg{w, corners[i], corners[i + 1], 0, 0};
+      Leg leg{w, corners[i], corners[i + 1], 0, 0, {}};
       leg.from_id = i == 0 ? end_joint[2 * static_cast<size_t>(w)] : next_bend_id - 1;
       leg.to_id =
           i + 2 == corners.size() ? end_joint[2 * static_cast<size_t>(w) + 1] : next_bend_id++;
+      for (size_t j = 0; j < joint_mids.size(); ++j) {
+        for (const NodeRef& m : joint_mids[j]) {
+          if (m.wire != w) continue;
+          const double s_m = layout[w].nodes_m[m.node];
+          if (layout[w].corner_m[i] <= s_m && s_m <= layout[w].corner_m[i + 1]) {
+            leg.on_leg.push_back(static_cast<int>(j));
+          }
+        }
+      }
       legs.push_back(leg);
     }
   }
+  // Legs that share a joint or a bend are connected there.
+  auto joined = [](const Leg& p, const Leg& q) {
+    std::vector<int> a = p.on_leg, b = q.on_leg;
+    a.insert(a.end(), {p.from_id, p.to_id});
+    b.insert(b.end(), {q.from_id, q.to_id});
+    return std::find_first_of(a.begin(), a.end(), b.begin(), b.end()) != a.end();
+  };
   std::set<std::pair<int, int>> warned;  // wire pairs already flagged
   for (size_t i = 0; i < legs.size(); ++i) {
     for (size_t j = i + 1; j < legs.size(); ++j) {
@@ -722,10 +803,7 @@ Mesh BuildMesh(const Model& model, const MeshOptions& options) {
                                                "joint), or move it apart",
                                                later, first)));
       }
-      if (p.from_id == q.from_id || p.from_id == q.to_id || p.to_id == q.from_id ||
-          p.to_id == q.to_id) {
-        continue;
-      }
+      if (joined(p, q)) continue;
       const int a = p.wire, b = q.wire;
       if (warned.count({a, b}) != 0) continue;
       Vec3 where;

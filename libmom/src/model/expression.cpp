@@ -57,7 +57,7 @@ bool IsReservedName(std::string_view name, std::string* reason) {
 bool IsClauseWord(std::string_view name) {
   static constexpr std::string_view kWords[] = {
       "segments", "radius", "voltage", "series", "parallel", "R", "L", "C", "permittivity",
-      "conductivity", "from", "to", "at", "material", "permeability", "diameter",
+      "conductivity", "from", "to", "at", "material", "permeability", "diameter", "size",
       // a coil's close-wound, a transformer's refused ratio, transformer and line clauses
       "close", "ratio", "turns", "magnetizing", "al", "leakage", "compensation", "coreloss", "q",
       "length", "cable", "z0", "velocity", "loss",

@@ -68,14 +68,32 @@ void Parser::Coordinates(const std::string& context, const std::string& which, s
   ExpectPunct(")", context, fmt::format("')' to close the {} point", which));
 }
 
+// A corner of a wire: "(X, Y, Z)", or WIRE@POS on a wire defined above (its point on that
+// wire's path, recorded in taps as the corner-th corner, for the mesher to join there).
+Point Parser::Corner(const std::string& context, const std::string& which, size_t corner,
+                     std::vector<WireTap>* taps) {
+  const bool wire_point = Peek().kind == TokenKind::kName && pos_ + 1 < tokens_.size() &&
+                          tokens_[pos_ + 1].kind == TokenKind::kPunct &&
+                          tokens_[pos_ + 1].text == "@";
+  if (!wire_point) return ParsePoint(context, which);
+  const WirePointSpec on = WirePoint(context);
+  const WireSpec& host = model_.wires[wire_index_.at(on.wire)];
+  taps->push_back({corner, on});
+  return PointAlong(host, PositionAlong(on, WireLength(host)));
+}
+
 // `through (X, Y, Z), (X, Y, Z), ...`: the corners of a bent wire, at least two, checked.
+// With taps, a corner may also be WIRE@POS (Corner).
 std::vector<Point> Parser::ThroughPoints(const std::string& context,
-                                         std::vector<SourceLocation>* written_at) {
+                                         std::vector<SourceLocation>* written_at,
+                                         std::vector<WireTap>* taps) {
   std::vector<Point> points;
   std::vector<SourceLocation> locations;
   while (true) {
     locations.push_back(Loc(Peek()));
-    points.push_back(ParsePoint(context, Ordinal(points.size() + 1)));
+    const std::string which = Ordinal(points.size() + 1);
+    points.push_back(taps != nullptr ? Corner(context, which, points.size(), taps)
+                                     : ParsePoint(context, which));
     if (!IsPunct(",")) break;
     Next();
   }
@@ -104,7 +122,7 @@ void Parser::Wire(const Token& keyword) {
   WireSpec wire = Started<WireSpec>(named);
   if (IsWord("through")) {
     Next();
-    SetWirePath(ThroughPoints(context, &wire.point_locations), &wire);
+    SetWirePath(ThroughPoints(context, &wire.point_locations, &wire.taps), &wire);
     const double length_m = WireLength(wire);
     WireClauses(context, length_m, &wire);
     return AddWire(std::move(wire));
@@ -112,11 +130,11 @@ void Parser::Wire(const Token& keyword) {
   if (!IsWord("from")) throw Expected(context, "'from (X, Y, Z)' or 'through (X, Y, Z), ...'");
   Next();
   wire.point_locations.push_back(Loc(Peek()));
-  wire.from_m = ParsePoint(context, "from");
+  wire.from_m = Corner(context, "from", 0, &wire.taps);
   if (!IsWord("to")) throw Expected(context, "'to (X, Y, Z)'");
   Next();
   wire.point_locations.push_back(Loc(Peek()));
-  wire.to_m = ParsePoint(context, "to");
+  wire.to_m = Corner(context, "to", 1, &wire.taps);
   const double length_m = std::hypot(wire.to_m[0] - wire.from_m[0], wire.to_m[1] - wire.from_m[1],
                                      wire.to_m[2] - wire.from_m[2]);
   if (length_m == 0.0) {
@@ -135,45 +153,21 @@ void Parser::Wire(const Token& keyword) {
 
 // The radius, segments and conductor clauses of a wire or shape, in any order.
 // known_length_m: the wire's length when known before its clauses (the radius is then
-// checked against it at once); else the caller calls CheckRadius afterwards. extra_clause
+// checked against it after them); else the caller calls CheckRadius afterwards. extra_clause
 // (when given) reads one clause of its own and returns true, or returns false when the
 // clause is not one of its own; clause_help ends the message for an unknown clause.
 void Parser::WireClauses(const std::string& context, std::optional<double> known_length_m,
                          WireSpec* wire, const std::function<bool()>& extra_clause,
                          const std::string& clause_help) {
   radius_start_.reset();
-  std::optional<double> radius_m;
+  SizeClauses size;
   bool have_segments = false;
   ConductorClauses conductor;
   InsulationClauses insulation;
   while (Peek().kind != TokenKind::kEnd) {
     const Token& clause = Peek();
-    if (IsWord("radius") || IsWord("diameter")) {
-      const bool is_diameter = clause.text == "diameter";
-      if (radius_m) {
-        throw Error(clause, wire->radius_clause == clause.text
-                                ? fmt::format("{}: {} is given twice", context, clause.text)
-                                : fmt::format("{}: give either 'radius R' or 'diameter D' "
-                                              "(twice the radius), not both",
-                                              context));
-      }
-      Next();
-      const size_t value_pos = pos_;
-      const Measured m = Expression();
-      const double size = As(m, LengthQuantity(), length_factor_, context + ": " + clause.text);
-      if (size <= 0.0) {
-        throw Error(m.start, fmt::format("{}: the {} must be positive; got {} m", context,
-                                         clause.text, FormatNumber(size)));
-      }
-      const double r = is_diameter ? size / 2.0 : size;
-      InRange(ValueKind::kRadiusM, r, m, fmt::format("{}: the radius", context));
-      radius_m = r;
-      radius_start_ = m.start;
-      wire->radius_m = r;
-      wire->radius_location = Loc(m.start);
-      wire->radius_clause = clause.text;
-      wire->radius_written_number = WrittenNumber(value_pos);
-      if (known_length_m) CheckRadius(context, *wire, *known_length_m);
+    if (SizeClause(context, &size, wire)) {
+      // radius, diameter, size, strand or strands
     } else if (IsWord("segments")) {
       if (have_segments) throw Error(clause, fmt::format("{}: segments is given twice", context));
       Next();
@@ -203,7 +197,8 @@ void Parser::WireClauses(const std::string& context, std::optional<double> known
                   fmt::format("{}: unexpected {}; {}", context, Quote(clause), clause_help));
     }
   }
-  if (!radius_m) throw Expected(context, "'radius R' (or 'diameter D')");
+  if (!size.clause) throw Expected(context, "'radius R' (or 'diameter D')");
+  StrandedSize(context, size, known_length_m, wire);
   if (conductor.permeability && !conductor.conductivity) {
     throw Error(*conductor.permeability_token,
                 fmt::format("{}: permeability= needs conductivity=SIGMA beside it (a table "
@@ -220,6 +215,125 @@ void Parser::WireClauses(const std::string& context, std::optional<double> known
     wire->relative_permeability = conductor.permeability.value_or(1.0);
   }
   if (insulation.word) ApplyInsulation(context, insulation, wire);
+}
+
+// One clause of the size of a wire's conductor: `radius R`, `diameter D`, `size A` (the
+// cross-section of its metal, as wire is sold: 1.5mm2), `strand=d` (the diameter of one strand
+// of a stranded wire) or `strands=N`; false when the next clause is none of them. The radius
+// of a solid wire is set at once; that of a stranded one by StrandedSize, once every clause is
+// read, which then checks the radius against the wire's length.
+bool Parser::SizeClause(const std::string& context, SizeClauses* size, WireSpec* wire) {
+  if (IsWord("strands")) {
+    Strands(context, size);
+    return true;
+  }
+  if (!IsWord("radius") && !IsWord("diameter") && !IsWord("size") && !IsWord("strand")) {
+    return false;
+  }
+  const Token clause = Peek();
+  const std::string& word = clause.text;
+  if (size->clause) {
+    const std::string& before = size->clause->text;
+    auto is_radius = [](const std::string& w) { return w == "radius" || w == "diameter"; };
+    throw Error(clause, before == word ? fmt::format("{}: {} is given twice", context, word)
+                        : is_radius(before) && is_radius(word)
+                            ? fmt::format("{}: give either 'radius R' or 'diameter D' "
+                                          "(twice the radius), not both",
+                                          context)
+                            : fmt::format("{}: give one of 'radius R', 'diameter D', 'size A' "
+                                          "or 'strand=d', not two: {} gives the size already",
+                                          context, before));
+  }
+  Next();
+  if (word == "strand") ExpectPunct("=", context, "'=' after strand (strand=0.3mm)");
+  const size_t value_pos = pos_;
+  const Measured m = Expression();
+  double r = 0.0;
+  if (word == "size") {
+    if (m.value.dimension.IsNone()) {
+      throw Error(m.start,
+                  fmt::format("{}: size is the cross-section of the metal and takes an "
+                              "area unit ({}): write size {}mm2",
+                              context, AreaQuantity().unit_list, FormatNumber(m.value.si)));
+    }
+    const double area_m2 = As(m, AreaQuantity(), 1.0, context + ": size");
+    if (area_m2 <= 0.0) {
+      throw Error(m.start, fmt::format("{}: the size must be positive; got {} m^2", context,
+                                       FormatNumber(area_m2)));
+    }
+    size->value = area_m2;
+    wire->cross_section_m2 = area_m2;
+    r = std::sqrt(area_m2 / std::numbers::pi);  // a solid round conductor: A = pi r^2
+  } else {
+    const double length_m = As(m, LengthQuantity(), length_factor_, context + ": " + word);
+    if (length_m <= 0.0) {
+      throw Error(m.start, fmt::format("{}: the {} must be positive; got {} m", context, word,
+                                       FormatNumber(length_m)));
+    }
+    size->value = length_m;
+    r = word == "radius" ? length_m : length_m / 2.0;
+  }
+  InRange(ValueKind::kRadiusM, r, m, fmt::format("{}: the radius", context));
+  size->clause = clause;
+  radius_start_ = m.start;
+  wire->radius_m = r;
+  wire->radius_location = Loc(m.start);
+  wire->radius_clause = word;
+  wire->radius_written_number =
+      word == "radius" || word == "diameter" ? WrittenNumber(value_pos) : std::nullopt;
+  return true;
+}
+
+// strands=N: a stranded conductor of N round strands in concentric lay.
+void Parser::Strands(const std::string& context, SizeClauses* size) {
+  const Token clause = Next();
+  if (size->strands_token) {
+    throw Error(clause, fmt::format("{}: strands is given twice", context));
+  }
+  ExpectPunct("=", context, "'=' after strands (strands=7)");
+  const Measured m = Expression();
+  const double n = Plain(m, context + ": strands", "a count of strands");
+  if (!(n >= 1.0 && n <= StrandCount(kMaxStrandLayers)) || n != std::floor(n) ||
+      StrandLayers(static_cast<int>(n)) < 0) {
+    throw Error(m.start, fmt::format("{}: strands={} is not a count of strands in concentric "
+                                     "lay; use 1 (solid), 7, 19, 37, 61, 91 or 127 (a centre "
+                                     "strand and L layers of 6, 12, 18, ... round it: 1 + "
+                                     "3 L (L + 1), up to {})",
+                                     context, FormatNumber(n), StrandCount(kMaxStrandLayers)));
+  }
+  size->strands = static_cast<int>(n);
+  size->strands_token = clause;
+}
+
+// The size once every clause is read: the radii of a stranded wire (model/thin_wire.hpp;
+// strand=d gives the strands' diameter, size A shares A among them, radius and diameter give
+// the outer size of the bundle), then the radius checked against known_length_m when given.
+void Parser::StrandedSize(const std::string& context, const SizeClauses& size,
+                          std::optional<double> known_length_m, WireSpec* wire) {
+  const std::string& word = size.clause->text;
+  if (word == "strand" && !size.strands_token) {
+    throw Error(*size.clause, fmt::format("{}: strand=d is the diameter of one strand of a "
+                                          "stranded wire; give strands=N beside it, or "
+                                          "'diameter D' for a solid wire",
+                                          context));
+  }
+  if (size.strands == 1) {
+    if (known_length_m) CheckRadius(context, *wire, *known_length_m);
+    return;
+  }
+  const int layers = StrandLayers(size.strands);
+  const double across = 2.0 * layers + 1.0;  // strand diameters across the bundle
+  const double d = word == "size" ? std::sqrt(4.0 * size.value / (std::numbers::pi * size.strands))
+                   : word == "strand"   ? size.value
+                   : word == "diameter" ? size.value / across
+                                        : 2.0 * size.value / across;
+  wire->strands = size.strands;
+  wire->loss_radius_m = across * d / 2.0;
+  if (!wire->cross_section_m2)
+    wire->cross_section_m2 = size.strands * std::numbers::pi * d * d / 4.0;
+  wire->radius_m = StrandedEquivalentRadius(size.strands, d);
+  wire->radius_written_number.reset();
+  if (known_length_m) CheckRadius(context, *wire, *known_length_m);
 }
 
 // The number of the expression that starts at tokens_[from] and ends at pos_ when it is

@@ -55,6 +55,14 @@ class Parser {
     double relative_permittivity = 1.0;
     double loss_tangent_value = 0.0;
   };
+  // The size clauses of a wire, as read: one of radius, diameter, size (the cross-section)
+  // and strand (one strand's diameter), with its value in SI, and strands=N.
+  struct SizeClauses {
+    std::optional<Token> clause;
+    double value = 0.0;  // m for radius, diameter and strand; m^2 for size
+    std::optional<Token> strands_token;
+    int strands = 1;
+  };
   // How a clause of the feed chain is checked (parse_chain.cpp).
   enum class ClauseCheck {
     kPositive,       // a value of `quantity` above 0, in the range of `kind`
@@ -163,9 +171,12 @@ class Parser {
 
   // ---- wires and shapes (parse_wires.cpp) ----------------------------------------------
   Point ParsePoint(const std::string& context, const std::string& which);
+  Point Corner(const std::string& context, const std::string& which, size_t corner,
+               std::vector<WireTap>* taps);
   void Coordinates(const std::string& context, const std::string& which, size_t count, double* out);
   std::vector<Point> ThroughPoints(const std::string& context,
-                                   std::vector<SourceLocation>* written_at = nullptr);
+                                   std::vector<SourceLocation>* written_at = nullptr,
+                                   std::vector<WireTap>* taps = nullptr);
   void Wire(const Token& keyword);
   void WireClauses(const std::string& context, std::optional<double> known_length_m, WireSpec* wire,
                    const std::function<bool()>& extra_clause = nullptr,
@@ -173,6 +184,10 @@ class Parser {
                        "after the points come 'radius R' (or 'diameter D') and the optional "
                        "'segments N', 'material NAME' or 'conductivity=SIGMA "
                        "[permeability=MU_R]', and 'insulation PLASTIC thickness=T'");
+  bool SizeClause(const std::string& context, SizeClauses* size, WireSpec* wire);
+  void Strands(const std::string& context, SizeClauses* size);
+  void StrandedSize(const std::string& context, const SizeClauses& size,
+                    std::optional<double> known_length_m, WireSpec* wire);
   std::optional<double> WrittenNumber(size_t from) const;
   void CheckRadius(const std::string& context, const WireSpec& wire, double length_m) const;
   void AddWire(WireSpec wire);

@@ -1,4 +1,5 @@
-// Model stage: the hint for a radius written in the wrong unit (model/thin_wire.hpp).
+// Model stage: the hint for a radius written in the wrong unit and the radii of stranded wire
+// (model/thin_wire.hpp).
 #include "model/thin_wire.hpp"
 
 #include <fmt/format.h>
@@ -17,6 +18,24 @@ std::string RadiusUnitHint(const WireSpec& wire, double max_radius_m) {
   if (std::abs(as_mm_m - wire.radius_m) <= 1e-9 * wire.radius_m) return "";
   if (!(as_mm_m > 0.0 && as_mm_m <= max_radius_m)) return "";
   return fmt::format(" (did you mean {} {}mm?)", wire.radius_clause, FormatNumber(number));
+}
+
+int StrandCount(int layers) { return 1 + 3 * layers * (layers + 1); }
+
+int StrandLayers(int strands) {
+  for (int layers = 0; layers <= kMaxStrandLayers; ++layers) {
+    if (StrandCount(layers) == strands) return layers;
+  }
+  return -1;
+}
+
+double StrandedEquivalentRadius(int strands, double strand_diameter_m) {
+  const int layers = StrandLayers(strands);
+  if (layers <= 0) return strand_diameter_m / 2.0;
+  const double m = 6.0 * layers;
+  const double b = strand_diameter_m / 2.0;
+  const double ring = layers * strand_diameter_m;
+  return std::exp((std::log(m) + std::log(b) + (m - 1.0) * std::log(ring)) / m);
 }
 
 const SourceLocation& RadiusLocation(const WireSpec& wire) {

@@ -25,6 +25,20 @@ inline constexpr double kMaxRadiusOfLength = 0.1;
 // else "".
 std::string RadiusUnitHint(const WireSpec& wire, double max_radius_m);
 
+// Stranded wire in concentric lay: a centre strand and L layers of 6, 12, 18, ... strands
+// round it, N = 1 + 3 L (L + 1) strands in all (1, 7, 19, 37, 61, ...), the bundle (2 L + 1)
+// strand diameters across (the factors 3, 5, 7, 9 of the concentric-lay tables of ASTM B8;
+// from memory). StrandLayers: L for such an N, else -1.
+inline constexpr int kMaxStrandLayers = 20;
+int StrandCount(int layers);
+int StrandLayers(int strands);
+// The equivalent radius of a stranded wire for the thin-wire kernel: that of its outer layer,
+// M = 6 L strands of radius b = d/2 whose centres lie on a circle of radius R = L d, which is
+// (M b R^(M-1))^(1/M), the equivalent radius of M equal round wires evenly spaced on a circle
+// (Balanis, Antenna Theory, 3rd ed., table 9.3; Schelkunoff; from memory). The inner layers
+// carry no current at HF (skin effect) and are left out. strands = 1 is the solid d / 2.
+double StrandedEquivalentRadius(int strands, double strand_diameter_m);
+
 // Where the radius was written: its value when known, else the wire's statement.
 const SourceLocation& RadiusLocation(const WireSpec& wire);
 

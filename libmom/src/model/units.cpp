@@ -30,6 +30,7 @@ Dimension Power(const Dimension& a, int power) {
 namespace {
 
 constexpr Quantity kLengthQ{"a length", "m", "m, cm, mm, ft, in", kLength};
+constexpr Quantity kAreaQ{"an area", "m^2", "mm2, cm2, m2", kArea};
 constexpr Quantity kFrequencyQ{"a frequency", "Hz", "Hz, kHz, MHz, GHz", kFrequency};
 constexpr Quantity kResistanceQ{"a resistance", "ohm", "ohm, kohm", kResistance};
 constexpr Quantity kInductanceQ{"an inductance", "H", "H, mH, uH, nH", kInductance};
@@ -38,7 +39,6 @@ constexpr Quantity kVoltageQ{"a voltage", "V", "V, mV, kV", kVoltage};
 
 // Named only in messages (no suffix of the language gives them directly).
 constexpr Quantity kDescribedOnly[] = {
-    {"an area", "m^2", "", Dimension{{2, 0, 0, 0}}},
     {"a time", "s", "", Dimension{{0, 0, 1, 0}}},
     {"a current", "A", "", Dimension{{0, 0, 0, 1}}},
     {"a conductance", "S", "", Dimension{{-2, -1, 3, 2}}},
@@ -48,10 +48,12 @@ constexpr Quantity kDescribedOnly[] = {
 constexpr double kDegree = core::kPi / 180.0;
 
 // The unit table. Sources: SI Brochure, 9th ed. (BIPM 2019) for the prefixes; the
-// international yard and pound agreement of 1959 for ft and in.
+// international yard and pound agreement of 1959 for ft and in. The areas are the squares of
+// their lengths (mm2 is the square millimetre of wire cross-sections, IEC 60228).
 constexpr Unit kUnits[] = {
     {"m", 1.0, kLength},         {"cm", 1e-2, kLength},      {"mm", 1e-3, kLength},
-    {"ft", 0.3048, kLength},     {"in", 0.0254, kLength},    {"Hz", 1.0, kFrequency},
+    {"ft", 0.3048, kLength},     {"in", 0.0254, kLength},    {"mm2", 1e-6, kArea},
+    {"cm2", 1e-4, kArea},        {"m2", 1.0, kArea},         {"Hz", 1.0, kFrequency},
     {"kHz", 1e3, kFrequency},    {"MHz", 1e6, kFrequency},   {"GHz", 1e9, kFrequency},
     {"ohm", 1.0, kResistance},   {"kohm", 1e3, kResistance}, {"H", 1.0, kInductance},
     {"mH", 1e-3, kInductance},   {"uH", 1e-6, kInductance},  {"nH", 1e-9, kInductance},
@@ -63,6 +65,7 @@ constexpr Unit kUnits[] = {
 }  // namespace
 
 const Quantity& LengthQuantity() { return kLengthQ; }
+const Quantity& AreaQuantity() { return kAreaQ; }
 const Quantity& FrequencyQuantity() { return kFrequencyQ; }
 const Quantity& ResistanceQuantity() { return kResistanceQ; }
 const Quantity& InductanceQuantity() { return kInductanceQ; }
@@ -71,8 +74,8 @@ const Quantity& VoltageQuantity() { return kVoltageQ; }
 
 std::string Describe(const Dimension& dimension) {
   if (dimension.IsNone()) return "a plain number";
-  for (const Quantity* q :
-       {&kLengthQ, &kFrequencyQ, &kResistanceQ, &kInductanceQ, &kCapacitanceQ, &kVoltageQ}) {
+  for (const Quantity* q : {&kLengthQ, &kAreaQ, &kFrequencyQ, &kResistanceQ, &kInductanceQ,
+                            &kCapacitanceQ, &kVoltageQ}) {
     if (q->dimension == dimension) return fmt::format("{} ({})", q->noun, q->si_unit);
   }
   for (const Quantity& q : kDescribedOnly) {
@@ -104,7 +107,8 @@ std::vector<std::string> UnitNames() {
 }
 
 std::string KnownUnitsSummary() {
-  return "lengths m cm mm ft in; frequencies Hz kHz MHz GHz; resistance ohm kohm; "
+  return "lengths m cm mm ft in; areas mm2 cm2 m2; frequencies Hz kHz MHz GHz; resistance ohm "
+         "kohm; "
          "inductance H mH uH nH; capacitance F uF nF pF; voltage V mV kV; angle deg";
 }
 

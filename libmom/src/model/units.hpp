@@ -27,6 +27,7 @@ Dimension Power(const Dimension& a, int power);
 // The dimensions the language names.
 inline constexpr Dimension kNone{};
 inline constexpr Dimension kLength{{1, 0, 0, 0}};
+inline constexpr Dimension kArea{{2, 0, 0, 0}};
 inline constexpr Dimension kFrequency{{0, 0, -1, 0}};
 inline constexpr Dimension kResistance{{2, 1, -3, -2}};
 inline constexpr Dimension kInductance{{2, 1, -2, -2}};
@@ -41,6 +42,7 @@ struct Quantity {
   Dimension dimension;
 };
 const Quantity& LengthQuantity();
+const Quantity& AreaQuantity();
 const Quantity& FrequencyQuantity();
 const Quantity& ResistanceQuantity();
 const Quantity& InductanceQuantity();

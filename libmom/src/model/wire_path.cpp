@@ -1,5 +1,6 @@
 // Model stage: the path of a wire, straight or bent. WirePath/WireLength (public API) give a
-// wire's corners and its length along them; CheckWirePath refuses paths the mesher cannot
+// wire's corners and its length along them, PositionAlong/PointAlong a WIRE@POS point on it;
+// CheckWirePath refuses paths the mesher cannot
 // use, with the location of the offending point. See docs/model-language.md, "Bent wires".
 #include "model/wire_path.hpp"
 
@@ -29,6 +30,40 @@ double WireLength(const WireSpec& wire) {
   }
   return length_m;
 }
+
+double PositionAlong(const WirePointSpec& at, double length_m) {
+  switch (at.kind) {
+    case PointKind::kStart:
+      return 0.0;
+    case PointKind::kEnd:
+      return length_m;
+    case PointKind::kDistance:
+      return at.value;
+    case PointKind::kPercent:
+      return at.value / 100.0 * length_m;
+  }
+  return 0.0;
+}
+
+Point PointAlong(const WireSpec& wire, double s_m) {
+  const std::vector<Point> path = WirePath(wire);
+  double start_m = 0.0;  // the distance of path[i] from the start
+  for (size_t i = 0; i + 1 < path.size(); ++i) {
+    const Point& a = path[i];
+    const Point& b = path[i + 1];
+    if (s_m == start_m) return a;
+    const double leg_m = std::hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
+    if (s_m < start_m + leg_m || i + 2 == path.size()) {
+      if (s_m >= start_m + leg_m) return b;
+      const double t = (s_m - start_m) / leg_m;
+      return Point{a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1]), a[2] + t * (b[2] - a[2])};
+    }
+    start_m += leg_m;
+  }
+  return path.back();
+}
+
+double LossRadius(const WireSpec& wire) { return wire.loss_radius_m.value_or(wire.radius_m); }
 
 namespace model {
 namespace {

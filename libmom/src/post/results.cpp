@@ -111,7 +111,7 @@ double WireLossW(const Model& model, const geometry::Mesh& mesh,
     const Complex at_start = segment_currents[s].current_start_a;
     const Complex at_end = segment_currents[s].current_end_a;
     const double r_per_m =
-        std::real(conductor::SeriesImpedancePerMetre(wire, seg.radius_m, frequency_hz));
+        std::real(conductor::SeriesImpedancePerMetre(wire, LossRadius(wire), frequency_hz));
     const double mean_square =
         (std::norm(at_start) + std::norm(at_end) + std::real(at_start * std::conj(at_end))) / 3.0;
     loss_w += 0.5 * r_per_m * seg.length_m() * mean_square;

@@ -215,7 +215,8 @@ TEST(ExpressionError, TooLargeALiteralIsRefused) {
 TEST(ExpressionError, UnknownUnitSuggestsTheNearestAndListsAll) {
   EXPECT_EQ(ErrorOf("14.2Mhz"),
             "calc:1:5: error: unknown unit 'Mhz'; did you mean 'MHz'? (units: lengths m cm mm ft "
-            "in; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance H mH uH nH; "
+            "in; areas mm2 cm2 m2; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance H "
+            "mH uH nH; "
             "capacitance F uF nF pF; voltage V mV kV; angle deg)");
   EXPECT_EQ(ErrorOf("3 km").substr(0, 40), "calc:1:3: error: unknown unit 'km'; did ");
 }

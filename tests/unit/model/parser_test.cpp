@@ -308,8 +308,8 @@ TEST(OverrideError, NamingNoLetListsTheModelsVariables) {
 TEST(OverrideError, DiagnosticsPointInsideTheValueAtItsOrigin) {
   EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"h", "3 + 2Mhz", "--set h"}}),
             "--set h:1:6: error: unknown unit 'Mhz'; did you mean 'MHz'? (units: lengths m cm mm "
-            "ft in; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance H mH uH nH; "
-            "capacitance F uF nF pF; voltage V mV kV; angle deg)");
+            "ft in; areas mm2 cm2 m2; frequencies Hz kHz MHz GHz; resistance ohm kohm; inductance "
+            "H mH uH nH; capacitance F uF nF pF; voltage V mV kV; angle deg)");
   EXPECT_EQ(ErrorOf("let h = 10\n" + kKit, {Override{"h", " ", ""}}),
             "override h:1:1: error: the value of 'h' is empty; give an expression");
 }

@@ -55,6 +55,20 @@ TEST(Units, MetricPrefixesFollowTheSiBrochure) {
   EXPECT_DOUBLE_EQ(Factor("kV"), 1e3);
 }
 
+TEST(Units, AreasAreTheSquaresOfTheirLengths) {
+  // SI Brochure, 9th edition (2019): a prefix binds to its unit before the power, so
+  // 1 mm^2 = (1e-3 m)^2 = 1e-6 m^2 and 1 cm^2 = 1e-4 m^2; mm2 is how wire cross-sections are
+  // written (IEC 60228 nominal cross-sections, 0.5 mm2, 1.5 mm2).
+  EXPECT_DOUBLE_EQ(Factor("mm2"), Factor("mm") * Factor("mm"));
+  EXPECT_DOUBLE_EQ(Factor("cm2"), Factor("cm") * Factor("cm"));
+  EXPECT_DOUBLE_EQ(Factor("m2"), 1.0);
+  for (const char* name : {"mm2", "cm2", "m2"}) {
+    EXPECT_EQ(FindUnit(name)->dimension, Power(kLength, 2)) << name;
+  }
+  EXPECT_EQ(Describe(kArea), "an area (m^2)");
+  EXPECT_FALSE(IsLengthUnitName("mm2"));
+}
+
 TEST(Units, DegreeIsPiOver180AndDimensionless) {
   // SI Brochure, 9th edition (2019), non-SI units accepted for use with the SI: 1 deg = pi/180 rad.
   EXPECT_DOUBLE_EQ(Factor("deg"), std::numbers::pi / 180.0);
